@@ -1,0 +1,106 @@
+"""The direction of imports, read from the source with `ast` (DESIGN.md §2)."""
+from __future__ import annotations
+
+import ast
+import subprocess
+import sys
+from pathlib import Path
+
+PACKAGE = Path(__file__).resolve().parent.parent / "timelines"
+
+# module -> the project modules it may import. A stage never reaches back upstream.
+ALLOWED = {
+    "errors": set(),
+    "calendar": set(),
+    "theme": set(),
+    "scene": set(),
+    "textsize": set(),
+    "model": {"calendar", "errors"},
+    "dates": {"dates", "model", "calendar", "errors"},
+    "sources": {"dates", "model", "calendar", "errors"},
+    "check": {"model", "errors", "sources"},
+    "layout": {"model"},
+    "scale": {"calendar"},
+    "encodings": {"model", "scale", "theme", "scene", "errors"},
+    "legend": {"encodings", "scale", "scene", "textsize", "theme"},
+    "compose": {"layout", "scale", "theme", "encodings", "scene", "legend", "model",
+                "calendar", "textsize"},
+    "render": {"scene"},
+    "chart": {"check", "compose", "dates", "errors", "layout", "model", "scale", "scene",
+              "sources", "textsize", "theme", "render", "calendar"},
+    "cli": {"chart", "check", "calendar", "dates", "encodings", "errors", "sources", "theme",
+            "__init__"},
+    "__init__": {"dates", "errors", "model"},
+    "__main__": {"cli"},
+}
+# third-party package -> the only modules allowed to import it
+THIRD_PARTY = {
+    "pandas": {"sources"},
+    "matplotlib": {"render.mpl"},
+    "svgwrite": {"render.svg"},
+    "dateutil": {"dates"},
+}
+
+
+def _modules():
+    for path in sorted(PACKAGE.rglob("*.py")):
+        relative = path.relative_to(PACKAGE).with_suffix("")
+        parts = relative.parts
+        yield ".".join(parts), parts, ast.parse(path.read_text(encoding="utf-8"))
+
+
+def _imports(parts: tuple[str, ...], tree: ast.AST):
+    """(project module, third-party top-level name) pairs imported by one module."""
+    package = parts[:-1]
+    for node in ast.walk(tree):
+        if isinstance(node, ast.ImportFrom):
+            if node.level:
+                base = package[: len(package) - node.level + 1]
+                target = [*base, *(node.module.split(".") if node.module else [])]
+                names = [target] if node.module else [[*base, a.name] for a in node.names]
+                for name in names:
+                    yield ("__init__" if not name else name[0]), None
+            else:
+                yield None, node.module.split(".")[0]
+        elif isinstance(node, ast.Import):
+            for alias in node.names:
+                yield None, alias.name.split(".")[0]
+
+
+def test_project_imports_go_only_downward():
+    wrong = []
+    for name, parts, tree in _modules():
+        layer = parts[0]
+        allowed = ALLOWED[layer] | {layer}
+        for project, _ in _imports(parts, tree):
+            if project is not None and project not in allowed:
+                wrong.append(f"{name} imports {project}")
+    assert not wrong, wrong
+
+
+def test_heavy_libraries_stay_in_their_modules():
+    wrong = []
+    for name, parts, tree in _modules():
+        for _, third in _imports(parts, tree):
+            owners = THIRD_PARTY.get(third)
+            if owners is not None and not any(name == o or name.startswith(o + ".")
+                                              or parts[0] == o for o in owners):
+                wrong.append(f"{name} imports {third}")
+    assert not wrong, wrong
+
+
+def test_every_module_has_a_rule():
+    assert {parts[0] for _, parts, _ in _modules()} <= set(ALLOWED)
+
+
+def test_svg_path_does_not_load_matplotlib(tmp_path):
+    script = (
+        "import sys\n"
+        "from timelines.cli import main\n"
+        f"code = main(['render', '--demo', '-o', {str(tmp_path / 'demo.svg')!r}])\n"
+        "assert 'matplotlib' not in sys.modules, 'matplotlib was imported'\n"
+        "sys.exit(code)\n"
+    )
+    done = subprocess.run([sys.executable, "-c", script], capture_output=True, text=True)
+    assert done.returncode == 0, done.stderr
+    assert (tmp_path / "demo.svg").stat().st_size > 1000

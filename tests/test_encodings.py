@@ -1,0 +1,91 @@
+"""Geometry of each mark, on numbers (STYLE.md: assert coordinates, not pixels)."""
+from __future__ import annotations
+
+import pytest
+
+from timelines import encodings as marks
+from timelines.encodings import EndWindow, LaneBox, MarkStyle
+from timelines.errors import UsageError
+from timelines.scale import TimeScale
+from timelines.scene import GradientRect, Line, Polygon, Rect, Text
+
+SCALE = TimeScale(0.0, 100.0, 50.0, 250.0)   # 2 px per day, x = 50 + 2 * day
+LANE = LaneBox(10.0, 12.0)
+STYLE = MarkStyle("#0072B2", far_opacity=0.1)
+
+
+def test_core_is_a_solid_rect_from_low_to_high():
+    [rect] = marks.core(10, 30, SCALE, LANE, STYLE)
+    assert isinstance(rect, Rect)
+    assert (rect.x, rect.y, rect.width, rect.height) == (70.0, 10.0, 40.0, 12.0)
+    assert rect.fill == "#0072B2" and rect.opacity == 1.0
+
+
+def test_fade_on_a_start_window_is_faint_at_its_earliest_bound():
+    [fade] = marks.fade(EndWindow(10, 20, "start"), SCALE, LANE, STYLE)
+    assert isinstance(fade, GradientRect)
+    assert (fade.x, fade.width) == (70.0, 20.0)
+    assert (fade.opacity_left, fade.opacity_right) == (0.1, 1.0)
+
+
+def test_fade_on_an_end_window_is_faint_at_its_latest_bound():
+    [fade] = marks.fade(EndWindow(40, 60, "end"), SCALE, LANE, STYLE)
+    assert (fade.x, fade.width) == (130.0, 40.0)
+    assert (fade.opacity_left, fade.opacity_right) == (1.0, 0.1)
+
+
+def test_an_exact_endpoint_has_no_fringe():
+    for name, encoder in marks.FRINGES.items():
+        assert encoder(EndWindow(20, 20, "start"), SCALE, LANE, STYLE) == [], name
+
+
+def test_whisker_runs_across_the_window_with_a_cap_at_the_far_bound():
+    line, cap = marks.whisker(EndWindow(40, 60, "end"), SCALE, LANE, STYLE)
+    assert isinstance(line, Line) and (line.x1, line.x2) == (130.0, 170.0)
+    assert line.y1 == line.y2 == LANE.middle
+    assert cap.x1 == cap.x2 == 170.0 and cap.y1 < LANE.middle < cap.y2
+
+
+def test_open_arrow_points_outward_from_the_axis_edge():
+    [start] = marks.open_arrow(0, "start", SCALE, LANE, STYLE)
+    [end] = marks.open_arrow(100, "end", SCALE, LANE, STYLE)
+    assert isinstance(start, Polygon)
+    assert min(x for x, _ in start.points) < 50.0 == max(x for x, _ in start.points)
+    assert max(x for x, _ in end.points) > 250.0 == min(x for x, _ in end.points)
+
+
+def test_bound_brackets_open_toward_where_the_date_may_lie():
+    [before] = marks.bound_bracket(50, "before", SCALE, LANE, STYLE)
+    [after] = marks.bound_bracket(50, "after", SCALE, LANE, STYLE)
+    assert not before.closed and max(x for x, _ in before.points) == 150.0
+    assert min(x for x, _ in before.points) < 150.0     # arms reach back: ']'
+    assert min(x for x, _ in after.points) == 150.0
+    assert max(x for x, _ in after.points) > 150.0      # arms reach forward: '['
+
+
+def test_qualifier_glyphs_are_the_iso_8601_2_signs_outside_the_bar_end():
+    # ISO 8601-2:2019 §8: '~' approximate, '?' uncertain ('%' both; we print '~?').
+    [start] = marks.qualifier_glyph(10, "start", "approximate", SCALE, LANE, STYLE)
+    [end] = marks.qualifier_glyph(60, "end", "uncertain", SCALE, LANE, STYLE)
+    assert isinstance(start, Text) and start.text == "~" and start.anchor == "end"
+    assert start.x < 70.0
+    assert end.text == "?" and end.anchor == "start" and end.x > 170.0
+
+
+def test_point_marker_is_a_diamond_centred_on_its_day():
+    [diamond] = marks.point_marker(25, SCALE, LANE, STYLE)
+    xs = [x for x, _ in diamond.points]
+    ys = [y for _, y in diamond.points]
+    assert (min(xs) + max(xs)) / 2 == 100.0
+    assert (min(ys) + max(ys)) / 2 == LANE.middle
+
+
+def test_likely_tick_crosses_the_bar():
+    [tick] = marks.likely_tick(30, SCALE, LANE, STYLE)
+    assert tick.x1 == tick.x2 == 110.0 and tick.y1 < LANE.y and tick.y2 > LANE.y + LANE.height
+
+
+def test_unknown_fringe_name_suggests_the_closest():
+    with pytest.raises(UsageError) as caught:
+        marks.fringe_encoder("fad")
+    assert caught.value.hint == "did you mean 'fade'?"

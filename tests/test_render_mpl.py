@@ -1,0 +1,234 @@
+"""The PNG/PDF renderer: file formats, page size, pixels where they belong, byte-stable output."""
+from __future__ import annotations
+
+import io
+import os
+import re
+import struct
+import subprocess
+import sys
+from pathlib import Path
+
+import matplotlib
+import numpy
+import pytest
+from PIL import Image
+
+from timelines.render.mpl import render_pdf, render_png
+from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Scene, Text
+
+HERE = Path(__file__).resolve().parent
+PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"  # PNG specification (ISO/IEC 15948), section 5.2
+
+
+def sample_scene() -> Scene:
+    return Scene(
+        480, 192,
+        (
+            Group((
+                GradientRect(20, 20, 60, 20, "#0072B2", 0.0, 1.0),
+                Rect(80, 20, 200, 20, fill="#0072B2"),
+                GradientRect(280, 20, 60, 20, "#0072B2", 1.0, 0.0),
+                Text(350, 35, "Orla Fenwick \u2013 c. 1650", size=12),
+            ), css_class="record", title="Orla Fenwick"),
+            Line(20, 170, 460, 170, stroke="#333333", stroke_width=1, dash=(4, 2)),
+            Polygon(((200, 100), (210, 90), (220, 100)), fill="#D55E00"),
+            Polygon(((230, 100), (240, 90), (250, 100)), closed=False, stroke="#000000",
+                    stroke_width=1.5),
+            Text(240, 188, "1700", size=10, anchor="middle", weight="bold"),
+        ),
+        title="Guild of Lantern Makers", desc="An invented guild.",
+        metadata=(("Author", "timelines tests"),),
+    )
+
+
+def png_pixels(scene: Scene, tmp_path: Path, dpi: float = 96) -> numpy.ndarray:
+    render_png(scene, tmp_path / "out.png", dpi=dpi)
+    return numpy.asarray(Image.open(tmp_path / "out.png").convert("RGBA")).astype(int)
+
+
+def png_size(data: bytes) -> tuple[int, int]:
+    # PNG section 11.2.2: IHDR is the first chunk; width and height are 4-byte big-endian.
+    assert data[12:16] == b"IHDR"
+    return struct.unpack(">II", data[16:24])
+
+
+# --- PNG ----------------------------------------------------------------------------------
+
+@pytest.mark.parametrize("width, height, dpi, expected", [
+    (480, 192, 96, (480, 192)),
+    (480, 192, 150, (750, 300)),   # 480 px = 5 in; 5 in * 150 dpi = 750
+    (96, 48, 300, (300, 150)),
+])
+def test_png_signature_and_pixel_size(tmp_path, width, height, dpi, expected):
+    render_png(Scene(width, height, ()), tmp_path / "a.png", dpi=dpi)
+    data = (tmp_path / "a.png").read_bytes()
+    assert data.startswith(PNG_SIGNATURE)
+    assert png_size(data) == expected
+
+
+def test_png_is_byte_identical_for_identical_scenes(tmp_path):
+    render_png(sample_scene(), tmp_path / "a.png")
+    render_png(sample_scene(), tmp_path / "b.png")
+    assert (tmp_path / "a.png").read_bytes() == (tmp_path / "b.png").read_bytes()
+
+
+def test_png_carries_title_but_no_software_or_time_stamp(tmp_path):
+    render_png(sample_scene(), tmp_path / "a.png")
+    data = (tmp_path / "a.png").read_bytes()
+    assert b"tIME" not in data and b"Software" not in data and b"matplotlib" not in data
+    assert Image.open(tmp_path / "a.png").text["Title"] == "Guild of Lantern Makers"
+
+
+def test_y_grows_downward_and_page_units_map_one_to_one(tmp_path):
+    scene = Scene(100, 50, (Rect(10, 5, 20, 10, fill="#ff0000"),), background="#ffffff")
+    pixels = png_pixels(scene, tmp_path, dpi=96)
+    red = numpy.argwhere((pixels[..., 0] > 200) & (pixels[..., 1] < 50))
+    assert red.min(axis=0).tolist() == [5, 10] and red.max(axis=0).tolist() == [14, 29]
+
+
+def test_scale_follows_dpi(tmp_path):
+    scene = Scene(100, 50, (Rect(10, 5, 20, 10, fill="#ff0000"),), background="#ffffff")
+    pixels = png_pixels(scene, tmp_path, dpi=192)
+    red = numpy.argwhere((pixels[..., 0] > 200) & (pixels[..., 1] < 50))
+    assert red.min(axis=0).tolist() == [10, 20] and red.max(axis=0).tolist() == [29, 59]
+
+
+def test_no_background_means_transparent(tmp_path):
+    pixels = png_pixels(Scene(20, 20, (), background=None), tmp_path)
+    assert pixels[..., 3].max() == 0
+
+
+def test_gradient_runs_linearly_left_to_right(tmp_path):
+    # Straight-alpha source-over on white: channel = 255 - opacity * (255 - colour).
+    scene = Scene(256, 10, (GradientRect(0, 0, 256, 10, "#000000", 0.0, 1.0),),
+                  background="#ffffff")
+    row = png_pixels(scene, tmp_path)[5, :, 0]
+    expected = 255 - (numpy.arange(256) + 0.5) / 256 * 255
+    assert numpy.abs(row - expected).max() <= 1.5
+    assert (numpy.diff(row) <= 0).all()
+
+
+def test_gradient_with_partial_opacity_and_drawing_order(tmp_path):
+    scene = Scene(40, 10, (Rect(0, 0, 40, 10, fill="#0000ff"),
+                           GradientRect(0, 0, 40, 10, "#ffffff", 0.5, 0.5)), background=None)
+    pixel = png_pixels(scene, tmp_path)[5, 20]
+    assert abs(pixel[0] - 127.5) <= 1.5 and pixel[2] == 255 and pixel[3] == 255
+
+
+def test_opacity_on_shapes(tmp_path):
+    scene = Scene(40, 10, (Rect(0, 0, 40, 10, fill="#000000", opacity=0.25),),
+                  background="#ffffff")
+    assert abs(png_pixels(scene, tmp_path)[5, 20, 0] - 255 * 0.75) <= 1.5
+
+
+def test_text_anchor_places_the_ink(tmp_path):
+    def ink_columns(anchor):
+        scene = Scene(200, 40, (Text(100, 30, "Marrow", size=20, anchor=anchor),))
+        dark = numpy.argwhere(png_pixels(scene, tmp_path)[..., 0] < 128)
+        return dark[:, 1].min(), dark[:, 1].max(), dark[:, 0].max()
+
+    start, middle, end = ink_columns("start"), ink_columns("middle"), ink_columns("end")
+    assert 99 <= start[0] <= 103 and 97 <= end[1] <= 101
+    assert abs((middle[0] + middle[1]) / 2 - 100) <= 2
+    assert start[2] <= 30  # "Marrow" has no descender: the ink sits on the baseline
+
+
+def test_text_is_never_mathtext_or_tex(tmp_path):
+    # "$\frac{$" is invalid mathtext: matplotlib would raise if it tried to parse it.
+    render_png(Scene(100, 20, (Text(5, 15, r"$\frac{$ 5% \\n _x_ ^y"),)), tmp_path / "a.png")
+
+
+@pytest.mark.filterwarnings("ignore:Glyph .* missing from font")
+def test_hostile_text_renders(tmp_path):
+    texts = ["<script>alert(1)</script>", "a\x00b\x07c\ud800", "\u05e9\u05dc\u05d5\u05dd",
+             "\U0001f600", "x" * 5000, "  \n  "]
+    scene = Scene(200, 40, tuple(Text(5, 20, t) for t in texts), title="\x00t\ud800",
+                  metadata=(("bad\x00key", "v"), ("Comment", "\U0001f600\ud800")))
+    render_png(scene, tmp_path / "a.png", dpi=96)
+    render_pdf(scene, tmp_path / "a.pdf")
+    assert png_size((tmp_path / "a.png").read_bytes()) == (200, 40)
+
+
+def test_users_matplotlib_settings_do_not_leak_in(tmp_path):
+    render_png(sample_scene(), tmp_path / "plain.png")
+    render_pdf(sample_scene(), tmp_path / "plain.pdf")
+    hostile_rc = {"savefig.bbox": "tight", "figure.facecolor": "red", "savefig.facecolor": "red",
+                  "lines.solid_capstyle": "round", "lines.scale_dashes": True,
+                  "pdf.fonttype": 3, "font.family": "serif", "text.antialiased": False}
+    with matplotlib.rc_context(hostile_rc):
+        render_png(sample_scene(), tmp_path / "styled.png")
+        render_pdf(sample_scene(), tmp_path / "styled.pdf")
+    assert (tmp_path / "plain.png").read_bytes() == (tmp_path / "styled.png").read_bytes()
+    assert (tmp_path / "plain.pdf").read_bytes() == (tmp_path / "styled.pdf").read_bytes()
+
+
+def test_global_settings_are_left_as_they_were(tmp_path):
+    before = dict(matplotlib.rcParams)
+    render_pdf(sample_scene(), tmp_path / "a.pdf")
+    render_png(sample_scene(), tmp_path / "a.png")
+    assert dict(matplotlib.rcParams) == before
+
+
+# --- PDF ----------------------------------------------------------------------------------
+
+def test_pdf_header_and_page_size(tmp_path):
+    render_pdf(sample_scene(), tmp_path / "a.pdf")
+    data = (tmp_path / "a.pdf").read_bytes()
+    assert data.startswith(b"%PDF-")  # ISO 32000-1, section 7.5.2: the file header
+    # 480 x 192 px at 96 px/in is 5 x 2 in, which is 360 x 144 pt (1 pt = 1/72 in).
+    assert re.search(rb"/MediaBox \[ ?0 0 360 144 ?\]", data)
+
+
+def test_pdf_embeds_truetype_not_type3_fonts(tmp_path):
+    # ISO 32000-1, 9.6.5 and 9.9: Type 3 fonts are glyph procedures; embedded TrueType programs
+    # are referenced through /FontFile2.
+    render_pdf(sample_scene(), tmp_path / "a.pdf")
+    data = (tmp_path / "a.pdf").read_bytes()
+    assert b"/Type3" not in data
+    assert b"/FontFile2" in data
+    assert b"DejaVuSans" in data and b"DejaVuSans-Bold" in data
+
+
+def test_pdf_is_byte_identical_and_undated(tmp_path):
+    render_pdf(sample_scene(), tmp_path / "a.pdf")
+    render_pdf(sample_scene(), tmp_path / "b.pdf")
+    data = (tmp_path / "a.pdf").read_bytes()
+    assert data == (tmp_path / "b.pdf").read_bytes()
+    for key in (b"/CreationDate", b"/ModDate", b"/Producer", b"/Creator"):
+        assert key not in data
+    assert b"/Title (Guild of Lantern Makers)" in data and b"/Author (timelines tests)" in data
+
+
+def test_pdf_writes_to_a_file_object():
+    buffer = io.BytesIO()
+    render_pdf(sample_scene(), buffer)
+    assert buffer.getvalue().startswith(b"%PDF-")
+
+
+# --- process-level properties ---------------------------------------------------------------
+
+def test_bytes_are_the_same_across_processes_with_different_hash_seeds(tmp_path):
+    script = (
+        "import sys\n"
+        f"sys.path[:0] = [{str(HERE)!r}, {str(HERE.parent)!r}]\n"
+        "from test_render_mpl import sample_scene\n"
+        "from timelines.render.mpl import render_pdf, render_png\n"
+        "render_png(sample_scene(), sys.argv[1] + '.png')\n"
+        "render_pdf(sample_scene(), sys.argv[1] + '.pdf')\n"
+    )
+    for seed in ("1", "2"):
+        subprocess.run([sys.executable, "-c", script, str(tmp_path / seed)], check=True,
+                       env={**os.environ, "PYTHONHASHSEED": seed})
+    for suffix in (".png", ".pdf"):
+        assert (tmp_path / f"1{suffix}").read_bytes() == (tmp_path / f"2{suffix}").read_bytes()
+
+
+def test_importing_the_module_does_not_load_matplotlib():
+    script = (
+        "import sys\n"
+        f"sys.path.insert(0, {str(HERE.parent)!r})\n"
+        "import timelines.render.mpl\n"
+        "assert 'matplotlib' not in sys.modules\n"
+    )
+    subprocess.run([sys.executable, "-c", script], check=True)

@@ -1,0 +1,353 @@
+"""The SVG renderer, read back with ElementTree: structure, accessibility, determinism, safety."""
+from __future__ import annotations
+
+import datetime
+import os
+import re
+import subprocess
+import sys
+import xml.etree.ElementTree as ET
+from pathlib import Path
+
+import pytest
+
+from timelines.render.svg import (
+    DESC_ID, TITLE_ID, drawable_text, font_family_list, render_svg, write_svg,
+)
+from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Scene, Text
+
+SVG = "{http://www.w3.org/2000/svg}"
+HERE = Path(__file__).resolve().parent
+
+
+def parse(scene: Scene) -> ET.Element:
+    return ET.fromstring(render_svg(scene))
+
+
+def scene_of(*children, **options) -> Scene:
+    return Scene(400, 200, tuple(children), **options)
+
+
+def drawn(root: ET.Element, tag: str) -> list[ET.Element]:
+    return list(root.iter(SVG + tag))
+
+
+def sample_scene() -> Scene:
+    bar = Group(
+        (
+            GradientRect(10, 20, 30, 12, "#0072B2", 0.0, 1.0, css_class="fringe start"),
+            Rect(40, 20, 100, 12, fill="#0072B2", css_class="core"),
+            GradientRect(140, 20, 25, 12, "#0072B2", 1.0, 0.0, css_class="fringe end"),
+            Text(170, 30, "Orla Fenwick", size=12, css_class="label"),
+        ),
+        css_class="record", title="Orla Fenwick: c. 1650 - 1702", id="record-1",
+    )
+    return scene_of(
+        bar,
+        Line(10, 180, 390, 180, stroke="#333333", stroke_width=1, dash=(4, 2), css_class="axis"),
+        Polygon(((200, 100), (210, 90), (220, 100)), fill="#D55E00", css_class="marker"),
+        Polygon(((230, 100), (240, 90), (250, 100)), closed=False, stroke="#000000",
+                stroke_width=1.5, css_class="bracket"),
+        Text(200, 195, "1700", size=10, anchor="middle", weight="bold", fill="#444444"),
+        title="Guild of Lantern Makers", desc="Members of an invented guild, 1600-1750.",
+    )
+
+
+# --- the document -------------------------------------------------------------------------
+
+def test_root_has_viewbox_and_size_in_page_units():
+    # SVG 1.1 section 7.7: viewBox="min-x min-y width height" maps user units onto the viewport.
+    root = parse(Scene(640.5, 300, ()))
+    assert root.tag == SVG + "svg"
+    assert root.get("viewBox") == "0 0 640.5 300"
+    assert (root.get("width"), root.get("height")) == ("640.5", "300")
+
+
+def test_document_starts_with_an_xml_declaration_and_ends_with_a_newline():
+    text = render_svg(sample_scene())
+    assert text.startswith('<?xml version="1.0" encoding="utf-8"?>\n<svg')
+    assert text.endswith("</svg>\n")
+
+
+def test_title_and_desc_name_the_chart_through_aria():
+    # SVG-AAM 1.0 / WAI-ARIA 1.2: role="img" with aria-labelledby naming the <title> and <desc>
+    # ids is the common pattern for a standalone accessible SVG (common practice, no source).
+    root = parse(sample_scene())
+    assert root.get("role") == "img"
+    assert root.get("aria-labelledby") == f"{TITLE_ID} {DESC_ID}"
+    title, desc = root[0], root[1]
+    assert (title.tag, title.get("id"), title.text) == (
+        SVG + "title", TITLE_ID, "Guild of Lantern Makers")
+    assert (desc.tag, desc.get("id"), desc.text) == (
+        SVG + "desc", DESC_ID, "Members of an invented guild, 1600-1750.")
+
+
+def test_without_a_desc_only_the_title_is_referenced():
+    root = parse(scene_of(title="Only a title"))
+    assert root.get("aria-labelledby") == TITLE_ID
+    assert not drawn(root, "desc")
+
+
+def test_every_aria_reference_resolves_to_an_element():
+    root = parse(sample_scene())
+    ids = {element.get("id") for element in root.iter() if element.get("id")}
+    assert set(root.get("aria-labelledby").split()) <= ids
+
+
+def test_font_family_is_set_once_on_the_root_starting_with_the_scene_font():
+    root = parse(scene_of(Text(0, 10, "a"), font_family="DejaVu Sans"))
+    assert root.get("font-family") == "DejaVu Sans, Bitstream Vera Sans, sans-serif"
+    assert [e for e in root.iter() if e is not root and e.get("font-family")] == []
+    assert font_family_list("Fira Sans").startswith("Fira Sans, DejaVu Sans, ")
+
+
+def test_font_family_cannot_break_out_of_its_attribute_value():
+    assert font_family_list('Evil"; fill:url(http://x)') == (
+        "Evil fillurlhttpx, DejaVu Sans, Bitstream Vera Sans, sans-serif")
+
+
+def test_background_is_a_full_page_rect_or_absent():
+    root = parse(scene_of(background="#fafafa"))
+    background = [r for r in drawn(root, "rect") if r.get("class") == "background"]
+    assert [(r.get("width"), r.get("height"), r.get("fill")) for r in background] == [
+        ("400", "200", "#fafafa")]
+    assert not drawn(parse(scene_of(background=None)), "rect")
+
+
+def test_metadata_is_written_as_text():
+    root = parse(scene_of(metadata=(("generator", "timelines 0.1.0"), ("source", "guild.csv"))))
+    assert drawn(root, "metadata")[0].text == "generator: timelines 0.1.0\nsource: guild.csv"
+
+
+# --- primitives ---------------------------------------------------------------------------
+
+def test_rect_attributes_and_class():
+    root = parse(scene_of(
+        Rect(1.5, 2, 30.25, 4, fill="#112233", stroke="#445566", stroke_width=0.5, opacity=0.4,
+             css_class="core certain"), background=None))
+    (rect,) = drawn(root, "rect")
+    assert rect.attrib == {
+        "x": "1.5", "y": "2", "width": "30.25", "height": "4", "fill": "#112233",
+        "stroke": "#445566", "stroke-width": "0.5", "opacity": "0.4", "class": "core certain",
+    }
+
+
+def test_rect_without_fill_is_fill_none_and_empty_rects_are_skipped():
+    root = parse(scene_of(Rect(0, 0, 10, 10, fill=None, stroke="#000000", stroke_width=1),
+                          Rect(5, 5, 0, 10), Rect(5, 5, 10, -1), background=None))
+    assert [r.get("fill") for r in drawn(root, "rect")] == ["none"]
+
+
+def test_gradient_is_a_bounding_box_linear_gradient_left_to_right():
+    # SVG 1.1 section 13.2.2: gradientUnits defaults to objectBoundingBox, so x1=0 x2=1 runs
+    # from the rect's left edge to its right edge whatever its size.
+    root = parse(scene_of(GradientRect(10, 10, 50, 8, "#0072B2", 0.25, 1.0)))
+    (gradient,) = drawn(root, "linearGradient")
+    assert gradient.get("gradientUnits") in (None, "objectBoundingBox")
+    assert [gradient.get(k) for k in ("x1", "y1", "x2", "y2")] == ["0", "0", "1", "0"]
+    stops = [(s.get("offset"), s.get("stop-color"), s.get("stop-opacity")) for s in gradient]
+    assert stops == [("0", "#0072B2", "0.25"), ("1", "#0072B2", "1")]
+    (rect,) = [r for r in drawn(root, "rect") if r.get("class") != "background"]
+    assert rect.get("fill") == f"url(#{gradient.get('id')})"
+
+
+def test_gradients_live_in_defs_and_identical_fades_share_one():
+    fade = GradientRect(0, 0, 10, 10, "#0072B2", 1.0, 0.0)
+    root = parse(scene_of(
+        fade, GradientRect(50, 50, 30, 5, "#0072B2", 1.0, 0.0),
+        GradientRect(0, 20, 10, 10, "#0072B2", 0.0, 1.0),
+        GradientRect(0, 40, 10, 10, "#E69F00", 1.0, 0.0),
+    ))
+    (defs,) = drawn(root, "defs")
+    ids = [g.get("id") for g in defs]
+    assert len(ids) == 3 == len(set(ids))
+    fills = [r.get("fill") for r in drawn(root, "rect") if r.get("class") != "background"]
+    assert fills[0] == fills[1] != fills[2] != fills[3]
+    assert {f[len("url(#"):-1] for f in fills} == set(ids)
+
+
+def test_gradient_ids_do_not_depend_on_drawing_order():
+    first = GradientRect(0, 0, 10, 10, "#0072B2", 1.0, 0.0)
+    second = GradientRect(0, 20, 10, 10, "#E69F00", 0.0, 0.5)
+    forward = {g.get("id") for g in drawn(parse(scene_of(first, second)), "linearGradient")}
+    backward = {g.get("id") for g in drawn(parse(scene_of(second, first)), "linearGradient")}
+    assert forward == backward
+
+
+def test_zero_width_gradient_rect_is_skipped_with_no_defs_left_over():
+    root = parse(scene_of(GradientRect(10, 10, 0, 8, "#0072B2", 0.0, 1.0), background=None))
+    assert not drawn(root, "rect") and not drawn(root, "defs")
+
+
+def test_group_carries_class_id_and_a_title_tooltip_first():
+    root = parse(sample_scene())
+    (group,) = drawn(root, "g")
+    assert (group.get("class"), group.get("id")) == ("record", "record-1")
+    assert group[0].tag == SVG + "title"
+    assert group[0].text == "Orla Fenwick: c. 1650 - 1702"
+    assert [child.tag[len(SVG):] for child in group[1:]] == ["rect", "rect", "rect", "text"]
+
+
+def test_group_without_title_has_no_title_child():
+    root = parse(scene_of(Group((Rect(0, 0, 5, 5),), css_class="lane")))
+    (group,) = drawn(root, "g")
+    assert not drawn(group, "title")
+
+
+def test_text_attributes():
+    root = parse(sample_scene())
+    label, tick = drawn(root, "text")
+    assert label.attrib == {"x": "170", "y": "30", "font-size": "12", "class": "label"}
+    assert label.text == "Orla Fenwick"
+    assert tick.attrib == {
+        "x": "200", "y": "195", "font-size": "10", "text-anchor": "middle",
+        "font-weight": "bold", "fill": "#444444",
+    }
+
+
+def test_text_whitespace_is_collapsed_as_svg_would_display_it():
+    root = parse(scene_of(Text(0, 10, "  two\tlines\nand  more  ", style="italic")))
+    (text,) = drawn(root, "text")
+    assert text.text == "two lines and more"
+    assert text.get("font-style") == "italic"
+
+
+def test_empty_text_is_not_drawn():
+    assert not drawn(parse(scene_of(Text(0, 10, " \n\x00 "))), "text")
+
+
+def test_line_with_dash_pattern():
+    root = parse(sample_scene())
+    (line,) = drawn(root, "line")
+    assert line.attrib == {
+        "x1": "10", "y1": "180", "x2": "390", "y2": "180", "stroke": "#333333",
+        "stroke-width": "1", "stroke-dasharray": "4 2", "class": "axis",
+    }
+
+
+def test_closed_polygon_and_open_polyline():
+    root = parse(sample_scene())
+    (polygon,) = drawn(root, "polygon")
+    assert (polygon.get("points"), polygon.get("fill")) == ("200,100 210,90 220,100", "#D55E00")
+    (polyline,) = drawn(root, "polyline")
+    assert polyline.get("fill") == "none"
+    assert (polyline.get("stroke"), polyline.get("stroke-width")) == ("#000000", "1.5")
+
+
+def test_numbers_are_compact():
+    root = parse(scene_of(Rect(1 / 3, 2.0, 10.005, -0.001 + 1, opacity=0.12345),
+                          Line(-0.001, 1e-9, 2.499, 7, stroke_width=1), background=None))
+    (rect,), (line,) = drawn(root, "rect"), drawn(root, "line")
+    assert (rect.get("x"), rect.get("y"), rect.get("height"), rect.get("opacity")) == (
+        "0.33", "2", "1", "0.123")
+    assert (line.get("x1"), line.get("y1"), line.get("x2")) == ("0", "0", "2.5")
+
+
+def test_non_finite_coordinates_are_refused():
+    with pytest.raises(ValueError, match="coordinate"):
+        render_svg(scene_of(Rect(float("nan"), 0, 10, 10)))
+
+
+@pytest.mark.parametrize("colour", [
+    "url(http://example.invalid/x.svg#a)", "red;stroke:url(#x)", "#12345", "javascript:alert(1)",
+])
+def test_colours_that_are_not_colours_are_refused(colour):
+    with pytest.raises(ValueError, match="not a colour"):
+        render_svg(scene_of(Rect(0, 0, 10, 10, fill=colour)))
+
+
+# --- determinism --------------------------------------------------------------------------
+
+def test_same_scene_gives_the_same_bytes_twice(tmp_path):
+    assert render_svg(sample_scene()) == render_svg(sample_scene())
+    write_svg(sample_scene(), tmp_path / "a.svg")
+    assert (tmp_path / "a.svg").read_bytes() == render_svg(sample_scene()).encode("utf-8")
+
+
+def test_same_bytes_across_processes_with_different_hash_seeds():
+    script = (
+        "import hashlib, sys\n"
+        f"sys.path[:0] = [{str(HERE)!r}, {str(HERE.parent)!r}]\n"
+        "from test_render_svg import sample_scene\n"
+        "from timelines.render.svg import render_svg\n"
+        "print(hashlib.sha256(render_svg(sample_scene()).encode()).hexdigest())\n"
+    )
+    digests = set()
+    for seed in ("1", "2"):
+        done = subprocess.run([sys.executable, "-c", script], capture_output=True, text=True,
+                              env={**os.environ, "PYTHONHASHSEED": seed}, check=True)
+        digests.add(done.stdout.strip())
+    assert len(digests) == 1 and "" not in digests
+
+
+def test_no_timestamps():
+    text = render_svg(sample_scene())
+    today = datetime.date.today()
+    assert today.isoformat() not in text and str(today.year) not in text
+    assert not re.search(r"\d{4}-\d\d-\d\dT|\d\d:\d\d:\d\d", text)
+
+
+# --- hostile text -------------------------------------------------------------------------
+
+HOSTILE = [
+    "<script>alert(1)</script>",
+    "javascript:alert(document.cookie)",
+    "&amp; &lt; &#x3C; & < >",
+    "\"double\" 'single' `back`",
+    '" onload="alert(1)',
+    "\u05e9\u05dc\u05d5\u05dd \u0645\u0631\u062d\u0628\u0627 \u202eevil\u202c",  # RTL, override
+    "\U0001f600 \U0001f1f3\U0001f1f4 \u200d",  # emoji, flag, zero-width joiner
+    "nul\x00 bell\x07 escape\x1b form\x0c del\x7f c1\x85 lone\ud800 end\ufffe",
+    "]]> <![CDATA[ x ]]>",
+    "<foreignObject><body onload='x'/></foreignObject>",
+    "x" * 5000,
+]
+
+
+def hostile_scene(text: str) -> Scene:
+    return Scene(
+        300, 100,
+        (Group((Text(10, 20, text), Rect(0, 0, 5, 5, css_class=text)), css_class=text,
+               title=text, id=text),
+         GradientRect(10, 30, 50, 5, "#0072B2", 0, 1)),
+        title=text, desc=text, metadata=((text, text),),
+    )
+
+
+@pytest.mark.parametrize("text", HOSTILE, ids=range(len(HOSTILE)))
+def test_hostile_text_stays_text(text):
+    # XML 1.0 (Fifth Edition) section 2.2, production [2] Char: what a document may contain.
+    output = render_svg(hostile_scene(text))
+    output.encode("utf-8")  # no lone surrogates survive
+    root = ET.fromstring(output)
+    assert "<script" not in output and "<foreignObject" not in output
+    for element in root.iter():
+        assert element.tag in {SVG + t for t in (
+            "svg", "title", "desc", "metadata", "defs", "linearGradient", "stop", "g",
+            "text", "rect")}, element.tag
+        for name, value in element.attrib.items():
+            local = name.rsplit("}", 1)[-1]
+            assert not local.lower().startswith("on"), name
+            assert local != "href", name
+            if "url(" in value:
+                assert value.startswith("url(#"), value
+    (label,) = drawn(root, "text")
+    assert label.text == drawable_text(text)
+
+
+def test_escaped_markup_reads_back_as_the_original_characters():
+    root = ET.fromstring(render_svg(hostile_scene("<script>alert(1)</script> &amp; \"q\"")))
+    assert drawn(root, "text")[0].text == "<script>alert(1)</script> &amp; \"q\""
+    assert drawn(root, "g")[0][0].text == "<script>alert(1)</script> &amp; \"q\""
+
+
+def test_control_characters_are_removed_and_the_rest_kept():
+    root = ET.fromstring(render_svg(hostile_scene("a\x00b\x07c\td\ne\U0001f600")))
+    assert drawn(root, "text")[0].text == "abc d e\U0001f600"
+    assert drawn(root, "g")[0][0].text == "abc\td\ne\U0001f600"  # tooltips keep line breaks
+
+
+def test_a_long_label_is_kept_whole(tmp_path):
+    write_svg(hostile_scene("x" * 5000), tmp_path / "long.svg")
+    root = ET.parse(tmp_path / "long.svg").getroot()
+    assert drawn(root, "text")[0].text == "x" * 5000

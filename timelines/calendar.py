@@ -1,0 +1,218 @@
+"""Calendrical arithmetic on integer fixed day numbers (R.D.).
+
+R.D. 1 is Gregorian 0001-01-01, the same count as `datetime.date.toordinal()` (Reingold &
+Dershowitz, *Calendrical Calculations*). Years are astronomical inside (year 0 = 1 BC,
+year -43 = 44 BC); BC/BCE labels exist only at the edges (`year_label`, `astronomical_year`).
+Every function works for any integer year; Python's floor division keeps the formulas valid
+before year 1.
+"""
+from __future__ import annotations
+
+GREGORIAN_EPOCH = 1  # R.D. of Gregorian 0001-01-01
+JULIAN_EPOCH = -1    # R.D. of Julian 0001-01-01 (= Gregorian 0000-12-30)
+JD_OFFSET = 1721425  # Julian Day Number = R.D. + 1721425 (JDN 0 = Julian -4712-01-01 at noon)
+
+GREGORIAN, JULIAN, HISTORICAL = "gregorian", "julian", "historical"
+CALENDARS = (HISTORICAL, GREGORIAN, JULIAN)
+
+_MONTH_DAYS = (31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31)
+
+
+def is_gregorian_leap_year(year: int) -> bool:
+    return year % 4 == 0 and year % 100 != 0 or year % 400 == 0
+
+
+def is_julian_leap_year(year: int) -> bool:
+    # year % 4 with floor semantics: 0, -4, -8 (1, 5, 9 BC) are leap years.
+    return year % 4 == 0
+
+
+def days_in_month(year: int, month: int, calendar: str = GREGORIAN) -> int:
+    if not 1 <= month <= 12:
+        raise ValueError(f"month {month} does not exist")
+    if month == 2:
+        reckoning = _reckoning_for(year, month, _checked(calendar))
+        leap = is_julian_leap_year(year) if reckoning == JULIAN else is_gregorian_leap_year(year)
+        return 29 if leap else 28
+    return _MONTH_DAYS[month - 1]
+
+
+def fixed_from_gregorian(year: int, month: int, day: int) -> int:
+    """R.D. of a proleptic Gregorian date (Reingold & Dershowitz, eq. 2.17)."""
+    prior = year - 1
+    return (
+        GREGORIAN_EPOCH - 1
+        + 365 * prior                        # ordinary days of all prior years
+        + prior // 4 - prior // 100 + prior // 400   # leap days of prior years
+        + (367 * month - 362) // 12          # days in prior months, if February had 30
+        + _february_correction(month, is_gregorian_leap_year(year))
+        + day
+    )
+
+
+def _february_correction(month: int, leap: bool) -> int:
+    # The (367m - 362)/12 term assumes a 30-day February; take back 1 or 2 days after it.
+    if month <= 2:
+        return 0
+    return -1 if leap else -2
+
+
+def gregorian_year_from_fixed(fixed: int) -> int:
+    """Gregorian year holding a fixed day (Reingold & Dershowitz, eq. 2.18)."""
+    d0 = fixed - GREGORIAN_EPOCH
+    n400, d1 = divmod(d0, 146097)   # complete 400-year cycles
+    n100, d2 = divmod(d1, 36524)    # complete centuries in the cycle
+    n4, d3 = divmod(d2, 1461)       # complete 4-year cycles in the century
+    n1 = d3 // 365                  # complete years in the 4-year cycle
+    year = 400 * n400 + 100 * n100 + 4 * n4 + n1
+    # The last day of a leap cycle (n100 or n1 == 4) belongs to the year just counted.
+    return year if n100 == 4 or n1 == 4 else year + 1
+
+
+def gregorian_from_fixed(fixed: int) -> tuple[int, int, int]:
+    """(year, month, day) of a fixed day in the proleptic Gregorian calendar (eq. 2.23)."""
+    year = gregorian_year_from_fixed(fixed)
+    prior_days = fixed - fixed_from_gregorian(year, 1, 1)
+    if fixed >= fixed_from_gregorian(year, 3, 1):
+        prior_days += 1 if is_gregorian_leap_year(year) else 2  # pretend February has 30 days
+    month = (12 * prior_days + 373) // 367
+    day = fixed - fixed_from_gregorian(year, month, 1) + 1
+    return year, month, day
+
+
+def fixed_from_julian(year: int, month: int, day: int) -> int:
+    """R.D. of a proleptic Julian date, astronomical year numbering (eq. 3.3, with year 0)."""
+    prior = year - 1
+    return (
+        JULIAN_EPOCH - 1
+        + 365 * prior + prior // 4           # every fourth year is a leap year
+        + (367 * month - 362) // 12
+        + _february_correction(month, is_julian_leap_year(year))
+        + day
+    )
+
+
+def julian_from_fixed(fixed: int) -> tuple[int, int, int]:
+    """(year, month, day) of a fixed day in the proleptic Julian calendar (eq. 3.4)."""
+    approx = (4 * (fixed - JULIAN_EPOCH) + 1464) // 1461
+    year = approx
+    if fixed < fixed_from_julian(year, 1, 1):
+        year -= 1
+    prior_days = fixed - fixed_from_julian(year, 1, 1)
+    if fixed >= fixed_from_julian(year, 3, 1):
+        prior_days += 1 if is_julian_leap_year(year) else 2
+    month = (12 * prior_days + 373) // 367
+    day = fixed - fixed_from_julian(year, month, 1) + 1
+    return year, month, day
+
+
+# The first Gregorian day in the historical (default) reckoning: Gregorian 1582-10-15,
+# which followed Julian 1582-10-04 in the Papal States.
+GREGORIAN_REFORM = 577736
+
+
+def fixed_from_calendar(year: int, month: int, day: int, calendar: str = HISTORICAL) -> int:
+    """R.D. of a date written in `calendar`, checking that the date exists there.
+
+    Raises ValueError with a plain reason (month 13, 29 February in a common year, or a day in
+    the ten days the 1582 reform skipped)."""
+    check_calendar_date(year, month, day, calendar)
+    if calendar == GREGORIAN:
+        return fixed_from_gregorian(year, month, day)
+    if calendar == JULIAN:
+        return fixed_from_julian(year, month, day)
+    if (year, month, day) >= (1582, 10, 15):
+        return fixed_from_gregorian(year, month, day)
+    return fixed_from_julian(year, month, day)
+
+
+def _checked(calendar: str) -> str:
+    if calendar not in CALENDARS:
+        raise ValueError(f"unknown calendar {calendar!r}; choose one of {', '.join(CALENDARS)}")
+    return calendar
+
+
+def check_calendar_date(year: int, month: int, day: int, calendar: str = HISTORICAL) -> None:
+    _checked(calendar)
+    if not 1 <= month <= 12:
+        raise ValueError(f"month {month} does not exist")
+    reckoning = calendar
+    if calendar == HISTORICAL:
+        if (1582, 10, 5) <= (year, month, day) <= (1582, 10, 14):
+            raise ValueError(
+                "1582-10-05..14 do not exist in the historical reckoning "
+                "(Julian 4 October was followed by Gregorian 15 October)")
+        reckoning = GREGORIAN if (year, month) >= (1582, 10) else JULIAN
+    length = days_in_month(year, month, reckoning)
+    if not 1 <= day <= length:
+        if month == 2 and day == 29:
+            raise ValueError(f"{year_label(year)} is not a leap year in the {reckoning} calendar")
+        raise ValueError(f"day {day} does not exist in month {month} (it has {length} days)")
+
+
+def month_range(year: int, month: int, calendar: str = HISTORICAL) -> tuple[int, int]:
+    """First and last fixed day of a month written in `calendar`."""
+    first = fixed_from_calendar(year, month, 1, calendar)
+    last_day = days_in_month(year, month, _reckoning_for(year, month, calendar))
+    return first, fixed_from_calendar(year, month, last_day, calendar)
+
+
+def year_range(year: int, calendar: str = HISTORICAL) -> tuple[int, int]:
+    """First and last fixed day of a year (1 January .. 31 December) written in `calendar`."""
+    return fixed_from_calendar(year, 1, 1, calendar), fixed_from_calendar(year, 12, 31, calendar)
+
+
+def gregorian_year_range(year: int) -> tuple[int, int]:
+    return fixed_from_gregorian(year, 1, 1), fixed_from_gregorian(year, 12, 31)
+
+
+def _reckoning_for(year: int, month: int, calendar: str) -> str:
+    if calendar != HISTORICAL:
+        return calendar
+    return GREGORIAN if (year, month) >= (1582, 10) else JULIAN
+
+
+def jdn_from_fixed(fixed: int) -> int:
+    return fixed + JD_OFFSET
+
+
+def fixed_from_jdn(jdn: int) -> int:
+    return jdn - JD_OFFSET
+
+
+def astronomical_year(year: int, era: str) -> int:
+    """Astronomical year from a year written with an era (`BC`/`BCE` or `AD`/`CE`).
+
+    BC counting has no year zero: 1 BC is year 0, 44 BC is year -43."""
+    if year <= 0:
+        raise ValueError("BC/AD counting has no year zero" if year == 0
+                         else f"a year with an era is written without a sign, not {year}")
+    written = era.upper().replace(".", "").replace(" ", "")
+    if written in ("BC", "BCE"):
+        return 1 - year
+    if written in ("AD", "CE"):
+        return year
+    raise ValueError(f"unknown era {era!r}; expected BC, BCE, AD or CE")
+
+
+YEAR_STYLES = ("bce", "bc", "astronomical")
+
+
+def year_label(year: int, style: str = "bce") -> str:
+    """Label of an astronomical year: `bce` (44 BCE), `bc` (44 BC) or `astronomical` (-43)."""
+    if style not in YEAR_STYLES:
+        raise ValueError(f"unknown year style {style!r}; choose one of {', '.join(YEAR_STYLES)}")
+    if style == "astronomical" or year > 0:
+        return str(year)
+    suffix = "BC" if style == "bc" else "BCE"
+    return f"{1 - year} {suffix}"
+
+
+def iso_from_fixed(fixed: int) -> str:
+    """ISO 8601 calendar date, proleptic Gregorian, astronomical years; expanded form
+    (`-0043-03-15`, `+12000-01-01`) outside 0000..9999."""
+    year, month, day = gregorian_from_fixed(fixed)
+    if 0 <= year <= 9999:
+        return f"{year:04d}-{month:02d}-{day:02d}"
+    sign = "-" if year < 0 else "+"
+    return f"{sign}{abs(year):04d}-{month:02d}-{day:02d}"

@@ -1,0 +1,234 @@
+"""Validation: counts of what was read and drawn, the problems of loading, a few warning rules.
+
+`check(loaded)` takes what `sources.load_records` returned (anything with `records`,
+`problems` and `rows_read`), or a plain sequence of Records, and gives a `Report`:
+
+- `errors`: the problems that keep a row off the chart (cells that cannot be read, ends that
+  lie wholly before their starts), one per cell, in row order;
+- `undated`: the rows with no date at all (drawn nowhere, listed in a note under the chart);
+- `warnings`: the findings of the rules below (the rows are drawn);
+- `counts`: rows read, drawn and reported; `summary()` says it in one line.
+
+Every item's `str()` is one line `file:row[:column]: [id] message`, so a command line can print
+each to stderr and end with the summary.
+
+The rules, few on purpose:
+
+- duplicate id: an id that occurs on more than one row is reported on every later row;
+- long span: a possible extent longer than `CheckLimits.max_extent_years` (default 1000) is
+  worth a second look, the usual sign of a mistyped year (`165` for `1650`). Spans with an
+  endpoint of millennium or deep-time precision are exempt: they are long by nature.
+"""
+from __future__ import annotations
+
+from dataclasses import asdict, dataclass, is_dataclass
+from typing import Iterable, Protocol, Sequence
+
+from .model import Precision, Record
+
+DAYS_PER_YEAR = 365.2425  # the mean Gregorian year (97 leap days in 400 years)
+_LONG_BY_NATURE = frozenset({Precision.MILLENNIUM, Precision.DEEP_TIME})
+_KEEPS_ROW_OFF = frozenset({"error", "contradiction"})
+
+
+class Reportable(Protocol):
+    """A line of a report: a load Problem (sources.Problem) or a Finding."""
+
+    source: str
+    row: int
+    column: str | None
+    id: str | None
+    kind: str
+
+
+class Loaded(Protocol):
+    """What sources.load_records returns; check.py does not import sources."""
+
+    records: Sequence[Record]
+    problems: Sequence[Reportable]
+    rows_read: int
+
+
+@dataclass(frozen=True, slots=True)
+class CheckLimits:
+    # A possible extent over this many years gets a warning; None switches the rule off.
+    # 1000 leaves room for archaeological phases while catching a dropped digit in a
+    # modern year. Common practice, no source.
+    max_extent_years: int | None = 1000
+
+
+@dataclass(frozen=True, slots=True)
+class Finding:
+    """A warning from a rule: the row is drawn, but something about it deserves a look."""
+
+    source: str
+    row: int
+    column: str | None
+    id: str | None
+    message: str
+    kind: str                              # the rule: "duplicate id", "long span"
+
+    def location(self) -> str:
+        return ":".join(str(part) for part in (self.source, self.row, self.column)
+                        if part is not None)
+
+    def __str__(self) -> str:
+        who = f" [{self.id}]" if self.id else ""
+        return f"{self.location()}:{who} warning: {self.message}"
+
+
+@dataclass(frozen=True, slots=True)
+class Counts:
+    rows_read: int                         # non-blank data rows
+    drawn: int                             # records with a span
+    undated: int                           # records without one, listed under the chart
+    unreadable: int                        # rows with at least one cell that cannot be read
+    contradictory: int                     # rows whose end lies wholly before the start
+    warnings: int                          # findings of the rules (undated rows not counted)
+
+    @property
+    def reported(self) -> int:
+        """Rows not drawn as bars; with `drawn` they add up to `rows_read`."""
+        return self.undated + self.unreadable + self.contradictory
+
+
+@dataclass(frozen=True, slots=True)
+class Report:
+    errors: tuple[Reportable, ...]         # load problems that keep rows off the chart
+    warnings: tuple[Finding, ...]          # findings of the rules
+    counts: Counts
+    undated_rows: tuple[Reportable, ...] = ()  # load problems of kind "undated"
+
+    @property
+    def ok(self) -> bool:
+        """True when no row was kept off the chart by an error."""
+        return not self.errors
+
+    @property
+    def not_drawn(self) -> int:
+        """Rows without a bar: unreadable, contradictory or undated."""
+        return self.counts.reported
+
+    @property
+    def undated(self) -> int:
+        return self.counts.undated
+
+    def lines(self) -> tuple[str, ...]:
+        """Every error, undated row and warning, one line each, in row order."""
+        items = sorted(self.errors + self.undated_rows + self.warnings,
+                       key=lambda item: (item.source, item.row))
+        return tuple(map(str, items))
+
+    def as_dict(self) -> dict:
+        """The report as plain data for JSON: counts, summary and each item with its line."""
+        counts = asdict(self.counts) | {"reported": self.counts.reported}
+        return {
+            "summary": self.summary(), "counts": counts,
+            "errors": [_item_dict(item) for item in self.errors],
+            "undated": [_item_dict(item) for item in self.undated_rows],
+            "warnings": [_item_dict(item) for item in self.warnings],
+        }
+
+    def summary(self) -> str:
+        """E.g. '12 rows read: 10 drawn, 2 reported (1 unreadable, 1 undated); 1 warning'."""
+        counts = self.counts
+        text = f"{_plural(counts.rows_read, 'row')} read: {counts.drawn} drawn"
+        if counts.reported:
+            parts = [f"{number} {name}" for number, name in (
+                (counts.unreadable, "unreadable"), (counts.contradictory, "contradictory"),
+                (counts.undated, "undated")) if number]
+            text += f", {counts.reported} reported ({', '.join(parts)})"
+        if counts.warnings:
+            text += f"; {_plural(counts.warnings, 'warning')}"
+        return text
+
+
+def check(loaded: Loaded | Iterable[Record], limits: CheckLimits = CheckLimits()) -> Report:
+    """Count, gather the load problems and apply the rules."""
+    records, problems, rows_read = _unpack(loaded)
+    errors = tuple(problem for problem in problems if problem.kind in _KEEPS_ROW_OFF)
+    undated = tuple(problem for problem in problems if problem.kind == "undated")
+    findings = _duplicate_ids(records, errors) + _long_spans(records, limits)
+    findings = tuple(sorted(findings, key=lambda finding: (finding.source, finding.row)))
+    counts = _counts(records, errors, rows_read, len(findings))
+    return Report(errors, findings, counts, undated)
+
+
+def _unpack(loaded: Loaded | Iterable[Record]
+            ) -> tuple[tuple[Record, ...], tuple[Reportable, ...], int | None]:
+    if hasattr(loaded, "records") and hasattr(loaded, "problems"):
+        return (tuple(loaded.records), tuple(loaded.problems),  # type: ignore[union-attr]
+                getattr(loaded, "rows_read", None))
+    return tuple(loaded), (), None  # type: ignore[arg-type]
+
+
+def _counts(records: tuple[Record, ...], errors: tuple[Reportable, ...],
+            rows_read: int | None, warnings: int) -> Counts:
+    undated = sum(1 for record in records if record.span is None)
+    unreadable = len({(item.source, item.row) for item in errors if item.kind == "error"})
+    contradictory = len({(item.source, item.row) for item in errors
+                         if item.kind == "contradiction"})
+    drawn = len(records) - undated
+    if rows_read is None:
+        rows_read = len(records) + unreadable + contradictory
+    return Counts(rows_read, drawn, undated, unreadable, contradictory, warnings)
+
+
+def _duplicate_ids(records: tuple[Record, ...], errors: tuple[Reportable, ...]
+                   ) -> list[Finding]:
+    """A Finding on each later row that repeats an id, naming the row that had it first."""
+    rows = {(record.provenance.source, record.provenance.row): record.id for record in records
+            if record.id}
+    for error in errors:
+        if error.id:
+            rows.setdefault((error.source, error.row), error.id)
+    first_row: dict[str, int] = {}
+    findings = []
+    # Records and problems arrive in row order already; sorting only merges the two.
+    for (source, row), identifier in sorted(rows.items()):
+        seen = first_row.setdefault(identifier, row)
+        if seen != row:
+            findings.append(Finding(source, row, None, identifier,
+                                    f"the id {identifier!r} is also on row {seen}",
+                                    "duplicate id"))
+    return findings
+
+
+def _long_spans(records: tuple[Record, ...], limits: CheckLimits) -> list[Finding]:
+    if limits.max_extent_years is None:
+        return []
+    findings = []
+    for record in records:
+        days = _extent_days(record)
+        # Whole years, as the message says them: 1001-01-01..2000-12-31 is 1000, not 1000.0015.
+        if days is not None and round(days / DAYS_PER_YEAR) > limits.max_extent_years:
+            findings.append(_long_span(record, days, limits.max_extent_years))
+    return findings
+
+
+def _extent_days(record: Record) -> int | None:
+    """Days of the possible extent; None when unbounded, undated or long by nature."""
+    span = record.span
+    if span is None or {span.start.precision, span.end.precision} & _LONG_BY_NATURE:
+        return None
+    earliest, latest = span.possible_extent
+    if earliest is None or latest is None:
+        return None
+    return latest - earliest + 1
+
+
+def _long_span(record: Record, days: int, limit: int) -> Finding:
+    years = round(days / DAYS_PER_YEAR)
+    return Finding(record.provenance.source, record.provenance.row, None, record.id,
+                   f"{record.date_text!r} may last about {years} years, more than {limit}; "
+                   f"is a year mistyped?", "long span")
+
+
+def _item_dict(item: Reportable) -> dict:
+    fields = asdict(item) if is_dataclass(item) else {
+        name: getattr(item, name) for name in ("source", "row", "column", "id", "kind")}
+    return fields | {"line": str(item)}
+
+
+def _plural(number: int, noun: str) -> str:
+    return f"{number} {noun}" if number == 1 else f"{number} {noun}s"

@@ -1,0 +1,85 @@
+"""Spreadsheet cells as dates: whatever a table reader hands over, without importing pandas.
+
+- empty: None, NaN, pandas NaT/NA, a blank or whitespace-only string -> None (no date);
+- a string -> the date language (stripped first);
+- a date or date-time (`datetime.date`, `datetime.datetime`, `pandas.Timestamp`: anything with
+  year, month and day) -> that day; these types are proleptic Gregorian, as is ISO 8601;
+- a whole number (int, or a float such as 1650.0 as spreadsheets store numbers) -> that year,
+  in the calendar setting like the text `1650`; any other number is refused.
+"""
+from __future__ import annotations
+
+import math
+import numbers
+
+from ..calendar import GREGORIAN
+from ..errors import DateError
+from ..model import Endpoint, Precision, Span
+from .ranges import parse_endpoint, parse_span
+from .settings import DEFAULT_SETTINGS, DateSettings
+from .windows import DATE_HINT, day, reading, years
+
+# pandas' missing-value markers, known by name so that this module need not import pandas.
+_MISSING_TYPES = frozenset({"NaTType", "NAType"})
+
+
+def endpoint_from_cell(value: object, settings: DateSettings = DEFAULT_SETTINGS) -> Endpoint | None:
+    """The endpoint a start or end cell holds; None for an empty cell."""
+    if is_empty_cell(value):
+        return None
+    if isinstance(value, str):
+        return parse_endpoint(value, settings)
+    return _endpoint_from_value(value, settings)
+
+
+def span_from_cell(value: object, settings: DateSettings = DEFAULT_SETTINGS) -> Span | None:
+    """The span a single date cell holds (a range, or a point); None for an empty cell."""
+    if is_empty_cell(value):
+        return None
+    if isinstance(value, str):
+        return parse_span(value, settings)
+    return Span.point(_endpoint_from_value(value, settings))
+
+
+def is_empty_cell(value: object) -> bool:
+    if value is None or type(value).__name__ in _MISSING_TYPES:
+        return True
+    if isinstance(value, str):
+        return not value.strip()
+    return isinstance(value, float) and math.isnan(value)
+
+
+def _endpoint_from_value(value: object, settings: DateSettings) -> Endpoint:
+    if isinstance(value, bool):
+        raise DateError(str(value), "a true/false cell is not a date", hint=DATE_HINT)
+    if isinstance(value, numbers.Integral):
+        return _year_cell(int(value), str(value), settings)
+    if isinstance(value, numbers.Real):
+        return _number_cell(float(value), settings)
+    if all(hasattr(value, name) for name in ("year", "month", "day")):
+        return _day_cell(value)
+    raise DateError(str(value), f"a cell of type {type(value).__name__} is not a date",
+                    hint=DATE_HINT)
+
+
+def _year_cell(year: int, text: str, settings: DateSettings) -> Endpoint:
+    with reading(text):
+        return years(year, year, settings.calendar, Precision.YEAR)
+
+
+def _number_cell(number: float, settings: DateSettings) -> Endpoint:
+    text = repr(number)
+    if math.isnan(number) or math.isinf(number) or not number.is_integer():
+        raise DateError(text, "a number that is not a whole year",
+                        hint="a year cell holds a whole number such as 1650")
+    return _year_cell(int(number), text, settings)
+
+
+def _day_cell(value: object) -> Endpoint:
+    text = str(value)
+    with reading(text):
+        try:
+            year, month, day_number = int(value.year), int(value.month), int(value.day)
+        except (TypeError, OverflowError) as error:
+            raise ValueError("its year, month and day are not whole numbers") from error
+        return day(year, month, day_number, GREGORIAN)

@@ -1,0 +1,59 @@
+"""`describe`: the JSON object `timelines parse --json` prints for one input (DESIGN §5)."""
+from __future__ import annotations
+
+from ..calendar import iso_from_fixed
+from ..errors import DateError
+from ..model import Endpoint, Span
+from .ranges import parse_span
+from .settings import DEFAULT_SETTINGS, DateSettings
+from .windows import coarser
+
+
+def describe(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> dict:
+    """What `text` reads as, in plain JSON types.
+
+    Keys: input (exactly as given), ok, earliest, latest, likely, precision, qualifiers (sorted),
+    error (the DateError reason, else null). Dates are ISO 8601 calendar dates (proleptic
+    Gregorian, astronomical years); an open or unknown bound is null. For a range, "start" and
+    "end" hold the same keys for each endpoint (less input/ok/error), and the top level is the
+    possible extent: start's earliest .. end's latest, no likely day, the coarser of the two
+    precisions, the union of their qualifiers.
+    """
+    try:
+        span = parse_span(text, settings)
+    except DateError as error:
+        return _failure(text, error.reason)
+    if span.is_point:
+        return {"input": text, "ok": True, **_window(span.start), "error": None}
+    summary = {"input": text, "ok": True, **_extent(span), "error": None}
+    return summary | {"start": _window(span.start), "end": _window(span.end)}
+
+
+def _window(endpoint: Endpoint) -> dict:
+    return {
+        "earliest": _iso(endpoint.earliest),
+        "latest": _iso(endpoint.latest),
+        "likely": _iso(endpoint.likely),
+        "precision": None if endpoint.precision is None else endpoint.precision.value,
+        "qualifiers": sorted(q.value for q in endpoint.qualifiers),
+    }
+
+
+def _extent(span: Span) -> dict:
+    precision = coarser(span.start.precision, span.end.precision)
+    return {
+        "earliest": _iso(span.start.earliest),
+        "latest": _iso(span.end.latest),
+        "likely": None,
+        "precision": None if precision is None else precision.value,
+        "qualifiers": sorted(q.value for q in span.start.qualifiers | span.end.qualifiers),
+    }
+
+
+def _failure(text: str, reason: str) -> dict:
+    return {"input": text, "ok": False, "earliest": None, "latest": None, "likely": None,
+            "precision": None, "qualifiers": [], "error": reason}
+
+
+def _iso(fixed: int | None) -> str | None:
+    return None if fixed is None else iso_from_fixed(fixed)

@@ -1,0 +1,140 @@
+"""Marks for the parts of a span: each encoder turns an endpoint window into primitives.
+
+Every fringe encoder has one signature, `(window, scale, lane, style) -> list[Primitive]`, and is
+registered by name in `FRINGES`; a new encoding is one function, one registry line and one
+geometry test. The other marks (core, open arrow, bound bracket, likely tick, qualifier glyph,
+point) are plain functions with the same arguments where they apply.
+"""
+from __future__ import annotations
+
+import difflib
+from dataclasses import dataclass
+from typing import Callable
+
+from .errors import UsageError
+from .scale import TimeScale
+from .scene import GradientRect, Line, Polygon, Primitive, Rect, Text
+
+
+@dataclass(frozen=True, slots=True)
+class EndWindow:
+    """An endpoint's window on the drawn axis, in fixed days, `low <= high`; `side` says
+    which end of the span it is (`start` or `end`), so a fade knows which way to fade."""
+
+    low: float
+    high: float
+    side: str
+
+
+@dataclass(frozen=True, slots=True)
+class LaneBox:
+    """The bar's band in a lane: top y and height, in page px."""
+
+    y: float
+    height: float
+
+    @property
+    def middle(self) -> float:
+        return self.y + self.height / 2
+
+
+@dataclass(frozen=True, slots=True)
+class MarkStyle:
+    color: str
+    far_opacity: float = 0.12
+    text_color: str = "#1a1a1a"
+    glyph_size: float = 10.0
+
+
+Encoder = Callable[[EndWindow, TimeScale, LaneBox, MarkStyle], list[Primitive]]
+
+
+def fade(window: EndWindow, scale: TimeScale, lane: LaneBox, style: MarkStyle) -> list[Primitive]:
+    """The bar fading out across the window: full colour where it meets the core, faint at the
+    far bound, so the eye reads 'possibly' rather than a hard edge."""
+    x_low, x_high = scale.x(window.low), scale.x(window.high)
+    if x_high - x_low <= 0:
+        return []
+    near, far = 1.0, style.far_opacity
+    left, right = (far, near) if window.side == "start" else (near, far)
+    return [GradientRect(x_low, lane.y, x_high - x_low, lane.height, style.color, left, right,
+                         css_class="fringe")]
+
+
+def whisker(window: EndWindow, scale: TimeScale, lane: LaneBox, style: MarkStyle) -> list[Primitive]:
+    """A thin line across the window with a short cap at the far bound."""
+    x_low, x_high = scale.x(window.low), scale.x(window.high)
+    if x_high - x_low <= 0:
+        return []
+    far_x = x_low if window.side == "start" else x_high
+    cap = lane.height * 0.35
+    return [
+        Line(x_low, lane.middle, x_high, lane.middle, style.color, 1.5, css_class="fringe"),
+        Line(far_x, lane.middle - cap, far_x, lane.middle + cap, style.color, 1.5,
+             css_class="fringe"),
+    ]
+
+
+FRINGES: dict[str, Encoder] = {"fade": fade, "whisker": whisker}
+
+
+def fringe_encoder(name: str) -> Encoder:
+    if name in FRINGES:
+        return FRINGES[name]
+    close = difflib.get_close_matches(name, FRINGES, n=1)
+    hint = f"did you mean {close[0]!r}?" if close else None
+    raise UsageError(f"unknown fringe style {name!r}; choose one of {', '.join(FRINGES)}", hint)
+
+
+def core(low: float, high: float, scale: TimeScale, lane: LaneBox, style: MarkStyle) -> list[Primitive]:
+    """The certain part: a solid bar."""
+    x_low, x_high = scale.x(low), scale.x(high)
+    return [Rect(x_low, lane.y, max(x_high - x_low, 1.0), lane.height, style.color,
+                 css_class="core")]
+
+
+def open_arrow(day: float, side: str, scale: TimeScale, lane: LaneBox,
+               style: MarkStyle) -> list[Primitive]:
+    """An arrowhead at the axis edge: the span runs on past the chart (ISO 8601-2 '..')."""
+    x = scale.x(day)
+    reach = lane.height * 0.7
+    tip = x - reach if side == "start" else x + reach
+    points = ((x, lane.y - 2), (tip, lane.middle), (x, lane.y + lane.height + 2))
+    return [Polygon(points, style.color, css_class="open")]
+
+
+def bound_bracket(day: float, side: str, scale: TimeScale, lane: LaneBox,
+                  style: MarkStyle) -> list[Primitive]:
+    """A bracket at a 'before' or 'after' limit, opening toward the side the date may lie."""
+    x = scale.x(day)
+    arm = 3.5 if side == "before" else -3.5
+    top, bottom = lane.y - 2, lane.y + lane.height + 2
+    points = ((x - arm, top), (x, top), (x, bottom), (x - arm, bottom))
+    return [Polygon(points, None, style.text_color, 1.5, closed=False, css_class="bound")]
+
+
+def likely_tick(day: float, scale: TimeScale, lane: LaneBox, style: MarkStyle) -> list[Primitive]:
+    """A short tick through the bar at the most likely date of a window."""
+    x = scale.x(day)
+    return [Line(x, lane.y - 3, x, lane.y + lane.height + 3, style.text_color, 1.5,
+                 css_class="likely")]
+
+
+GLYPHS = {"approximate": "~", "uncertain": "?", "approximate uncertain": "~?"}
+
+
+def qualifier_glyph(day: float, side: str, kind: str, scale: TimeScale, lane: LaneBox,
+                    style: MarkStyle) -> list[Primitive]:
+    """The ISO 8601-2 sign (~ approximate, ? uncertain, ~? both) just outside a bar end."""
+    x = scale.x(day)
+    anchor, gap = ("end", -2.0) if side == "start" else ("start", 2.0)
+    baseline = lane.middle + style.glyph_size * 0.36
+    return [Text(x + gap, baseline, GLYPHS[kind], style.glyph_size, anchor, "bold",
+                 fill=style.text_color, css_class=f"qualifier {kind.replace(' ', '-')}")]
+
+
+def point_marker(day: float, scale: TimeScale, lane: LaneBox, style: MarkStyle) -> list[Primitive]:
+    """A diamond at a dated moment."""
+    x, y, r = scale.x(day), lane.middle, lane.height * 0.55
+    points = ((x, y - r), (x + r, y), (x, y + r), (x - r, y))
+    return [Polygon(points, style.color, "#ffffff", 0.75, css_class="point")]

@@ -1,0 +1,130 @@
+"""The legend (only the marks that occur, in plain words) and the notes under the chart."""
+from __future__ import annotations
+
+from . import encodings as marks
+from .encodings import EndWindow, LaneBox, MarkStyle
+from .scale import TimeScale
+from .scene import Group, Primitive, Text
+from .textsize import text_width
+from .theme import Theme
+
+SWATCH = 34.0   # page width of a legend sample
+# Legend entries in reading order: key used while drawing -> plain words.
+ENTRIES = (
+    ("core", "certain: the span surely covers this"),
+    ("fringe:fade", "possible: the date lies somewhere in the fading part"),
+    ("fringe:whisker", "possible: the date lies somewhere on the thin line"),
+    ("open", "open: runs on beyond the chart"),
+    ("unknown", "not recorded: could reach the chart edge"),
+    ("before", "before: no later than the bracket"),
+    ("after", "after: no earlier than the bracket"),
+    ("approximate", "approximate (c., ~)"),
+    ("uncertain", "uncertain (?)"),
+    ("approximate uncertain", "approximate and uncertain"),
+    ("likely", "most likely date"),
+    ("point", "a dated moment"),
+    ("point window", "a moment somewhere on the line"),
+)
+
+
+def legend_and_notes(used: set[str], color_key, text, theme: Theme, top: float,
+                     width: float) -> tuple[list[Primitive], float]:
+    entries = [(key, words) for key, words in ENTRIES if key in used]
+    items: list[Primitive] = []
+    y = top + 6
+    if entries or color_key:
+        legend, y = _legend(entries, color_key, theme, y, width)
+        items.append(legend)
+    notes, y = _notes(text, theme, y, width)
+    items += notes
+    return items, y
+
+
+def _legend(entries, color_key, theme: Theme, top: float, width: float):
+    children: list[Primitive] = []
+    x, y = theme.margin, top
+    row = theme.legend_row_height
+    samples = [(_sample(key, theme, color=theme.bar_color), words) for key, words in entries]
+    samples += [(_color_sample(color, theme), value) for value, color in color_key]
+    for draw, words in samples:
+        needed = SWATCH + 6 + text_width(words, theme.small_font_size) + 18
+        if x + needed > width - theme.margin and x > theme.margin:
+            x, y = theme.margin, y + row
+        box = LaneBox(y + (row - 10) / 2, 10)
+        children += draw(x, box)
+        children.append(Text(x + SWATCH + 6, box.middle + theme.small_font_size * 0.36, words,
+                             theme.small_font_size, fill=theme.text_color, css_class="legend-text"))
+        x += needed
+    return Group(tuple(children), css_class="legend"), y + row
+
+
+def _sample(key: str, theme: Theme, color: str):
+    """A small picture of one mark, drawn by the same encoder the chart uses."""
+    style = MarkStyle(color, theme.fringe_far_opacity, theme.text_color, theme.small_font_size)
+
+    def draw(x: float, box: LaneBox) -> list[Primitive]:
+        scale = TimeScale(0.0, 10.0, x, x + SWATCH)
+        if key == "core":
+            return marks.core(0, 10, scale, box, style)
+        if key.startswith("fringe:"):
+            return marks.FRINGES[key.split(":", 1)[1]](EndWindow(0, 10, "end"), scale, box, style)
+        if key == "open":
+            return marks.core(0, 7, scale, box, style) + marks.open_arrow(7, "end", scale, box, style)
+        if key == "unknown":
+            return marks.fade(EndWindow(0, 10, "end"), scale, box, style)
+        if key == "before":
+            return (marks.fade(EndWindow(0, 7, "start"), scale, box, style)
+                    + marks.bound_bracket(7, "before", scale, box, style))
+        if key == "after":
+            return (marks.bound_bracket(3, "after", scale, box, style)
+                    + marks.fade(EndWindow(3, 10, "end"), scale, box, style))
+        if key == "likely":
+            return marks.likely_tick(5, scale, box, style)
+        if key == "point":
+            return marks.point_marker(5, scale, box, style)
+        if key == "point window":
+            return (marks.whisker(EndWindow(1, 9, "end"), scale, box, style)
+                    + marks.point_marker(5, scale, box, style))
+        return marks.qualifier_glyph(3, "end", key, scale, box, style)
+    return draw
+
+
+def _color_sample(color: str, theme: Theme):
+    style = MarkStyle(color)
+
+    def draw(x: float, box: LaneBox) -> list[Primitive]:
+        return marks.core(0, 10, TimeScale(0.0, 10.0, x, x + SWATCH * 0.6), box, style)
+    return draw
+
+
+def _notes(text, theme: Theme, top: float, width: float) -> tuple[list[Primitive], float]:
+    lines: list[str] = []
+    if text.undated:
+        names = ", ".join(f"{r.label} (row {r.provenance.row})" for r in text.undated)
+        lines += wrap(f"Undated, not drawn: {names}.", theme.small_font_size,
+                      width - 2 * theme.margin)
+    if text.not_drawn:
+        rows = "row" if text.not_drawn == 1 else "rows"
+        lines += wrap(f"{text.not_drawn} {rows} with unreadable or contradictory dates not drawn; "
+                      f"'timelines check' lists them.", theme.small_font_size,
+                      width - 2 * theme.margin)
+    items: list[Primitive] = []
+    y = top
+    for line in lines:
+        y += theme.small_font_size * 1.4
+        items.append(Text(theme.margin, y, line, theme.small_font_size, fill=theme.muted_color,
+                          css_class="note"))
+    return items, y + (4 if lines else 0)
+
+
+def wrap(text: str, size: float, width: float) -> list[str]:
+    """Greedy word wrap by measured width."""
+    lines, current = [], ""
+    for word in text.split():
+        candidate = f"{current} {word}" if current else word
+        if current and text_width(candidate, size) > width:
+            lines.append(current)
+            current = word
+        else:
+            current = candidate
+    return lines + ([current] if current else [])

@@ -1,0 +1,160 @@
+"""The data model: frozen endpoints, spans and records, all in integer fixed day numbers.
+
+An `Endpoint` is a window `[earliest, latest]` of fixed days in which a start or an end fell;
+`None` on a side means no bound there. A `Span` is a start and an end endpoint; from it follow
+the *possible extent* (where the span may reach) and the *certain core* (where it surely was).
+A `Record` is one row of the user's table: a label, a span (or none: undated), its original
+text, its grouping fields and where it came from.
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from enum import StrEnum
+
+
+class Precision(StrEnum):
+    DAY = "day"
+    MONTH = "month"
+    SEASON = "season"
+    YEAR = "year"
+    DECADE = "decade"
+    CENTURY = "century"
+    MILLENNIUM = "millennium"
+    DEEP_TIME = "deep time"
+
+
+class Qualifier(StrEnum):
+    """Qualifiers in ISO 8601-2 terms, plus the bound words historians use."""
+
+    APPROXIMATE = "approximate"      # ~, c., ca., circa
+    UNCERTAIN = "uncertain"          # ?
+    UNSPECIFIED = "unspecified"      # X digits
+    BEFORE = "before"                # before 1700, ../1700 in a set
+    AFTER = "after"
+    ONE_OF = "one_of"                # [1667,1668]
+    ALL_OF = "all_of"                # {1667,1668}
+    OPEN_START = "open_start"        # ../1760: no bound, the span runs on into the past
+    OPEN_END = "open_end"            # 1760/..: the span runs on
+    UNKNOWN_START = "unknown_start"  # /1760 or an empty cell: the start is not known
+    UNKNOWN_END = "unknown_end"
+    CONVENTION_DEPENDENT = "convention_dependent"  # a documented setting decided the bounds
+
+
+@dataclass(frozen=True, slots=True)
+class Endpoint:
+    earliest: int | None
+    latest: int | None
+    precision: Precision | None = Precision.DAY
+    qualifiers: frozenset[Qualifier] = frozenset()
+    likely: int | None = None
+
+    def __post_init__(self) -> None:
+        if self.earliest is not None and self.latest is not None and self.earliest > self.latest:
+            raise ValueError(f"earliest {self.earliest} is after latest {self.latest}")
+        if self.likely is not None:
+            if (self.earliest is not None and self.likely < self.earliest) or (
+                    self.latest is not None and self.likely > self.latest):
+                raise ValueError(f"likely {self.likely} lies outside the window")
+
+    @classmethod
+    def day(cls, fixed: int) -> "Endpoint":
+        return cls(fixed, fixed, Precision.DAY)
+
+    @classmethod
+    def open(cls, side: Qualifier) -> "Endpoint":
+        """An endpoint with no bound at all: open (the span runs on) or unknown."""
+        return cls(None, None, None, frozenset({side}))
+
+    @property
+    def is_exact(self) -> bool:
+        return self.earliest is not None and self.earliest == self.latest
+
+    @property
+    def is_open(self) -> bool:
+        return bool(self.qualifiers & {Qualifier.OPEN_START, Qualifier.OPEN_END})
+
+    @property
+    def is_unknown(self) -> bool:
+        return bool(self.qualifiers & {Qualifier.UNKNOWN_START, Qualifier.UNKNOWN_END})
+
+    def has(self, qualifier: Qualifier) -> bool:
+        return qualifier in self.qualifiers
+
+
+@dataclass(frozen=True, slots=True)
+class Span:
+    """A start and an end endpoint. A point is a span whose two endpoints are equal."""
+
+    start: Endpoint
+    end: Endpoint
+
+    def __post_init__(self) -> None:
+        if (self.end.latest is not None and self.start.earliest is not None
+                and self.end.latest < self.start.earliest):
+            raise ValueError("the end window lies wholly before the start window")
+
+    @classmethod
+    def point(cls, endpoint: Endpoint) -> "Span":
+        return cls(endpoint, endpoint)
+
+    @property
+    def is_point(self) -> bool:
+        return self.start == self.end
+
+    @property
+    def possible_extent(self) -> tuple[int | None, int | None]:
+        """Earliest possible start .. latest possible end; None where unbounded."""
+        return self.start.earliest, self.end.latest
+
+    @property
+    def certain_core(self) -> tuple[int | None, int | None] | None:
+        """Latest possible start .. earliest possible end, the part certainly covered.
+
+        An open start (the span runs on into the past) puts the core's start at -infinity
+        (None); an unknown start leaves no certain part before the end. None when empty."""
+        if self.start.is_open:
+            low = None
+        elif self.start.latest is None:
+            return None
+        else:
+            low = self.start.latest
+        if self.end.is_open:
+            high = None
+        elif self.end.earliest is None:
+            return None
+        else:
+            high = self.end.earliest
+        if low is not None and high is not None and low > high:
+            return None
+        return low, high
+
+
+@dataclass(frozen=True, slots=True)
+class Provenance:
+    """Where a record came from: file, row as a spreadsheet numbers it (header = 1), columns."""
+
+    source: str
+    row: int
+    columns: tuple[str, ...] = ()
+
+    def __str__(self) -> str:
+        return f"{self.source}:{self.row}"
+
+
+@dataclass(frozen=True, slots=True)
+class Record:
+    label: str
+    span: Span | None             # None: no usable date (undated)
+    provenance: Provenance
+    start_text: str = ""          # the original cell text, as the user wrote it
+    end_text: str = ""
+    id: str | None = None
+    group: str | None = None
+    color: str | None = None
+    fields: tuple[tuple[str, str], ...] = field(default=())
+
+    @property
+    def date_text(self) -> str:
+        if self.end_text and self.end_text != self.start_text:
+            return f"{self.start_text} – {self.end_text}" if self.start_text else f"? – {self.end_text}"
+        return self.start_text

@@ -1,0 +1,266 @@
+"""Scene -> SVG with svgwrite: small, deterministic, accessible, safe to embed.
+
+One `_draw_<kind>` per primitive, chosen from a dispatch table. Numbers are written with at most
+two decimals (three for opacities) so the same scene always gives the same bytes and files stay
+small. Every user string is escaped by ElementTree (through svgwrite) and cleaned of characters
+XML 1.0 forbids; colours are checked, so a scene can never smuggle in script, event handlers or
+an external reference. This module never imports matplotlib: the SVG path must start fast.
+"""
+from __future__ import annotations
+
+import math
+import re
+from dataclasses import dataclass, field
+from pathlib import Path
+
+import svgwrite
+from svgwrite.base import Desc, Title
+
+from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Scene, Text
+
+TITLE_ID = "timelines-title"
+DESC_ID = "timelines-desc"
+GRADIENT_ID_PREFIX = "timelines-fade-"
+# Metric-compatible fallbacks after the scene's font, so text measured for DejaVu Sans fits.
+FONT_FALLBACKS = ("DejaVu Sans", "Bitstream Vera Sans", "sans-serif")
+XML_DECLARATION = '<?xml version="1.0" encoding="utf-8"?>\n'
+
+# XML 1.0 (section 2.2) forbids C0 controls other than tab/LF/CR, surrogates, U+FFFE/U+FFFF;
+# DEL and the C1 controls are allowed but discouraged and never meant as text, so they go too.
+_NOT_XML_TEXT = re.compile("[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f\ud800-\udfff\ufffe\uffff]")
+# SVG collapses XML whitespace in text; doing it here keeps SVG and PNG/PDF text identical.
+_XML_WHITESPACE = re.compile("[\t\n\r ]+")
+# Hex colours and CSS colour keywords only: nothing that could be url(...) or a script.
+_COLOUR = re.compile(r"#[0-9a-fA-F]{3}(?:[0-9a-fA-F]{3})?|[a-zA-Z]{1,40}")
+_FONT_NAME_UNSAFE = re.compile(r"[^\w \-]")
+
+
+def render_svg(scene: Scene) -> str:
+    """The scene as a complete SVG document (with XML declaration)."""
+    context = _Context(_new_drawing(scene))
+    for item in scene.children:
+        _draw_into(context.drawing, item, context)
+    if not context.gradients:
+        context.drawing.elements.remove(context.drawing.defs)
+    return XML_DECLARATION + context.drawing.tostring() + "\n"
+
+
+def write_svg(scene: Scene, path: str | Path) -> None:
+    """Write the scene to `path` as UTF-8 SVG with LF line ends on every platform."""
+    Path(path).write_bytes(render_svg(scene).encode("utf-8"))
+
+
+@dataclass(slots=True)
+class _Context:
+    """The drawing being built and the gradients already defined in it (key -> id)."""
+
+    drawing: svgwrite.Drawing
+    gradients: dict[tuple[str, int, int], str] = field(default_factory=dict)
+
+
+def _new_drawing(scene: Scene) -> svgwrite.Drawing:
+    width, height = _number(scene.width), _number(scene.height)
+    drawing = svgwrite.Drawing(
+        size=(width, height), viewBox=f"0 0 {width} {height}", profile="full", debug=False,
+    )
+    drawing["role"] = "img"
+    drawing["font-family"] = font_family_list(scene.font_family)
+    _describe_chart(drawing, scene)
+    if scene.background is not None:
+        drawing.add(drawing.rect(
+            size=(width, height), fill=_colour(scene.background), class_="background",
+        ))
+    return drawing
+
+
+def _describe_chart(drawing: svgwrite.Drawing, scene: Scene) -> None:
+    """Chart-level <title>/<desc> first in the root, named by aria-labelledby (SVG-AAM)."""
+    labels = [TITLE_ID]
+    title = Title(clean_text(scene.title))
+    title.xml.set("id", TITLE_ID)
+    drawing.elements.insert(0, title)
+    if scene.desc:
+        desc = Desc(clean_text(scene.desc))
+        desc.xml.set("id", DESC_ID)
+        drawing.elements.insert(1, desc)
+        labels.append(DESC_ID)
+    drawing["aria-labelledby"] = " ".join(labels)
+    if scene.metadata:
+        lines = (f"{clean_text(key)}: {clean_text(value)}" for key, value in scene.metadata)
+        drawing.elements.insert(len(labels), _MetadataText("\n".join(lines)))
+
+
+class _MetadataText(Title):
+    """<metadata> as plain `key: value` lines: readable, and no foreign namespace needed."""
+
+    elementname = "metadata"
+
+
+def _draw_into(parent, item, context: _Context) -> None:
+    element = _DRAW[type(item)](item, context)
+    if element is not None:
+        parent.add(element)
+
+
+def _draw_rect(rect: Rect, context: _Context):
+    if rect.width <= 0 or rect.height <= 0:
+        return None  # SVG draws nothing for a zero size and rejects a negative one
+    element = context.drawing.rect(
+        insert=(_number(rect.x), _number(rect.y)),
+        size=(_number(rect.width), _number(rect.height)),
+        fill=_paint(rect.fill),
+    )
+    _set_stroke(element, rect.stroke, rect.stroke_width)
+    _set_common(element, rect.opacity, rect.css_class)
+    return element
+
+
+def _draw_gradient_rect(rect: GradientRect, context: _Context):
+    if rect.width <= 0 or rect.height <= 0:
+        return None  # a bounding-box gradient on a zero-width box is an error in SVG
+    element = context.drawing.rect(
+        insert=(_number(rect.x), _number(rect.y)),
+        size=(_number(rect.width), _number(rect.height)),
+        fill=f"url(#{_gradient_id(rect, context)})",
+    )
+    _set_common(element, 1.0, rect.css_class)
+    return element
+
+
+def _gradient_id(rect: GradientRect, context: _Context) -> str:
+    """One <linearGradient> per (colour, left, right opacity): identical fades share a def."""
+    colour = _colour(rect.fill)
+    key = (colour.lower(), _per_mille(rect.opacity_left), _per_mille(rect.opacity_right))
+    if key not in context.gradients:
+        gradient_id = f"{GRADIENT_ID_PREFIX}{key[0].lstrip('#')}-{key[1]}-{key[2]}"
+        gradient = context.drawing.linearGradient(start=(0, 0), end=(1, 0), id=gradient_id)
+        gradient.add_stop_color(0, colour, _number(key[1] / 1000, 3))
+        gradient.add_stop_color(1, colour, _number(key[2] / 1000, 3))
+        context.drawing.defs.add(gradient)
+        context.gradients[key] = gradient_id
+    return context.gradients[key]
+
+
+def _draw_line(line: Line, context: _Context):
+    element = context.drawing.line(
+        start=(_number(line.x1), _number(line.y1)), end=(_number(line.x2), _number(line.y2)),
+    )
+    _set_stroke(element, line.stroke, line.stroke_width)
+    if line.dash:
+        element["stroke-dasharray"] = " ".join(_number(d) for d in line.dash)
+    _set_common(element, line.opacity, line.css_class)
+    return element
+
+
+def _draw_polygon(polygon: Polygon, context: _Context):
+    if not polygon.points:
+        return None
+    points = [(_number(x), _number(y)) for x, y in polygon.points]
+    if polygon.closed:
+        element = context.drawing.polygon(points, fill=_paint(polygon.fill))
+    else:
+        element = context.drawing.polyline(points, fill="none")  # an open polyline is stroke only
+    _set_stroke(element, polygon.stroke, polygon.stroke_width)
+    _set_common(element, polygon.opacity, polygon.css_class)
+    return element
+
+
+def _draw_text(text: Text, context: _Context):
+    content = drawable_text(text.text)
+    if not content:
+        return None
+    element = context.drawing.text(
+        content, insert=(_number(text.x), _number(text.y)), font_size=_number(text.size),
+    )
+    # Defaults are left out (SVG's own initial values) to keep large charts small.
+    if text.anchor != "start":
+        element["text-anchor"] = _choice(text.anchor, ("start", "middle", "end"))
+    if text.weight != "normal":
+        element["font-weight"] = _choice(text.weight, ("normal", "bold"))
+    if text.style != "normal":
+        element["font-style"] = _choice(text.style, ("normal", "italic", "oblique"))
+    if text.fill.lower() not in ("#000000", "#000", "black"):
+        element["fill"] = _colour(text.fill)
+    _set_common(element, 1.0, text.css_class)
+    return element
+
+
+def _draw_group(group: Group, context: _Context):
+    element = context.drawing.g()
+    _set_common(element, 1.0, group.css_class)
+    if group.id:
+        element["id"] = clean_text(group.id)
+    if group.title:
+        element.elements.append(Title(clean_text(group.title)))  # the record's tooltip
+    for child in group.children:
+        _draw_into(element, child, context)
+    return element
+
+
+_DRAW = {
+    Rect: _draw_rect,
+    GradientRect: _draw_gradient_rect,
+    Line: _draw_line,
+    Polygon: _draw_polygon,
+    Text: _draw_text,
+    Group: _draw_group,
+}
+
+
+def _set_stroke(element, stroke: str | None, width: float) -> None:
+    if stroke is not None and width > 0:
+        element["stroke"] = _colour(stroke)
+        element["stroke-width"] = _number(width)
+
+
+def _set_common(element, opacity: float, css_class: str) -> None:
+    if opacity < 1:
+        element["opacity"] = _number(max(opacity, 0.0), 3)
+    if css_class:
+        element["class"] = clean_text(css_class)
+
+
+def clean_text(text: str) -> str:
+    """`text` without the characters XML 1.0 cannot carry (so the file stays well-formed)."""
+    return _NOT_XML_TEXT.sub("", str(text))
+
+
+def drawable_text(text: str) -> str:
+    """Text as SVG displays it: cleaned, XML whitespace collapsed, ends trimmed."""
+    return _XML_WHITESPACE.sub(" ", clean_text(text)).strip()
+
+
+def font_family_list(font_family: str) -> str:
+    """The scene's font first, then metric-compatible fallbacks, ending in a generic family."""
+    first = _FONT_NAME_UNSAFE.sub("", font_family).strip()
+    names = [first] if first else []
+    names += [name for name in FONT_FALLBACKS if name.lower() != first.lower()]
+    return ", ".join(names)
+
+
+def _paint(colour: str | None) -> str:
+    return "none" if colour is None else _colour(colour)
+
+
+def _colour(colour: str) -> str:
+    if not isinstance(colour, str) or not _COLOUR.fullmatch(colour):
+        raise ValueError(f"not a colour: {colour!r} (expected #rrggbb, #rgb or a CSS name)")
+    return colour
+
+
+def _choice(value: str, allowed: tuple[str, ...]) -> str:
+    if value not in allowed:
+        raise ValueError(f"{value!r} is not one of {', '.join(allowed)}")
+    return value
+
+
+def _per_mille(opacity: float) -> int:
+    return round(min(max(opacity, 0.0), 1.0) * 1000)
+
+
+def _number(value: float, decimals: int = 2) -> str:
+    """`value` with at most `decimals` decimals, trailing zeros and '-0' removed."""
+    if not math.isfinite(value):
+        raise ValueError(f"cannot draw a coordinate of {value!r}")
+    text = f"{value:.{decimals}f}".rstrip("0").rstrip(".")
+    return "0" if text in ("-0", "") else text

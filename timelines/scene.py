@@ -1,0 +1,120 @@
+"""Renderer-neutral scene: frozen drawing primitives in page units (CSS px, 1/96 inch).
+
+The scene is plain data. `compose` builds it; each renderer draws it with one small function
+per primitive kind, so SVG, PNG and PDF show the same geometry by construction. y grows
+downward, as on a page. Colours are `#rrggbb` strings; opacity is a separate number.
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from typing import Union
+
+PX_PER_INCH = 96.0
+PX_PER_MM = PX_PER_INCH / 25.4
+
+
+@dataclass(frozen=True, slots=True)
+class Rect:
+    x: float
+    y: float
+    width: float
+    height: float
+    fill: str | None = "#000000"
+    stroke: str | None = None
+    stroke_width: float = 0.0
+    opacity: float = 1.0
+    css_class: str = ""
+
+
+@dataclass(frozen=True, slots=True)
+class GradientRect:
+    """A rectangle filled with one colour whose opacity runs linearly from left to right."""
+
+    x: float
+    y: float
+    width: float
+    height: float
+    fill: str
+    opacity_left: float
+    opacity_right: float
+    css_class: str = ""
+
+
+@dataclass(frozen=True, slots=True)
+class Line:
+    x1: float
+    y1: float
+    x2: float
+    y2: float
+    stroke: str = "#000000"
+    stroke_width: float = 1.0
+    dash: tuple[float, ...] | None = None
+    opacity: float = 1.0
+    css_class: str = ""
+
+
+@dataclass(frozen=True, slots=True)
+class Polygon:
+    """A closed polygon (filled) or, with `closed=False`, an open polyline (stroked only)."""
+
+    points: tuple[tuple[float, float], ...]
+    fill: str | None = "#000000"
+    stroke: str | None = None
+    stroke_width: float = 0.0
+    closed: bool = True
+    opacity: float = 1.0
+    css_class: str = ""
+
+
+@dataclass(frozen=True, slots=True)
+class Text:
+    """One line of text. `y` is the baseline; `anchor` is start, middle or end."""
+
+    x: float
+    y: float
+    text: str
+    size: float = 12.0
+    anchor: str = "start"
+    weight: str = "normal"
+    style: str = "normal"
+    fill: str = "#000000"
+    css_class: str = ""
+
+
+@dataclass(frozen=True, slots=True)
+class Group:
+    """A group of primitives; `title` becomes the SVG tooltip (`<title>`) of the group."""
+
+    children: tuple["Primitive", ...]
+    css_class: str = ""
+    title: str | None = None
+    id: str | None = None
+
+
+Primitive = Union[Rect, GradientRect, Line, Polygon, Text, Group]
+PRIMITIVE_KINDS = (Rect, GradientRect, Line, Polygon, Text, Group)
+
+
+@dataclass(frozen=True, slots=True)
+class Scene:
+    width: float
+    height: float
+    children: tuple[Primitive, ...]
+    title: str = ""
+    desc: str = ""
+    background: str | None = "#ffffff"
+    font_family: str = "DejaVu Sans"
+    metadata: tuple[tuple[str, str], ...] = field(default=())
+
+
+def walk(items: tuple[Primitive, ...]):
+    """Every primitive in drawing order, groups included (depth first)."""
+    for item in items:
+        yield item
+        if isinstance(item, Group):
+            yield from walk(item.children)
+
+
+def find(scene: Scene, css_class: str) -> list[Primitive]:
+    """Primitives whose class list holds `css_class`; a test helper as much as an API."""
+    return [p for p in walk(scene.children) if css_class in p.css_class.split()]

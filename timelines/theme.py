@@ -1,0 +1,70 @@
+"""The look of a chart: sizes, fonts, colours and the choice of uncertainty encoding.
+
+All lengths are CSS px (1/96 inch), the unit of the Scene.
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass, field, replace
+
+# Okabe & Ito (2008), "Color Universal Design": eight colours distinguishable under the common
+# forms of colour-vision deficiency. Black is kept last: it is the text colour here.
+OKABE_ITO = (
+    "#0072B2",  # blue
+    "#E69F00",  # orange
+    "#009E73",  # bluish green
+    "#CC79A7",  # reddish purple
+    "#56B4E9",  # sky blue
+    "#D55E00",  # vermillion
+    "#F0E442",  # yellow
+    "#000000",  # black
+)
+
+
+@dataclass(frozen=True, slots=True)
+class Theme:
+    width: float = 960.0
+    font_family: str = "DejaVu Sans"
+    font_size: float = 12.0          # record labels
+    small_font_size: float = 10.0    # axis, legend, notes
+    title_size: float = 18.0
+    group_label_size: float = 12.0
+    margin: float = 16.0
+    lane_height: float = 22.0
+    bar_height: float = 12.0
+    group_gap: float = 10.0
+    label_pad: float = 4.0
+    axis_height: float = 28.0
+    legend_row_height: float = 18.0
+    text_color: str = "#1a1a1a"
+    muted_color: str = "#666666"
+    grid_color: str = "#e3e3e3"
+    separator_color: str = "#bbbbbb"
+    background: str | None = "#ffffff"
+    bar_color: str = OKABE_ITO[0]
+    palette: tuple[str, ...] = field(default=OKABE_ITO)
+    fringe: str = "fade"             # encoding of the possible-but-not-certain parts
+    fringe_far_opacity: float = 0.12  # how faint a fade gets at the far end of a window
+    era: str = "bce"                 # year labels: bce (44 BCE), bc (44 BC), astronomical (-43)
+
+    def with_options(self, **changes) -> "Theme":
+        changes = {k: v for k, v in changes.items() if v is not None}
+        return replace(self, **changes)
+
+    def color_for(self, index: int) -> str:
+        return self.palette[index % len(self.palette)]
+
+
+DEFAULT_THEME = Theme()
+
+
+def text_color_on(fill: str) -> str:
+    """Black or white, whichever reads better on `fill` (WCAG relative luminance)."""
+    red, green, blue = (int(fill[i:i + 2], 16) / 255 for i in (1, 3, 5))
+
+    def linear(c: float) -> float:
+        # sRGB transfer function, WCAG 2.x definition of relative luminance.
+        return c / 12.92 if c <= 0.04045 else ((c + 0.055) / 1.055) ** 2.4
+
+    luminance = 0.2126 * linear(red) + 0.7152 * linear(green) + 0.0722 * linear(blue)
+    # Contrast with white is (1.05)/(L+0.05); with black (L+0.05)/0.05; pick the larger.
+    return "#ffffff" if 1.05 / (luminance + 0.05) >= (luminance + 0.05) / 0.05 else "#000000"

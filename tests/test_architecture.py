@@ -59,12 +59,21 @@ def _imports(parts: tuple[str, ...], tree: ast.AST):
                 target = [*base, *(node.module.split(".") if node.module else [])]
                 names = [target] if node.module else [[*base, a.name] for a in node.names]
                 for name in names:
-                    yield ("__init__" if not name else name[0]), None
+                    yield _module_of(name), None
             else:
                 yield None, node.module.split(".")[0]
         elif isinstance(node, ast.Import):
             for alias in node.names:
                 yield None, alias.name.split(".")[0]
+
+
+def _module_of(name: list[str]) -> str:
+    """The top-level project module a dotted import names; a plain name from the package
+    itself (`from . import __version__`) belongs to `__init__`."""
+    if not name:
+        return "__init__"
+    top = PACKAGE / name[0]
+    return name[0] if top.is_dir() or top.with_suffix(".py").exists() else "__init__"
 
 
 def test_project_imports_go_only_downward():

@@ -5,7 +5,7 @@
 
 - `errors`: the problems that keep a row off the chart (cells that cannot be read, ends that
   lie wholly before their starts), one per cell, in row order;
-- `undated`: the rows with no date at all (drawn nowhere, listed in a note under the chart);
+- `undated_rows`: the rows with no date at all (no bar; listed in a note under the chart);
 - `warnings`: the findings of the rules below (the rows are drawn);
 - `counts`: rows read, drawn and reported; `summary()` says it in one line.
 

@@ -31,10 +31,7 @@ class DrawnSpan:
     end_high: float
     open_start: bool
     open_end: bool
-
-    @property
-    def has_core(self) -> bool:
-        return self.start_high <= self.end_low
+    has_core: bool      # the model's certain core is not empty
 
 
 def drawn_span(span: Span, domain: tuple[float, float]) -> DrawnSpan:
@@ -52,7 +49,8 @@ def drawn_span(span: Span, domain: tuple[float, float]) -> DrawnSpan:
     if end.is_open:
         c = d = high_edge
     clip = lambda day: min(max(day, low_edge), high_edge)  # noqa: E731 - one-line clamp
-    return DrawnSpan(clip(a), clip(b), clip(c), clip(d), start.is_open, end.is_open)
+    has_core = span.certain_core is not None and clip(b) <= clip(c)
+    return DrawnSpan(clip(a), clip(b), clip(c), clip(d), start.is_open, end.is_open, has_core)
 
 
 def _first(*values):

@@ -59,10 +59,17 @@ def font_facts(font: TTFont) -> dict[str, int]:
     }
 
 
-def literal(name: str, table: dict[str, int]) -> str:
-    items = [f"{ascii(ch)}: {width}," for ch, width in table.items()]
-    lines = [" ".join(items[i:i + 8]) for i in range(0, len(items), 8)]
-    return f"{name} = {{\n" + "".join(f"    {line}\n" for line in lines) + "}\n"
+def literal(name: str, table: dict[str, int], width: int = 99) -> str:
+    """A dict literal, entries packed greedily into lines of at most `width` characters."""
+    lines, line = [], "   "
+    for ch, advance in table.items():
+        item = f" {ascii(ch)}: {advance},"
+        if len(line) + len(item) > width:
+            lines.append(line)
+            line = "   "
+        line += item
+    lines.append(line)
+    return f"{name} = {{\n" + "".join(f"{line}\n" for line in lines) + "}\n"
 
 
 def generated_block() -> str:

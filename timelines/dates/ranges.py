@@ -22,9 +22,9 @@ from ..errors import DateError
 from ..model import Endpoint, Span
 from .iso import iso_interval
 from .settings import DEFAULT_SETTINGS, DateSettings
-from .single import not_a_date, read_single, require_text
+from .single import not_a_date, prepared, read_single
 from .text import split_era
-from .windows import DATE_HINT, collapsed, normalise, ordered_span, reading
+from .windows import DATE_HINT, collapsed, ordered_span, reading
 
 RANGE_HINT = "a range looks like 1650–1660, 1650 to 1660, 500 BC – AD 100 or 1985/1987"
 
@@ -36,7 +36,7 @@ _TWO_DIGITS = re.compile(r"[0-9]{2}")
 
 def parse_span(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Span:
     """A range or interval, or a single date as a point span; raises DateError."""
-    cleaned = normalise(require_text(text))
+    cleaned = prepared(text)
     with reading(text):
         return _read_span(cleaned, text, settings)
 

@@ -2,7 +2,7 @@
 
 Dispatch is flat: `before`/`after` over `circa` over a base form. A base form is tried as free
 text first (calendar setting), then as ISO 8601 (proleptic Gregorian); the two sets of forms
-never claim the same text except a bare year, which is free text on purpose (see iso.py).
+never claim the same text except a bare unpadded year, which is free text on purpose (iso.py).
 
 Each form returns None when the text is not written its way and raises when it is but the date
 cannot exist; so a text matched by no form gets one general reason and hint.
@@ -45,9 +45,13 @@ BOUND = re.compile(r"""
 _RANGE_MARK = re.compile(r"[\u2012-\u2015/]|\sto\s", re.IGNORECASE)
 
 
+# Longer texts are notes, not dates; refusing them early keeps every regex here linear.
+MAX_DATE_LENGTH = 200
+
+
 def parse_date(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Endpoint:
     """One date (no range) as an endpoint window; raises DateError."""
-    cleaned = normalise(require_text(text))
+    cleaned = prepared(text)
     with reading(text):
         endpoint = read_single(cleaned, settings)
     if endpoint is None:
@@ -55,10 +59,14 @@ def parse_date(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Endpoint
     return endpoint
 
 
-def require_text(text: object) -> str:
+def prepared(text: object) -> str:
+    """The text normalised for the readers; refuses what is not text or far too long."""
     if not isinstance(text, str):
         raise DateError(str(text), f"expected text, not {type(text).__name__}")
-    return text
+    cleaned = normalise(text)
+    if len(cleaned) > MAX_DATE_LENGTH:
+        raise DateError(text, f"too long for a date ({len(cleaned)} characters)")
+    return cleaned
 
 
 def read_single(text: str, settings: DateSettings) -> Endpoint | None:

@@ -39,7 +39,9 @@ _SETTINGS = {
 # whitespace collapsed), so both routes draw identical strings.
 _NOT_TEXT = re.compile("[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f\ud800-\udfff\ufffe\uffff]")
 _WHITESPACE = re.compile("[\t\n\r ]+")
-_PNG_KEYWORD = re.compile(r"[!-~](?:[ -~]{0,77}[!-~])?")  # PNG spec 11.3.4.3: Latin-1, 1-79
+# PNG 11.3.4.3: a keyword is 1-79 Latin-1 characters without leading or trailing spaces; we
+# accept the printable ASCII part of that.
+_PNG_KEYWORD = re.compile(r"[!-~](?:[ -~]{0,77}[!-~])?")
 _PDF_INFO_KEYS = {"author": "Author", "subject": "Subject", "keywords": "Keywords"}
 
 
@@ -234,6 +236,8 @@ def _draw_text(text: Text, page: _Page):
     content = _WHITESPACE.sub(" ", _NOT_TEXT.sub("", text.text)).strip()
     if not content:
         return None
+    if text.anchor not in HORIZONTAL_ALIGNMENT:
+        raise ValueError(f"{text.anchor!r} is not one of start, middle, end")
     return TextArtist(
         text.x, text.y, content, fontsize=text.size * POINTS_PER_PX,
         horizontalalignment=HORIZONTAL_ALIGNMENT[text.anchor], verticalalignment="baseline",

@@ -4,7 +4,7 @@ from __future__ import annotations
 from timelines.calendar import fixed_from_gregorian as day
 from timelines.chart import build_scene, chart_scale
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
-from timelines.scene import GradientRect, Group, Polygon, Rect, Text, find, walk
+from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Text, find, walk
 from timelines.theme import DEFAULT_THEME
 
 
@@ -57,9 +57,11 @@ def test_unknown_end_fades_out_to_the_axis_edge_without_a_core():
     scale = chart_scale([rec, record("Other", year(1600), year(1720))], DEFAULT_THEME)
     [group] = [g for g in records_in(scene) if g.title.startswith("Fenna")]
     assert parts(group, Rect, "core") == [] and parts(group, Polygon, "open") == []
-    fringes = parts(group, GradientRect, "fringe")
-    assert fringes[-1].x + fringes[-1].width == scale.x1
-    assert fringes[-1].opacity_right < 1.0
+    [stretch] = parts(group, GradientRect, "unknown")
+    assert stretch.x == scale.x(day(1672, 12, 31))       # from the latest possible start
+    assert stretch.x + stretch.width == scale.x1          # to the axis edge
+    assert stretch.opacity_right < stretch.opacity_left < 1.0
+    assert len(parts(group, Line, "unknown")) == 2        # dashed outline
 
 
 def test_before_and_qualifier_marks_appear_with_legend_entries():

@@ -247,3 +247,9 @@ def test_circa_widens_and_before_after_sit_outside(text):
     assert widened.earliest < plain.earliest and widened.latest > plain.latest
     assert parse_date(f"before {text}").latest == plain.earliest - 1
     assert parse_date(f"after {text}").earliest == plain.latest + 1
+
+
+def test_a_very_long_text_is_refused_early():
+    with pytest.raises(DateError) as caught:
+        parse_span("1650 " * 100)
+    assert caught.value.reason == "too long for a date (499 characters)"

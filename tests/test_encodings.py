@@ -89,3 +89,10 @@ def test_unknown_fringe_name_suggests_the_closest():
     with pytest.raises(UsageError) as caught:
         marks.fringe_encoder("fad")
     assert caught.value.hint == "did you mean 'fade'?"
+
+
+def test_unknown_stretch_is_a_paler_fade_inside_a_dashed_outline():
+    fade, top, bottom = marks.unknown_stretch(EndWindow(40, 100, "end"), SCALE, LANE, STYLE)
+    assert isinstance(fade, GradientRect) and (fade.x, fade.x + fade.width) == (130.0, 250.0)
+    assert fade.opacity_left < 1.0 and fade.opacity_right < fade.opacity_left
+    assert top.dash and bottom.dash and (top.y1, bottom.y1) == (LANE.y, LANE.y + LANE.height)

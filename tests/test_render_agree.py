@@ -25,7 +25,7 @@ from matplotlib.ft2font import FT2Font
 from PIL import Image
 
 from timelines import textsize
-from timelines.render.mpl import render_png
+from timelines.render.mpl import render_pdf, render_png
 from timelines.render.svg import render_svg
 from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Scene, Text
 from timelines.textsize import cap_height, text_ascent, text_descent, text_height, text_width
@@ -88,6 +88,20 @@ def test_svg_and_png_draw_the_same_shapes(dpi, tmp_path):
     mean, worst_block = differences(*rasters(shapes_scene(), dpi, tmp_path))
     assert mean.max() < MEAN_TOLERANCE, mean
     assert worst_block < BLOCK_TOLERANCE, worst_block
+
+
+@pytest.mark.skipif(shutil.which("pdftoppm") is None, reason="poppler's pdftoppm is not here")
+def test_pdf_draws_the_same_shapes_as_the_png(tmp_path):
+    # A third route: our PDF rasterised by poppler. Poppler neither antialiases image edges
+    # nor widens hairlines as Agg does, so the allowance is wider (measured about 2.9 and 29).
+    render_pdf(shapes_scene(), tmp_path / "a.pdf")
+    subprocess.run(["pdftoppm", "-r", "96", "-png", "-singlefile", str(tmp_path / "a.pdf"),
+                    str(tmp_path / "poppler")], check=True)
+    render_png(shapes_scene(), tmp_path / "mpl.png", dpi=96)
+    ours, poppler = (numpy.asarray(Image.open(tmp_path / name).convert("RGB")).astype(float)
+                     for name in ("mpl.png", "poppler.png"))
+    mean, worst_block = differences(ours, poppler)
+    assert mean.max() < 4 * MEAN_TOLERANCE and worst_block < 2 * BLOCK_TOLERANCE
 
 
 def test_the_comparison_notices_a_reversed_fade(tmp_path):

@@ -200,6 +200,16 @@ def test_pdf_is_byte_identical_and_undated(tmp_path):
     assert b"/Title (Guild of Lantern Makers)" in data and b"/Author (timelines tests)" in data
 
 
+def test_pdf_stores_each_distinct_fade_once(tmp_path):
+    fade = GradientRect(10, 10, 50, 10, "#0072B2", 0.0, 1.0)
+    other = GradientRect(10, 30, 50, 10, "#0072B2", 1.0, 0.0)
+    moved = GradientRect(70, 50, 20, 5, "#0072B2", 0.0, 1.0)
+    render_pdf(Scene(100, 60, (fade, other, moved)), tmp_path / "a.pdf")
+    # Each image XObject with alpha comes with its soft mask, itself an image (ISO 32000-1,
+    # 11.6.5.3): two distinct fades make four.
+    assert (tmp_path / "a.pdf").read_bytes().count(b"/Subtype /Image") == 4
+
+
 def test_pdf_writes_to_a_file_object():
     buffer = io.BytesIO()
     render_pdf(sample_scene(), buffer)

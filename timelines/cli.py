@@ -148,6 +148,7 @@ def run_render(args, parser) -> int:
                            theme=theme, title=title, strict=args.strict, dpi=args.dpi)
     result = render(_input_path(args, parser), args.output, options)
     _print_problems(result.loaded.problems)
+    _print_problems(result.report.warnings)
     print(result.report.summary(), file=sys.stderr)
     if result.written is None:
         print("error: nothing written (--strict and some rows were not drawn)", file=sys.stderr)

@@ -16,6 +16,7 @@ from .legend import legend_and_notes
 from .model import Qualifier, Record, Span
 from .scale import TimeScale, ticks
 from .scene import Group, Line, Primitive, Scene, Text
+from .textsize import text_width
 from .theme import Theme, text_color_on
 
 
@@ -143,19 +144,22 @@ def _bar_marks(span, geometry: DrawnSpan, scale, box, style, theme, used) -> lis
     if geometry.has_core:
         parts += marks.core(geometry.start_high, geometry.end_low, scale, box, style)
         used.add("core")
-    for window in (EndWindow(geometry.start_low, geometry.start_high, "start"),
-                   EndWindow(geometry.end_low, geometry.end_high, "end")):
-        drawn = fringe(window, scale, box, style)
-        parts += drawn
-        if drawn:
-            used.add(f"fringe:{theme.fringe}")
-    for side, endpoint, edge, is_open in (("start", span.start, scale.start, geometry.open_start),
-                                          ("end", span.end, scale.end, geometry.open_end)):
+    windows = ((EndWindow(geometry.start_low, geometry.start_high, "start"), span.start,
+                scale.start, geometry.open_start),
+               (EndWindow(geometry.end_low, geometry.end_high, "end"), span.end,
+                scale.end, geometry.open_end))
+    for window, endpoint, edge, is_open in windows:
         if is_open:
-            parts += marks.open_arrow(edge, side, scale, box, style)
+            parts += marks.open_arrow(edge, window.side, scale, box, style)
             used.add("open")
         elif endpoint.is_unknown:
+            parts += marks.unknown_stretch(window, scale, box, style)
             used.add("unknown")
+        else:
+            drawn = fringe(window, scale, box, style)
+            parts += drawn
+            if drawn:
+                used.add(f"fringe:{theme.fringe}")
     return parts
 
 
@@ -234,7 +238,10 @@ def _draw_axis(scale: TimeScale, theme: Theme, top: float, bottom: float):
         axis.append(Line(x, bottom + 4, x, bottom + (9 if tick.major else 7), theme.muted_color,
                          1.0, css_class="tick"))
         if tick.major and tick.label:
-            axis.append(Text(x, bottom + 12 + theme.small_font_size, tick.label,
+            # keep an edge label on the page: shift it inward rather than cut it off
+            half = text_width(tick.label, theme.small_font_size) / 2 + 2
+            centre = min(max(x, half), theme.width - half)
+            axis.append(Text(centre, bottom + 12 + theme.small_font_size, tick.label,
                              theme.small_font_size, anchor="middle", fill=theme.text_color,
                              css_class="tick-label"))
     return [Group(tuple(grid), css_class="grid"), Group(tuple(axis), css_class="axis")], (

@@ -86,6 +86,25 @@ def fringe_encoder(name: str) -> Encoder:
     raise UsageError(f"unknown fringe style {name!r}; choose one of {', '.join(FRINGES)}", hint)
 
 
+def unknown_stretch(window: EndWindow, scale: TimeScale, lane: LaneBox,
+                    style: MarkStyle) -> list[Primitive]:
+    """Where an empty cell leaves a side unknown: a paler fade inside a dashed outline, so it
+    reads apart from a dated window's fade."""
+    x_low, x_high = scale.x(window.low), scale.x(window.high)
+    if x_high - x_low <= 0:
+        return []
+    near, far = 0.55, style.far_opacity * 0.5
+    left, right = (far, near) if window.side == "start" else (near, far)
+    dash = (3.0, 2.0)
+    return [
+        GradientRect(x_low, lane.y, x_high - x_low, lane.height, style.color, left, right,
+                     css_class="unknown"),
+        Line(x_low, lane.y, x_high, lane.y, style.color, 1.0, dash, css_class="unknown"),
+        Line(x_low, lane.y + lane.height, x_high, lane.y + lane.height, style.color, 1.0, dash,
+             css_class="unknown"),
+    ]
+
+
 def core(low: float, high: float, scale: TimeScale, lane: LaneBox, style: MarkStyle) -> list[Primitive]:
     """The certain part: a solid bar."""
     x_low, x_high = scale.x(low), scale.x(high)

@@ -15,7 +15,7 @@ ENTRIES = (
     ("fringe:fade", "possible: the date lies somewhere in the fading part"),
     ("fringe:whisker", "possible: the date lies somewhere on the thin line"),
     ("open", "open: runs on beyond the chart"),
-    ("unknown", "not recorded: could reach the chart edge"),
+    ("unknown", "not recorded: could lie anywhere in the dashed part"),
     ("before", "before: no later than the bracket"),
     ("after", "after: no earlier than the bracket"),
     ("approximate", "approximate (c., ~)"),
@@ -71,7 +71,7 @@ def _sample(key: str, theme: Theme, color: str):
         if key == "open":
             return marks.core(0, 7, scale, box, style) + marks.open_arrow(7, "end", scale, box, style)
         if key == "unknown":
-            return marks.fade(EndWindow(0, 10, "end"), scale, box, style)
+            return marks.unknown_stretch(EndWindow(0, 10, "end"), scale, box, style)
         if key == "before":
             return (marks.fade(EndWindow(0, 7, "start"), scale, box, style)
                     + marks.bound_bracket(7, "before", scale, box, style))

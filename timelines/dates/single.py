@@ -26,8 +26,8 @@ CIRCA = re.compile(r"""
       | ca\. | ca(?=[\s0-9])       # ca. 1650, ca 1650
       | c\.  | c(?=[\s0-9])        # c. 1650, c 1650, c1650 (not CE 1066)
       | about(?=\s)                # about 1650
-      | approx\. | approx(?=\s)  # approx. 1650, approx 1650
-      | approximately(?=\s)       # approximately 1650
+      | approx\. | approx(?=\s)    # approx. 1650, approx 1650
+      | approximately(?=\s)        # approximately 1650
     )
     \s*
     (?P<rest>.+)

@@ -159,8 +159,7 @@ def _fade_artist_type():
             gc = renderer.new_gc()
             gc.set_clip_rectangle(self.axes.bbox)
             if renderer.option_scale_image():
-                centres = (numpy.arange(GRADIENT_SAMPLES) + 0.5) / GRADIENT_SAMPLES
-                image = _ramp_image(rgb, _ramp(self.rect, centres)[None])
+                image = _sample_row(rgb, self.rect.opacity_left, self.rect.opacity_right)
                 scale = Affine2D().scale(right - left, top - bottom)
                 renderer.draw_image(gc, left, bottom, image, scale)
             else:
@@ -181,15 +180,25 @@ def _device_fade(rect: GradientRect, rgb, box, renderer):
     if columns.size == 0 or rows.size == 0:
         return None
     centres = (numpy.clip(columns + 0.5, left, right) - left) / (right - left)
-    across = _ramp(rect, centres) * _coverage(columns, left, right)
+    across = _opacity_ramp(rect.opacity_left, rect.opacity_right, centres)
+    across *= _coverage(columns, left, right)
     down = _coverage(rows, bottom, top)[::-1]  # image row 0 is the top row
     return int(columns[0]), int(rows[0]), _ramp_image(rgb, numpy.outer(down, across))
 
 
-def _ramp(rect: GradientRect, position):
+@functools.lru_cache(maxsize=4096)
+def _sample_row(rgb: tuple[float, float, float], left: float, right: float):
+    """One row of samples for a vector backend. The same array object for the same fade, so
+    the PDF writer (which keys images by identity) stores each distinct fade once."""
+    centres = (numpy.arange(GRADIENT_SAMPLES) + 0.5) / GRADIENT_SAMPLES
+    image = _ramp_image(rgb, _opacity_ramp(left, right, centres)[None])
+    image.flags.writeable = False
+    return image
+
+
+def _opacity_ramp(left: float, right: float, position):
     """Opacity at `position` (0 at the left edge .. 1 at the right edge)."""
-    opacity = rect.opacity_left + (rect.opacity_right - rect.opacity_left) * position
-    return numpy.clip(opacity, 0.0, 1.0)
+    return numpy.clip(left + (right - left) * position, 0.0, 1.0)
 
 
 def _coverage(pixels, low: float, high: float):

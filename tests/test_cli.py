@@ -1,0 +1,133 @@
+"""The command line, called in-process: exit codes, stdout, stderr and written files."""
+from __future__ import annotations
+
+import io
+import json
+import xml.etree.ElementTree as ET
+from pathlib import Path
+
+import pytest
+
+from timelines.cli import main
+
+FIXTURES = Path(__file__).parent / "fixtures"
+SVG = "{http://www.w3.org/2000/svg}"
+
+
+def run(capsys, *argv):
+    code = main(list(argv))
+    out, err = capsys.readouterr()
+    return code, out, err
+
+
+def test_demo_renders_every_row_and_exits_0(tmp_path, capsys):
+    code, _, err = run(capsys, "render", "--demo", "-o", str(tmp_path / "demo.svg"))
+    assert code == 0
+    assert "16 rows read: 16 drawn" in err
+    root = ET.parse(tmp_path / "demo.svg").getroot()
+    assert len(root.findall(f".//{SVG}g[@class='record']")) == 16
+
+
+def test_demo_svg_is_byte_identical_across_runs(tmp_path, capsys):
+    for name in ("a.svg", "b.svg"):
+        run(capsys, "render", "--demo", "-o", str(tmp_path / name))
+    assert (tmp_path / "a.svg").read_bytes() == (tmp_path / "b.svg").read_bytes()
+
+
+@pytest.mark.parametrize("suffix, magic", [(".png", b"\x89PNG\r\n\x1a\n"), (".pdf", b"%PDF")])
+def test_demo_writes_png_and_pdf(tmp_path, capsys, suffix, magic):
+    out = tmp_path / f"demo{suffix}"
+    assert run(capsys, "render", "--demo", "-o", str(out))[0] == 0
+    assert out.read_bytes().startswith(magic)
+
+
+def test_bad_rows_are_reported_by_row_and_column_and_the_rest_drawn(tmp_path, capsys):
+    out = tmp_path / "founders.svg"
+    code, _, err = run(capsys, "render", str(FIXTURES / "harrowmere-founders.csv"), "-o", str(out))
+    assert code == 1
+    lines = err.splitlines()
+    assert ("harrowmere-founders.csv:4:born: [H3] cannot read '1985-13-01': "
+            "month 13 does not exist") in lines
+    assert ("harrowmere-founders.csv:9:died: [H8] cannot read '2001-02-29': "
+            "2001 is not a leap year") in lines
+    assert any(line.startswith("harrowmere-founders.csv:8:died: [H7] the end") for line in lines)
+    assert "10 rows read: 6 drawn, 4 reported" in err
+    root = ET.parse(out).getroot()
+    assert len(root.findall(f".//{SVG}g[@class='record']")) == 6
+    notes = " ".join(t.text or "" for t in root.iter(f"{SVG}text") if t.get("class") == "note")
+    assert "H6 (row 7)" in notes           # the undated row is listed under the chart
+
+
+def test_strict_writes_nothing_when_a_row_fails(tmp_path, capsys):
+    out = tmp_path / "founders.svg"
+    code, _, err = run(capsys, "render", str(FIXTURES / "harrowmere-founders.csv"), "-o",
+                       str(out), "--strict")
+    assert code == 1 and not out.exists()
+    assert "nothing written" in err
+
+
+def test_usage_errors_exit_2_with_a_hint(tmp_path, capsys):
+    code, _, err = run(capsys, "render", str(FIXTURES / "harrowmere-founders.csv"),
+                       "--start", "brn", "-o", str(tmp_path / "x.svg"))
+    assert code == 2
+    assert "error: no column 'brn'" in err and "hint: did you mean 'born'?" in err
+    code, _, err = run(capsys, "render", "--demo", "-o", str(tmp_path / "x.gif"))
+    assert code == 2 and "must end in .svg, .png or .pdf" in err
+    with pytest.raises(SystemExit) as exited:
+        main(["render", "-o", str(tmp_path / "x.svg")])
+    assert exited.value.code == 2
+
+
+def test_a_missing_file_is_a_clear_error(tmp_path, capsys):
+    code, _, err = run(capsys, "render", str(tmp_path / "nope.csv"), "-o", str(tmp_path / "x.svg"))
+    assert code == 1 and err.startswith("error: ") and "nope.csv" in err
+
+
+def test_parse_json_follows_the_design_contract(capsys):
+    code, out, _ = run(capsys, "parse", "--json", " c. 1650 ", "1985/1987", "1985-13-01")
+    assert code == 1                       # one input had an error
+    first, interval, bad = (json.loads(line) for line in out.splitlines())
+    keys = {"input", "ok", "earliest", "latest", "likely", "precision", "qualifiers", "error"}
+    assert set(first) == keys
+    assert first["input"] == " c. 1650 "   # echoed exactly, spaces included
+    assert first["ok"] and "approximate" in first["qualifiers"]
+    # ISO 8601-2:2019 interval: the bounds are the possible extent, start and end given apart
+    assert set(interval) == keys | {"start", "end"}
+    assert (interval["earliest"], interval["latest"]) == ("1985-01-01", "1987-12-31")
+    assert interval["start"]["latest"] == "1985-12-31"
+    assert bad == {"input": "1985-13-01", "ok": False, "earliest": None, "latest": None,
+                   "likely": None, "precision": None, "qualifiers": [],
+                   "error": "month 13 does not exist"}
+
+
+def test_parse_reads_stdin_lines_when_no_text_is_given(capsys, monkeypatch):
+    monkeypatch.setattr("sys.stdin", io.StringIO("1650s\n-0043-03-15\n"))
+    code, out, _ = run(capsys, "parse", "--json")
+    assert code == 0
+    decade, ides = (json.loads(line) for line in out.splitlines())
+    assert (decade["earliest"], decade["latest"]) == ("1650-01-01", "1659-12-31")
+    assert ides["earliest"] == "-0043-03-15"   # ISO 8601 expanded year, astronomical
+
+
+def test_check_reports_without_drawing(capsys):
+    code, out, _ = run(capsys, "check", str(FIXTURES / "harrowmere-founders.csv"), "--json")
+    assert code == 1
+    report = json.loads(out)
+    assert report["counts"]["rows_read"] == 10
+
+
+def test_bc_table_gets_bc_labels(tmp_path, capsys):
+    table = tmp_path / "dynasty.csv"
+    table.write_text("name,start,end\nKing Aram,c. 520 BC,480 BC\nQueen Ilse,480 BC,431 BC\n"
+                     "King Tobar,431 BC,AD 12\n", encoding="utf-8")
+    out = tmp_path / "dynasty.svg"
+    assert run(capsys, "render", str(table), "-o", str(out))[0] == 0
+    labels = [t.text for t in ET.parse(out).getroot().iter(f"{SVG}text")
+              if t.get("class") == "tick-label"]
+    assert any(label.endswith(" BCE") for label in labels), labels
+    assert "0" not in labels and "0 BCE" not in labels
+    code, out_text, err = run(capsys, "render", str(table), "-o", str(tmp_path / "bc.svg"),
+                              "--era", "bc")
+    labels = [t.text for t in ET.parse(tmp_path / "bc.svg").getroot().iter(f"{SVG}text")
+              if t.get("class") == "tick-label"]
+    assert any(label.endswith(" BC") for label in labels), labels

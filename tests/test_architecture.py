@@ -35,7 +35,7 @@ ALLOWED = {
 }
 # third-party package -> the only modules allowed to import it
 THIRD_PARTY = {
-    "pandas": {"sources"},
+    "pandas": {"sources.tables"},
     "matplotlib": {"render.mpl"},
     "svgwrite": {"render.svg"},
     "dateutil": {"dates"},

@@ -1,0 +1,22 @@
+"""Tables in, Records out: read a CSV/TSV/XLSX/ODS file, find its columns, parse every date cell.
+
+Three steps, each usable alone:
+
+- `read_table(path, sheet=None)` gives the raw cells. CSV-like files are read as text, exactly
+  as written (`0043` stays `0043`, `1650` never becomes `1650.0`); spreadsheet cells keep their
+  types (a real date arrives as a `datetime`, a year as an `int`). Empty cells are `""`.
+- `detect_columns(header, given)` fills the roles the user did not name (start, end, when,
+  label, group, color, id) from common header names.
+- `load_records(table, columns, settings)` turns rows into `Record`s and `Problem`s. Every
+  non-blank row ends as a Record (drawn, or undated and listed) or as a Problem (not drawn):
+  no row is lost. Every cell error of every row is collected, not just the first.
+
+Rows are numbered as a spreadsheet program numbers them: the header is row 1, so the first
+data row is row 2. This is the only module of the project that imports pandas.
+"""
+from .columns import COLUMN_NAMES, ColumnMap, detect_columns
+from .records import OPEN_CELL, LoadResult, Problem, load_records, read_records
+from .tables import READABLE, Table, cell_text, read_table
+
+__all__ = ["COLUMN_NAMES", "ColumnMap", "LoadResult", "OPEN_CELL", "Problem", "READABLE",
+           "Table", "cell_text", "detect_columns", "load_records", "read_records", "read_table"]

@@ -1,0 +1,199 @@
+"""Reading a table file into raw cells: CSV/TSV as text exactly as written, XLSX/ODS with
+their cell types. Rows are numbered as a spreadsheet program numbers them (header = row 1).
+The only module of the project that imports pandas."""
+from __future__ import annotations
+
+import io
+import re
+from dataclasses import dataclass
+from datetime import date, datetime
+from pathlib import Path
+
+import pandas as pd
+
+from ..errors import SourceError, UsageError
+from .columns import did_you_mean
+
+TEXT_FORMATS = {".csv": ",", ".tsv": "\t", ".tab": "\t", ".txt": None}  # None: from the header
+SPREADSHEET_ENGINES = {".xlsx": "openpyxl", ".xlsm": "openpyxl", ".ods": "odf"}
+READABLE = ", ".join([*TEXT_FORMATS, *SPREADSHEET_ENGINES])
+_DELIMITERS = ("\t", ";", ",", "|")  # tried in this order when a header line must decide
+
+
+
+@dataclass(frozen=True, slots=True)
+class Table:
+    """Raw cells of one sheet: `rows[i]` is spreadsheet row i + 2, as long as the header."""
+
+    source: str                          # the file name, for messages
+    header: tuple[str, ...]
+    rows: tuple[tuple[object, ...], ...]
+
+
+def read_table(path: str | Path, sheet: str | int | None = None, *,
+               encoding: str = "utf-8") -> Table:
+    """Read a table file; its format follows the extension (see READABLE).
+
+    `sheet` picks a spreadsheet's sheet by name, or by its place counted from 1 when it is a
+    number that is not also a sheet's name. Text files are UTF-8 (a byte-order mark is
+    dropped; a UTF-16 mark is honoured) unless `encoding` says otherwise."""
+    path = Path(path)
+    suffix = path.suffix.lower()
+    if suffix not in TEXT_FORMATS and suffix not in SPREADSHEET_ENGINES:
+        raise SourceError(f"{path.name}: cannot read files of type {suffix or '(none)'!r}",
+                          hint=f"save it as one of {READABLE}")
+    if not path.is_file():
+        raise SourceError(f"{path}: no such file" if not path.exists() else f"{path}: not a file",
+                          hint="check the path and the spelling of the file name")
+    if suffix in SPREADSHEET_ENGINES:
+        cells = _spreadsheet_cells(path, SPREADSHEET_ENGINES[suffix], sheet)
+    elif sheet is not None:
+        raise UsageError(f"{path.name} is a text file and has no sheets",
+                         hint="a sheet can be chosen only in an .xlsx, .xlsm or .ods file")
+    else:
+        cells = _text_cells(path, TEXT_FORMATS[suffix], encoding)
+    return _table_from_cells(path.name, cells)
+
+
+def _text_cells(path: Path, delimiter: str | None, encoding: str) -> list[tuple[object, ...]]:
+    text = _decoded_text(path, encoding)
+    if not text.strip():
+        raise SourceError(f"{path.name}: the file is empty",
+                          hint="the first row should name the columns, e.g. label,start,end")
+    first_line = text.split("\n", 1)[0]
+    delimiter = _delimiter_from_header(first_line, delimiter)
+    try:
+        # dtype=object keeps every cell the str it was, with no type guessing at all.
+        frame = pd.read_csv(io.StringIO(text), sep=delimiter, header=None, dtype=object,
+                            keep_default_na=False, na_filter=False, skip_blank_lines=False,
+                            engine="c")
+    except pd.errors.ParserError as error:
+        raise SourceError(f"{path.name}: {_plain_parser_message(error)}",
+                          hint="every line should have as many cells as the header") from error
+    return _frame_rows(frame)
+
+
+def _frame_rows(frame: pd.DataFrame) -> list[tuple[object, ...]]:
+    # Column lists zipped into rows: several times faster than DataFrame.to_numpy().tolist().
+    return list(zip(*(frame[column].tolist() for column in frame.columns)))
+
+
+def _decoded_text(path: Path, encoding: str) -> str:
+    raw = path.read_bytes()
+    if raw.startswith((b"\xff\xfe", b"\xfe\xff")):
+        encoding = "utf-16"  # a spreadsheet's "Unicode text" export announces itself this way
+    elif encoding.lower().replace("-", "").replace("_", "") == "utf8":
+        encoding = "utf-8-sig"  # drops the byte-order mark Excel puts before "CSV UTF-8"
+    try:
+        return raw.decode(encoding)
+    except UnicodeDecodeError as error:
+        line = raw[:error.start].count(b"\n") + 1
+        raise SourceError(
+            f"{path.name}: line {line} is not {encoding.removesuffix('-sig')} text "
+            f"(byte 0x{raw[error.start]:02x})",
+            hint="save the file as UTF-8 (in a spreadsheet program: 'CSV UTF-8')") from error
+
+
+def _delimiter_from_header(first_line: str, default: str | None) -> str:
+    """The delimiter of a text table: the extension's, unless its header line holds none of it.
+
+    A `.csv` saved where the decimal mark is a comma is separated by semicolons; a `.txt`
+    says nothing. Then the header decides: the candidate it holds most (tab, `;`, `,`, `|`
+    win ties in that order). A header with none of them is a single column."""
+    if default is not None and default in first_line:
+        return default
+    counts = [(first_line.count(candidate), candidate) for candidate in _DELIMITERS]
+    best_count = max(count for count, _ in counts)
+    if best_count == 0:
+        return default or ","
+    return next(candidate for count, candidate in counts if count == best_count)
+
+
+def _plain_parser_message(error: Exception) -> str:
+    # pandas says "Error tokenizing data. C error: Expected 3 fields in line 5, saw 4".
+    found = re.search(r"Expected (\d+) fields in line (\d+), saw (\d+)", str(error))
+    if found:
+        expected, line, saw = found.groups()
+        return f"line {line} has {saw} cells, the header has {expected}"
+    return str(error).strip()
+
+
+def _spreadsheet_cells(path: Path, engine: str,
+                       sheet: str | int | None) -> list[tuple[object, ...]]:
+    try:
+        book = pd.ExcelFile(path, engine=engine)
+    except Exception as error:  # a damaged or mislabelled file: many libraries, many errors
+        raise SourceError(f"{path.name}: cannot open it as a spreadsheet ({error})",
+                          hint="open it in a spreadsheet program and save it again") from error
+    with book:
+        name = _sheet_name(path.name, book.sheet_names, sheet)
+        frame = pd.read_excel(book, sheet_name=name, header=None, dtype=object, na_filter=False)
+    return [tuple(map(_spreadsheet_value, row)) for row in _frame_rows(frame)]
+
+
+def _sheet_name(file_name: str, names: list[str], wanted: str | int | None) -> str:
+    if not names:
+        raise SourceError(f"{file_name}: the spreadsheet has no sheets")
+    if wanted is None:
+        return names[0]
+    wanted = str(wanted)
+    if wanted in names:
+        return wanted
+    folded = [name for name in names if name.casefold() == wanted.casefold()]
+    if len(folded) == 1:
+        return folded[0]
+    if wanted.isdigit() and 1 <= int(wanted) <= len(names):
+        return names[int(wanted) - 1]
+    listed = ", ".join(repr(name) for name in names)
+    raise SourceError(f"{file_name}: no sheet {wanted!r}; the sheets are {listed}",
+                      hint=did_you_mean(wanted, names) or "a sheet number counts from 1")
+
+
+def _spreadsheet_value(value: object) -> object:
+    """A spreadsheet cell as plain Python: pandas Timestamps become datetimes, NaN becomes ''."""
+    if isinstance(value, pd.Timestamp):
+        return value.to_pydatetime()
+    if isinstance(value, float) and value != value:
+        return ""
+    if value is None:
+        return ""
+    return value
+
+
+def _table_from_cells(source: str, cells: list[tuple[object, ...]]) -> Table:
+    if not cells:
+        raise SourceError(f"{source}: the sheet is empty",
+                          hint="the first row should name the columns, e.g. label,start,end")
+    if not any(map(cell_text, cells[0])):
+        raise SourceError(f"{source}: row 1 is empty; it should name the columns",
+                          hint="put the column names (e.g. label, start, end) in the first row")
+    return Table(source, _header_names(cells[0]), tuple(cells[1:]))
+
+
+def _header_names(cells: tuple[object, ...]) -> tuple[str, ...]:
+    """Column names from row 1: blanks become `column N`; a repeated name gets ` (2)`, ` (3)`."""
+    names: list[str] = []
+    for number, cell in enumerate(cells, start=1):
+        name = cell_text(cell) or f"column {number}"
+        repeat = 2
+        base = name
+        while name in names:
+            name = f"{base} ({repeat})"
+            repeat += 1
+        names.append(name)
+    return tuple(names)
+
+
+def cell_text(value: object) -> str:
+    """A cell as the text a user would read in it: dates in ISO form, whole numbers bare."""
+    if type(value) is str:
+        return value.strip()
+    if isinstance(value, datetime):
+        if value.time() == datetime.min.time():
+            return value.date().isoformat()
+        return value.isoformat(sep=" ")
+    if isinstance(value, date):
+        return value.isoformat()
+    if isinstance(value, float) and value.is_integer():
+        return str(int(value))
+    return "" if value is None else str(value).strip()

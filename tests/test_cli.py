@@ -131,3 +131,61 @@ def test_bc_table_gets_bc_labels(tmp_path, capsys):
     labels = [t.text for t in ET.parse(tmp_path / "bc.svg").getroot().iter(f"{SVG}text")
               if t.get("class") == "tick-label"]
     assert any(label.endswith(" BC") for label in labels), labels
+
+
+def test_demo_shows_every_mark_and_its_legend_explains_each(tmp_path, capsys):
+    out = tmp_path / "demo.svg"
+    run(capsys, "render", "--demo", "-o", str(out))
+    root = ET.parse(out).getroot()
+    legend = " ".join(t.text or "" for t in root.iter(f"{SVG}text")
+                      if t.get("class") == "legend-text")
+    for words in ("certain", "possible", "open", "not recorded", "before", "after",
+                  "approximate (c., ~)", "uncertain (?)", "approximate and uncertain",
+                  "most likely date", "a dated moment", "a moment somewhere on the line"):
+        assert words in legend, words
+    classes = {c for e in root.iter() for c in (e.get("class") or "").split()}
+    assert {"core", "fringe", "open", "unknown", "bound", "likely", "qualifier",
+            "point"} <= classes
+
+
+def test_each_record_group_has_a_title_with_label_text_and_bounds(tmp_path, capsys):
+    out = tmp_path / "demo.svg"
+    run(capsys, "render", "--demo", "-o", str(out))
+    root = ET.parse(out).getroot()
+    titles = [g.find(f"{SVG}title").text for g in root.iter(f"{SVG}g")
+              if g.get("class") == "record"]
+    [perrin] = [t for t in titles if t.startswith("Aldous Perrin")]
+    assert "written: c. 1608 – 1671" in perrin
+    assert "possible: 1603-01-01 to 1671-12-31" in perrin
+
+
+def test_hostile_labels_are_escaped_end_to_end(tmp_path, capsys):
+    table = tmp_path / "hostile.csv"
+    table.write_text(
+        'name,start,end,group\n'
+        '"<script>alert(1)</script>",1650,1660,"<g onload=alert(1)>"\n'
+        '"javascript:alert(1)",1655,1670,"&amp; &lt;"\n'
+        '"\u202eevil \U0001F600 \x07bell",1660,1680,x\n', encoding="utf-8")
+    out = tmp_path / "hostile.svg"
+    assert run(capsys, "render", str(table), "-o", str(out))[0] == 0
+    text = out.read_text(encoding="utf-8")
+    root = ET.fromstring(text.encode("utf-8"))            # still well-formed
+    assert "<script" not in text and "foreignObject" not in text
+    assert not any(name.startswith("on") for e in root.iter() for name in e.attrib)
+    assert not any("href" in name for e in root.iter() for name in e.attrib)
+    labels = [t.text for t in root.iter(f"{SVG}text") if "label" in (t.get("class") or "")]
+    assert "<script>alert(1)</script>" in labels           # shown as text, not markup
+
+
+def test_colour_column_gets_a_palette_key_in_the_legend(tmp_path, capsys):
+    table = tmp_path / "colour.csv"
+    table.write_text("name,start,end,workshop\nA,1650,1660,North\nB,1655,1670,Quay\n"
+                     "C,1660,1680,North\n", encoding="utf-8")
+    out = tmp_path / "colour.svg"
+    assert run(capsys, "render", str(table), "--color", "workshop", "-o", str(out))[0] == 0
+    root = ET.parse(out).getroot()
+    legend = [t.text for t in root.iter(f"{SVG}text") if t.get("class") == "legend-text"]
+    assert legend[-2:] == ["North", "Quay"]
+    fills = {r.get("fill") for r in root.iter(f"{SVG}rect") if r.get("class") == "core"}
+    # Okabe & Ito (2008) blue and orange, the first two of the default palette
+    assert {"#0072b2", "#e69f00"} <= {f.lower() for f in fills if f}

@@ -1,8 +1,11 @@
 """The compiled Scene, checked on numbers: where each part of a span is drawn."""
 from __future__ import annotations
 
+import pytest
+
 from timelines.calendar import fixed_from_gregorian as day
 from timelines.chart import build_scene, chart_scale
+from timelines.encodings import SEAM_OVERLAP
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
 from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Text, find, walk
 from timelines.theme import DEFAULT_THEME
@@ -33,8 +36,8 @@ def test_core_spans_latest_start_to_earliest_end_and_fringes_the_windows():
     assert core.x == scale.x(day(1650, 12, 31))
     assert core.x + core.width == scale.x(day(1700, 1, 1))
     start_fringe, end_fringe = parts(group, GradientRect, "fringe")
-    assert (start_fringe.x, start_fringe.x + start_fringe.width) == (
-        scale.x(day(1650, 1, 1)), scale.x(day(1650, 12, 31)))
+    assert (start_fringe.x, start_fringe.x + start_fringe.width) == pytest.approx(
+        (scale.x(day(1650, 1, 1)), scale.x(day(1650, 12, 31)) + SEAM_OVERLAP))
     assert start_fringe.opacity_left < start_fringe.opacity_right == 1.0
     assert end_fringe.x + end_fringe.width == scale.x(day(1700, 12, 31))
     assert end_fringe.opacity_left == 1.0 > end_fringe.opacity_right

@@ -24,13 +24,14 @@ def test_core_is_a_solid_rect_from_low_to_high():
 def test_fade_on_a_start_window_is_faint_at_its_earliest_bound():
     [fade] = marks.fade(EndWindow(10, 20, "start"), SCALE, LANE, STYLE)
     assert isinstance(fade, GradientRect)
-    assert (fade.x, fade.width) == (70.0, 20.0)
+    # x(10) .. x(20), reaching SEAM_OVERLAP under the core so no light seam shows
+    assert (fade.x, fade.width) == (70.0, 20.0 + marks.SEAM_OVERLAP)
     assert (fade.opacity_left, fade.opacity_right) == (0.1, 1.0)
 
 
 def test_fade_on_an_end_window_is_faint_at_its_latest_bound():
     [fade] = marks.fade(EndWindow(40, 60, "end"), SCALE, LANE, STYLE)
-    assert (fade.x, fade.width) == (130.0, 40.0)
+    assert (fade.x, fade.width) == (130.0 - marks.SEAM_OVERLAP, 40.0 + marks.SEAM_OVERLAP)
     assert (fade.opacity_left, fade.opacity_right) == (1.0, 0.1)
 
 

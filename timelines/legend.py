@@ -79,7 +79,8 @@ def _sample(key: str, theme: Theme, color: str):
             return (marks.bound_bracket(3, "after", scale, box, style)
                     + marks.fade(EndWindow(3, 10, "end"), scale, box, style))
         if key == "likely":
-            return marks.likely_tick(5, scale, box, style)
+            return (marks.fade(EndWindow(0, 10, "start"), scale, box, style)
+                    + marks.likely_tick(6, scale, box, style))
         if key == "point":
             return marks.point_marker(5, scale, box, style)
         if key == "point window":

@@ -169,11 +169,12 @@ def test_xlsx_sheet_by_name_number_and_case(tmp_path):
 
 def test_xlsx_missing_sheet_lists_the_sheets(tmp_path):
     path = write_workbook(tmp_path / "founders.xlsx")
-    with pytest.raises(SourceError) as caught:
+    # a sheet name is the user's option: a usage error (exit 2), not a fault of the file
+    with pytest.raises(UsageError) as caught:
         read_table(path, sheet="Peple")
     assert str(caught.value) == "founders.xlsx: no sheet 'Peple'; the sheets are 'Notes', 'People'"
     assert caught.value.hint == "did you mean 'People'?"
-    with pytest.raises(SourceError, match="no sheet '3'"):
+    with pytest.raises(UsageError, match="no sheet '3'"):
         read_table(path, sheet="3")
 
 

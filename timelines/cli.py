@@ -162,6 +162,7 @@ def _print_problems(problems) -> None:
         print(problem, file=sys.stderr)
 
 
+
 def run_check(args, parser) -> int:
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args))
     loaded = read_records(args.input, options)
@@ -169,9 +170,8 @@ def run_check(args, parser) -> int:
     if args.json:
         print(json.dumps(report.as_dict(), ensure_ascii=False, indent=2))
     else:
-        _print_problems(loaded.problems)
-        for warning in report.warnings:
-            print(warning)
+        for line in report.lines():     # the report is this command's output: stdout
+            print(line)
         print(report.summary())
     return 1 if report.not_drawn else 0
 

@@ -145,8 +145,9 @@ def _sheet_name(file_name: str, names: list[str], wanted: str | int | None) -> s
     if wanted.isdigit() and 1 <= int(wanted) <= len(names):
         return names[int(wanted) - 1]
     listed = ", ".join(repr(name) for name in names)
-    raise SourceError(f"{file_name}: no sheet {wanted!r}; the sheets are {listed}",
-                      hint=did_you_mean(wanted, names) or "a sheet number counts from 1")
+    # the sheet is the user's option, not a fault of the file: a usage error
+    raise UsageError(f"{file_name}: no sheet {wanted!r}; the sheets are {listed}",
+                     hint=did_you_mean(wanted, names) or "a sheet number counts from 1")
 
 
 def _spreadsheet_value(value: object) -> object:

@@ -97,3 +97,22 @@ def test_unknown_stretch_is_a_paler_fade_inside_a_dashed_outline():
     assert isinstance(fade, GradientRect) and (fade.x, fade.x + fade.width) == (130.0, 250.0)
     assert fade.opacity_left < 1.0 and fade.opacity_right < fade.opacity_left
     assert top.dash and bottom.dash and (top.y1, bottom.y1) == (LANE.y, LANE.y + LANE.height)
+
+
+def test_hatch_lines_stay_inside_the_window_at_45_degrees():
+    fill, *lines = marks.hatch(EndWindow(10, 30, "start"), SCALE, LANE, STYLE)
+    assert isinstance(fill, Rect) and (fill.x, fill.width) == (70.0, 40.0) and fill.opacity < 1
+    assert len(lines) >= 40 / marks.HATCH_SPACING
+    for line in lines:
+        assert 70.0 <= min(line.x1, line.x2) and max(line.x1, line.x2) <= 110.0
+        assert LANE.y <= min(line.y1, line.y2) and max(line.y1, line.y2) <= LANE.y + LANE.height
+        assert abs(abs(line.x2 - line.x1) - abs(line.y2 - line.y1)) < 1e-9   # 45 degrees
+
+
+def test_dots_thin_out_toward_the_far_bound():
+    for side, far_is_left in (("start", True), ("end", False)):
+        squares = marks.dots(EndWindow(10, 60, side), SCALE, LANE, STYLE)
+        assert squares and all(70.0 <= s.x and s.x + s.width <= 170.0 + 1e-9 for s in squares)
+        left = sum(1 for s in squares if s.x < 120.0)
+        right = len(squares) - left
+        assert (left < right) if far_is_left else (right < left)

@@ -82,7 +82,55 @@ def whisker(window: EndWindow, scale: TimeScale, lane: LaneBox, style: MarkStyle
     ]
 
 
-FRINGES: dict[str, Encoder] = {"fade": fade, "whisker": whisker}
+HATCH_SPACING = 4.0   # px between hatch lines, measured along the bar
+
+
+def hatch(window: EndWindow, scale: TimeScale, lane: LaneBox, style: MarkStyle) -> list[Primitive]:
+    """A pale fill crossed by diagonal lines: 'possibly' as a texture, readable in greyscale
+    and on a photocopy, where a fade can vanish."""
+    x_low, x_high = scale.x(window.low), scale.x(window.high)
+    if x_high - x_low <= 0:
+        return []
+    parts: list[Primitive] = [Rect(x_low, lane.y, x_high - x_low, lane.height, style.color,
+                                   opacity=0.25, css_class="fringe")]
+    bottom, rise = lane.y + lane.height, lane.height
+    # Each line runs up at 45 degrees from (start, bottom) to (start + rise, top); keep the
+    # part of it whose x lies inside the window.
+    start = x_low - rise
+    while start < x_high:
+        t0, t1 = max(0.0, x_low - start), min(rise, x_high - start)
+        if t1 > t0:
+            parts.append(Line(start + t0, bottom - t0, start + t1, bottom - t1, style.color, 1.0,
+                              css_class="fringe"))
+        start += HATCH_SPACING
+    return parts
+
+
+def dots(window: EndWindow, scale: TimeScale, lane: LaneBox, style: MarkStyle) -> list[Primitive]:
+    """Stippling that thins out toward the far bound: dense where the window meets the core,
+    sparse at the far end, so density reads as likelihood without relying on tone."""
+    x_low, x_high = scale.x(window.low), scale.x(window.high)
+    width = x_high - x_low
+    if width <= 0:
+        return []
+    size, rows = 1.6, max(int(lane.height // 3), 1)
+    row_step = lane.height / rows
+    parts: list[Primitive] = []
+    travelled = 0.0     # distance from the near end (the core side)
+    column = 0
+    while travelled < width:
+        x = x_high - travelled - size if window.side == "start" else x_low + travelled
+        x = min(max(x, x_low), x_high - size)
+        for row in range(rows):
+            y = lane.y + row * row_step + (row_step - size) / 2
+            if (row + column) % 2 == 0 or travelled < width / 3:
+                parts.append(Rect(x, y, size, size, style.color, css_class="fringe"))
+        travelled += 2.5 + 6.0 * (travelled / width)   # the gap grows toward the far bound
+        column += 1
+    return parts
+
+
+FRINGES: dict[str, Encoder] = {"fade": fade, "whisker": whisker, "hatch": hatch, "dots": dots}
 
 
 def fringe_encoder(name: str) -> Encoder:

@@ -14,6 +14,8 @@ ENTRIES = (
     ("core", "certain: the span surely covers this"),
     ("fringe:fade", "possible: the date lies somewhere in the fading part"),
     ("fringe:whisker", "possible: the date lies somewhere on the thin line"),
+    ("fringe:hatch", "possible: the date lies somewhere in the hatched part"),
+    ("fringe:dots", "possible: the date lies somewhere in the dotted part"),
     ("open", "open: runs on beyond the chart"),
     ("unknown", "not recorded: could lie anywhere in the dashed part"),
     ("before", "before: no later than the bracket"),
@@ -61,6 +63,7 @@ def _legend(entries, color_key, theme: Theme, top: float, width: float):
 def _sample(key: str, theme: Theme, color: str):
     """A small picture of one mark, drawn by the same encoder the chart uses."""
     style = MarkStyle(color, theme.fringe_far_opacity, theme.text_color, theme.small_font_size)
+    fringe = marks.fringe_encoder(theme.fringe)   # bound and likely samples use the chart's
 
     def draw(x: float, box: LaneBox) -> list[Primitive]:
         scale = TimeScale(0.0, 10.0, x, x + SWATCH)
@@ -73,13 +76,13 @@ def _sample(key: str, theme: Theme, color: str):
         if key == "unknown":
             return marks.unknown_stretch(EndWindow(0, 10, "end"), scale, box, style)
         if key == "before":
-            return (marks.fade(EndWindow(0, 7, "start"), scale, box, style)
+            return (fringe(EndWindow(0, 7, "start"), scale, box, style)
                     + marks.bound_bracket(7, "before", scale, box, style))
         if key == "after":
             return (marks.bound_bracket(3, "after", scale, box, style)
-                    + marks.fade(EndWindow(3, 10, "end"), scale, box, style))
+                    + fringe(EndWindow(3, 10, "end"), scale, box, style))
         if key == "likely":
-            return (marks.fade(EndWindow(0, 10, "start"), scale, box, style)
+            return (fringe(EndWindow(0, 10, "start"), scale, box, style)
                     + marks.likely_tick(6, scale, box, style))
         if key == "point":
             return marks.point_marker(5, scale, box, style)

@@ -20,7 +20,8 @@ from timelines.calendar import (
     fixed_from_julian, gregorian_from_fixed, jdn_from_fixed,
 )
 from timelines.scale import (
-    MONTH_ABBREVIATIONS, TickUnit, TimeScale, choose_unit, nice_domain, tick_years, ticks,
+    MONTH_ABBREVIATIONS, TickUnit, TimeScale, before_present_label, choose_unit, nice_domain,
+    tick_years, ticks,
 )
 
 MONTH_NUMBERS = {abbreviation: i + 1 for i, abbreviation in enumerate(MONTH_ABBREVIATIONS)}
@@ -305,3 +306,25 @@ def test_nice_domain_holds_the_data_and_ends_on_major_ticks(start, length, max_t
     assert low < start and start + length < high
     days = [t.day for t in ticks(TimeScale(low, high, 0, 1000), **options)]
     assert days[0] == low and days[-1] == high
+
+
+# --- years before present ---------------------------------------------------------------------
+
+def test_before_present_ticks_count_back_from_1950():
+    # "Present" is AD 1950 in radiocarbon reporting (Stuiver & Polach 1977, from memory).
+    scale = TimeScale(fixed_from_calendar(-12000, 1, 1, GREGORIAN),
+                      fixed_from_calendar(1000, 1, 1, GREGORIAN), 0, 1000)
+    found = ticks(scale, era="bp", calendar=GREGORIAN)
+    assert [t.label for t in found] == ["12,000 BP", "10,000 BP", "8000 BP", "6000 BP",
+                                        "4000 BP", "2000 BP"]
+    # 2000 BP is 50 BCE: astronomical year 1950 - 2000 = -50
+    assert found[-1].day == fixed_from_calendar(-50, 1, 1, GREGORIAN)
+
+
+@pytest.mark.parametrize("years, text", [
+    (0, "0 BP"), (5500, "5500 BP"), (12500, "12,500 BP"), (120_000, "120 ka"),
+    (1_750_000, "1.75 Ma"), (65_500_000, "65.5 Ma"),
+])
+def test_before_present_labels_switch_to_ka_and_ma(years, text):
+    # ka and Ma as archaeologists and geologists write them: common practice, no source.
+    assert before_present_label(years) == text

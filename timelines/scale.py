@@ -34,7 +34,10 @@ from .calendar import (
     gregorian_from_fixed, julian_from_fixed, year_label,
 )
 
-ERAS = ("bce", "bc", "astronomical")
+ERAS = ("bce", "bc", "astronomical", "bp")
+# Radiocarbon convention: "present" is AD 1950 (Stuiver & Polach 1977, "Discussion: reporting
+# of 14C data", Radiocarbon 19(3), from memory).
+PRESENT_YEAR = 1950
 MONTH_ABBREVIATIONS = ("Jan", "Feb", "Mar", "Apr", "May", "Jun",
                        "Jul", "Aug", "Sep", "Oct", "Nov", "Dec")
 # Mean Gregorian year and month, only for estimating how many ticks a unit gives.
@@ -229,6 +232,9 @@ def tick_years(step: int, first: int, last: int, era: str = "bce") -> list[int]:
     following the module's rule for the era boundary (no year zero in `bce`/`bc` styles)."""
     if era == "astronomical":
         return list(range(_ceil_div(first, step) * step, last + 1, step))
+    if era == "bp":   # round numbers of years before 1950
+        k_low, k_high = _ceil_div(PRESENT_YEAR - last, step), (PRESENT_YEAR - first) // step
+        return [PRESENT_YEAR - k * step for k in range(k_high, k_low - 1, -1)]
     # BCE side: astronomical 1 - k*step for k >= 1, within [first, last].
     k_low, k_high = max(1, _ceil_div(1 - last, step)), (1 - first) // step
     years = [1 - k * step for k in range(k_high, k_low - 1, -1)]
@@ -276,12 +282,32 @@ def _date_from_fixed(fixed: int, calendar: str) -> tuple[int, int, int]:
 
 def _date_year_text(year: int, era: str) -> str:
     # In "Apr 5" or "12 Apr 5" a bare small year reads as a day: mark CE years below 1000.
+    # Days and months are never counted before present; they keep the BCE/CE labels.
+    era = "bce" if era == "bp" else era
     return _year_text(year, era, mark_common_era=0 < year < 1000)
+
+
+def before_present_label(years: int) -> str:
+    """'5500 BP', '12,500 BP', '120 ka', '65 Ma': thousands (ka) from 100,000 years and
+    millions (Ma) from 1,000,000, as archaeologists and geologists write them (common practice,
+    no source)."""
+    if abs(years) >= 1_000_000:
+        return f"{years / 1_000_000:g} Ma"
+    if abs(years) >= 100_000:
+        return f"{years / 1000:g} ka"
+    return f"{years:,} BP" if abs(years) >= 10_000 else f"{years} BP"
+
+
+def year_text(year: int, era: str = "bce") -> str:
+    """A year as an axis or a summary writes it, in any of ERAS."""
+    return _year_text(year, era, mark_common_era=False)
 
 
 def _year_text(year: int, era: str, *, mark_common_era: bool) -> str:
     """Year label via `calendar.year_label`, with thousands separators from 10,000 on
     (four-digit years are written without: common practice, no source)."""
+    if era == "bp":
+        return before_present_label(PRESENT_YEAR - year)
     text = re.sub(r"\d{5,}", lambda m: f"{int(m.group()):,}", year_label(year, era))
     if mark_common_era and year > 0 and era != "astronomical":
         return f"{text} CE" if era == "bce" else f"AD {text}"

@@ -7,17 +7,26 @@ from __future__ import annotations
 from dataclasses import dataclass, field, replace
 
 # Okabe & Ito (2008), "Color Universal Design": eight colours distinguishable under the common
-# forms of colour-vision deficiency. Black is kept last: it is the text colour here.
+# forms of colour-vision deficiency. Ordered so that the first five also differ in lightness
+# (CIE L* at least 10 apart), and stay apart when printed in greyscale.
 OKABE_ITO = (
     "#0072B2",  # blue
     "#E69F00",  # orange
     "#009E73",  # bluish green
-    "#CC79A7",  # reddish purple
+    "#000000",  # black
+    "#F0E442",  # yellow
     "#56B4E9",  # sky blue
     "#D55E00",  # vermillion
-    "#F0E442",  # yellow
-    "#000000",  # black
+    "#CC79A7",  # reddish purple
 )
+# Paul Tol, "Colour Schemes", SRON technical note SRON/EPS/TN/09-002 (2021): qualitative
+# schemes for colour-blind readers (values from memory; grey, his "bad data" colour, left out).
+TOL_BRIGHT = ("#4477AA", "#EE6677", "#228833", "#CCBB44", "#66CCEE", "#AA3377")
+TOL_VIBRANT = ("#0077BB", "#EE7733", "#009988", "#CC3311", "#33BBEE", "#EE3377")
+TOL_MUTED = ("#332288", "#88CCEE", "#44AA99", "#117733", "#999933", "#DDCC77", "#CC6677",
+             "#882255", "#AA4499")
+PALETTES = {"okabe-ito": OKABE_ITO, "tol-bright": TOL_BRIGHT, "tol-vibrant": TOL_VIBRANT,
+            "tol-muted": TOL_MUTED}
 
 
 @dataclass(frozen=True, slots=True)
@@ -57,14 +66,26 @@ class Theme:
 DEFAULT_THEME = Theme()
 
 
-def text_color_on(fill: str) -> str:
-    """Black or white, whichever reads better on `fill` (WCAG relative luminance)."""
+def relative_luminance(fill: str) -> float:
+    """WCAG 2.x relative luminance of a `#rrggbb` colour (the Y of CIE XYZ, 0..1)."""
     red, green, blue = (int(fill[i:i + 2], 16) / 255 for i in (1, 3, 5))
 
     def linear(c: float) -> float:
-        # sRGB transfer function, WCAG 2.x definition of relative luminance.
+        # the sRGB transfer function (IEC 61966-2-1)
         return c / 12.92 if c <= 0.04045 else ((c + 0.055) / 1.055) ** 2.4
 
-    luminance = 0.2126 * linear(red) + 0.7152 * linear(green) + 0.0722 * linear(blue)
+    return 0.2126 * linear(red) + 0.7152 * linear(green) + 0.0722 * linear(blue)
+
+
+def lightness(fill: str) -> float:
+    """CIE 1976 L* (0 black .. 100 white): how light a colour looks, what greyscale keeps."""
+    y = relative_luminance(fill)
+    f = y ** (1 / 3) if y > (6 / 29) ** 3 else y / (3 * (6 / 29) ** 2) + 4 / 29
+    return 116 * f - 16
+
+
+def text_color_on(fill: str) -> str:
+    """Black or white, whichever reads better on `fill` (WCAG contrast ratio)."""
+    luminance = relative_luminance(fill)
     # Contrast with white is (1.05)/(L+0.05); with black (L+0.05)/0.05; pick the larger.
     return "#ffffff" if 1.05 / (luminance + 0.05) >= (luminance + 0.05) / 0.05 else "#000000"

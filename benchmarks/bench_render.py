@@ -1,0 +1,94 @@
+"""Rendering speed and size: N spans end to end to SVG and PNG, against matplotlib's own
+`broken_barh` drawing the same bars in the same run (DESIGN.md §6, issue 5).
+
+    python benchmarks/bench_render.py [N]        (default 100,000)
+
+Prints seconds, bytes and the ratios ours / matplotlib's. A script, not a test: timings on a
+shared machine are noisy, so compare the ratios printed by one run.
+"""
+from __future__ import annotations
+
+import os
+import random
+import sys
+import tempfile
+import time
+from pathlib import Path
+
+from timelines.calendar import fixed_from_gregorian
+from timelines.chart import build_scene, write
+from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
+from timelines.scene import GradientRect, Rect, walk
+
+DPI = 150.0
+
+
+def make_records(n: int, seed: int = 1) -> list[Record]:
+    """Invented spans: years 1500-1900, a quarter approximate, some open or unknown."""
+    rng = random.Random(seed)
+    records = []
+    for i in range(n):
+        start = rng.randint(1500, 1880)
+        end = start + rng.randint(1, 60)
+        qualifiers = frozenset({Qualifier.APPROXIMATE}) if i % 4 == 0 else frozenset()
+        first = Endpoint(fixed_from_gregorian(start, 1, 1), fixed_from_gregorian(start, 12, 31),
+                         Precision.YEAR, qualifiers)
+        last = (Endpoint.open(Qualifier.UNKNOWN_END) if i % 50 == 0 else
+                Endpoint(fixed_from_gregorian(end, 1, 1), fixed_from_gregorian(end, 12, 31),
+                         Precision.YEAR))
+        records.append(Record(f"Person {i}", Span(first, last), Provenance("bench", i + 2),
+                              group=f"Group {i % 8}"))
+    return records
+
+
+def timed(action) -> float:
+    began = time.perf_counter()
+    action()
+    return time.perf_counter() - began
+
+
+def bar_rows(scene) -> dict[tuple[float, float], list[tuple[float, float]]]:
+    """Every bar part of our scene (core and fringe rectangles), grouped by lane row."""
+    rows: dict[tuple[float, float], list[tuple[float, float]]] = {}
+    for item in walk(scene.children):
+        if isinstance(item, (Rect, GradientRect)) and item.width > 0:
+            rows.setdefault((item.y, item.height), []).append((item.x, item.width))
+    return rows
+
+
+def matplotlib_bars(scene, rows, path: Path, dpi: float) -> None:
+    """The same bars at the same places on a page of the same size, drawn by matplotlib's
+    broken_barh (one call per lane row), without fades, labels, axis or legend."""
+    from matplotlib.figure import Figure
+
+    figure = Figure(figsize=(scene.width / 96, scene.height / 96))
+    axes = figure.add_axes((0, 0, 1, 1))
+    axes.set_xlim(0, scene.width)
+    axes.set_ylim(scene.height, 0)
+    axes.set_axis_off()
+    for (y, height), spans in rows.items():
+        axes.broken_barh(spans, (y, height), facecolors="#0072B2")
+    metadata = {"Date": None} if path.suffix == ".svg" else {"Software": None}
+    figure.savefig(path, dpi=dpi, metadata=metadata)
+
+
+def main() -> None:
+    n = int(sys.argv[1]) if len(sys.argv) > 1 else 100_000
+    records = make_records(n)
+    folder = Path(tempfile.mkdtemp())
+    print(f"{n:,} spans")
+    scene = build_scene(records)
+    rows = bar_rows(scene)
+    print(f"page {scene.width:.0f} x {scene.height:.0f} px, {sum(map(len, rows.values())):,} bars")
+    for suffix in (".svg", ".png"):
+        ours, theirs = folder / f"ours{suffix}", folder / f"theirs{suffix}"
+        # ours end to end: layout and scene included, as a user's run
+        our_time = timed(lambda: write(build_scene(records), ours, dpi=DPI))
+        their_time = timed(lambda: matplotlib_bars(scene, rows, theirs, DPI))
+        our_size, their_size = os.path.getsize(ours), os.path.getsize(theirs)
+        print(f"{suffix[1:]}: ours {our_time:.2f} s, {our_size / 1e6:.1f} MB; "
+              f"matplotlib broken_barh {their_time:.2f} s, {their_size / 1e6:.1f} MB; "
+              f"time ratio {our_time / their_time:.2f}, size ratio {our_size / their_size:.2f}")
+
+if __name__ == "__main__":
+    main()

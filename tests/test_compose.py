@@ -125,3 +125,14 @@ def test_bc_axis_labels_have_no_year_zero():
     labels = [t.text for t in find(build_scene(recs), "tick-label")]
     assert any(label.endswith("BCE") for label in labels)
     assert "0" not in labels and "0 BCE" not in labels
+
+
+def test_an_end_window_reaching_back_past_the_start_is_drawn_from_the_start():
+    # 562 BC (astronomical -561) to "6th century BC": the end cannot lie before the start
+    start = Endpoint(day(-561, 1, 1), day(-561, 12, 31), Precision.YEAR)
+    end = Endpoint(day(-598, 1, 1), day(-499, 12, 31), Precision.CENTURY)
+    rec = record("Sapir II", start, end)
+    [group] = records_in(build_scene([rec]))
+    scale = chart_scale([rec], DEFAULT_THEME)
+    shapes = [p for p in walk(group.children) if isinstance(p, (Rect, GradientRect))]
+    assert min(s.x for s in shapes) == pytest.approx(scale.x(day(-561, 1, 1)), abs=SEAM_OVERLAP)

@@ -83,7 +83,7 @@ def chart_scale(dated: list[Record], theme: Theme) -> TimeScale:
     bounds = [day for r in dated for day in (r.span.start.earliest, r.span.start.latest,
                                              r.span.end.earliest, r.span.end.latest)
               if day is not None]
-    low, high = nice_domain(min(bounds), max(bounds))
+    low, high = nice_domain(min(bounds), max(bounds), era=theme.era)
     left = theme.margin + group_column_width(dated, theme)
     return TimeScale(low, high, left, theme.width - theme.margin)
 

@@ -9,12 +9,12 @@ from dataclasses import dataclass, field
 from typing import Callable
 
 from . import encodings as marks
-from .calendar import gregorian_year_from_fixed, iso_from_fixed, year_label
+from .calendar import gregorian_year_from_fixed, iso_from_fixed
 from .encodings import EndWindow, LaneBox, MarkStyle
 from .layout import GroupPlacement, Placement, PlacedRecord
 from .legend import legend_and_notes
 from .model import Qualifier, Record, Span
-from .scale import TimeScale, ticks
+from .scale import TimeScale, ticks, year_text
 from .scene import Group, Line, Primitive, Scene, Text
 from .textsize import text_width
 from .theme import Theme, text_color_on
@@ -49,6 +49,10 @@ def drawn_span(span: Span, domain: tuple[float, float]) -> DrawnSpan:
         a = b = low_edge
     if end.is_open:
         c = d = high_edge
+    # A span cannot end before it starts: an end window reaching back past the earliest start
+    # (562 BC to '6th century BC') is drawn from that start, and a start window no later
+    # than the latest end.
+    c, b = max(c, a), min(b, d)
     clip = lambda day: min(max(day, low_edge), high_edge)  # noqa: E731 - one-line clamp
     has_core = span.certain_core is not None and clip(b) <= clip(c)
     return DrawnSpan(clip(a), clip(b), clip(c), clip(d), start.is_open, end.is_open, has_core)
@@ -267,8 +271,8 @@ def _bound(day: int | None) -> str:
 
 def describe(placement: Placement, scale: TimeScale, theme: Theme, text: ChartText) -> str:
     drawn = sum(len(group.records) for group in placement.groups)
-    first = year_label(gregorian_year_from_fixed(int(scale.start)), theme.era)
-    last = year_label(gregorian_year_from_fixed(int(scale.end)), theme.era)
+    first = year_text(gregorian_year_from_fixed(int(scale.start)), theme.era)
+    last = year_text(gregorian_year_from_fixed(int(scale.end)), theme.era)
     names = [g.name for g in placement.groups if g.name]
     groups = f" in {len(names)} groups ({', '.join(names)})" if names else ""
     undated = f"; {len(text.undated)} undated, listed below the chart" if text.undated else ""

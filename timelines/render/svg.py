@@ -35,9 +35,15 @@ _COLOUR = re.compile(r"#[0-9a-fA-F]{3}(?:[0-9a-fA-F]{3})?|[a-zA-Z]{1,40}")
 _FONT_NAME_UNSAFE = re.compile(r"[^\w \-]")
 
 
-def render_svg(scene: Scene) -> str:
-    """The scene as a complete SVG document (with XML declaration)."""
-    context = _Context(_new_drawing(scene))
+TEXT_MODES = ("text", "paths")
+
+
+def render_svg(scene: Scene, *, text: str = "text") -> str:
+    """The scene as a complete SVG document (with XML declaration).
+
+    `text="paths"` draws every text as glyph outlines instead of `<text>` (for print shops
+    without the font); labels stay readable in each record's `<title>`."""
+    context = _Context(_new_drawing(scene), outlines=_choice(text, TEXT_MODES) == "paths")
     for item in scene.children:
         _draw_into(context.drawing, item, context)
     if not context.gradients:
@@ -45,9 +51,9 @@ def render_svg(scene: Scene) -> str:
     return XML_DECLARATION + context.drawing.tostring() + "\n"
 
 
-def write_svg(scene: Scene, path: str | Path) -> None:
+def write_svg(scene: Scene, path: str | Path, *, text: str = "text") -> None:
     """Write the scene to `path` as UTF-8 SVG with LF line ends on every platform."""
-    Path(path).write_bytes(render_svg(scene).encode("utf-8"))
+    Path(path).write_bytes(render_svg(scene, text=text).encode("utf-8"))
 
 
 @dataclass(slots=True)
@@ -56,6 +62,7 @@ class _Context:
 
     drawing: svgwrite.Drawing
     gradients: dict[tuple[str, int, int], str] = field(default_factory=dict)
+    outlines: bool = False          # draw text as glyph outlines
 
 
 def _new_drawing(scene: Scene) -> svgwrite.Drawing:
@@ -169,6 +176,8 @@ def _draw_text(text: Text, context: _Context):
     content = drawable_text(text.text)
     if not content:
         return None
+    if context.outlines:
+        return _draw_text_outline(text, content, context)
     element = context.drawing.text(
         content, insert=(_number(text.x), _number(text.y)), font_size=_number(text.size),
     )
@@ -179,6 +188,21 @@ def _draw_text(text: Text, context: _Context):
         element["font-weight"] = _choice(text.weight, ("normal", "bold"))
     if text.style != "normal":
         element["font-style"] = _choice(text.style, ("normal", "italic", "oblique"))
+    if text.fill.lower() not in ("#000000", "#000", "black"):
+        element["fill"] = _colour(text.fill)
+    _set_common(element, 1.0, text.css_class)
+    return element
+
+
+def _draw_text_outline(text: Text, content: str, context: _Context):
+    from .outlines import outliner   # fontTools only when outlines are asked for
+
+    weight = _choice(text.weight, ("normal", "bold"))
+    anchor = _choice(text.anchor, ("start", "middle", "end"))
+    data = outliner(weight).path_data(content, text.x, text.y, text.size, anchor)
+    if not data:
+        return None     # only spaces
+    element = context.drawing.path(d=data)
     if text.fill.lower() not in ("#000000", "#000", "black"):
         element["fill"] = _colour(text.fill)
     _set_common(element, 1.0, text.css_class)

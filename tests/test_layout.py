@@ -14,8 +14,8 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from timelines.layout import (
-    NO_GROUP, GroupPlacement, Placement, PlacedRecord, group_records, max_overlap_depth,
-    pack_lanes, place,
+    LEFT_OUT, NO_GROUP, GroupPlacement, Placement, PlacedRecord, densest_moment, first_fit,
+    group_records, max_overlap_depth, most_that_fit, pack_lanes, place,
 )
 from timelines.model import Endpoint, Provenance, Qualifier, Record, Span
 
@@ -158,6 +158,85 @@ def test_invalid_boxes_are_rejected(boxes, gap):
         pack_lanes(boxes, gap)
     with pytest.raises(ValueError):
         max_overlap_depth(boxes, gap)
+
+
+@given(st.lists(box, max_size=60), gaps)
+def test_first_fit_in_start_order_is_the_compact_packing(boxes, gap):
+    # Taken by start, the lowest lane whose last box ended before is the lowest free lane.
+    order = sorted(range(len(boxes)), key=lambda i: boxes[i][0])
+    lanes = first_fit([boxes[i] for i in order], gap)
+    assert lanes == [pack_lanes(boxes, gap)[i] for i in order]
+
+
+@given(st.lists(box, max_size=40), gaps)
+def test_first_fit_in_any_order_never_overlaps(boxes, gap):
+    assert lanes_are_disjoint(boxes, first_fit(boxes, gap), gap)
+
+
+def fits_in_lane(candidate, others, gap) -> bool:
+    return all(candidate[0] > o[1] + gap or o[0] > candidate[1] + gap for o in others)
+
+
+@given(st.lists(small_grid_box, max_size=12), gaps, st.integers(1, 3))
+def test_first_fit_respects_taken_boxes_and_the_lane_limit(boxes, gap, limit):
+    pinned, rest = boxes[: len(boxes) // 3], boxes[len(boxes) // 3:]
+    fixed = [(b, lane) for b, lane in zip(pinned, pack_lanes(pinned, gap)) if lane < limit]
+    lanes = first_fit(rest, gap, taken=fixed, max_lanes=limit)
+    placed = fixed + [(b, lane) for b, lane in zip(rest, lanes) if lane != LEFT_OUT]
+    assert all(0 <= lane < limit for _, lane in placed)
+    assert lanes_are_disjoint([b for b, _ in placed], [lane for _, lane in placed], gap)
+    for b, lane in zip(rest, lanes):         # left out only when no lane had room
+        if lane == LEFT_OUT:
+            assert not any(fits_in_lane(b, [o for o, at in placed if at == candidate], gap)
+                           for candidate in range(limit))
+
+
+def most_by_brute_force(boxes, gap, lanes) -> int:
+    # A set fits in k lanes exactly when at most k of its boxes share a point (the clique
+    # bound of interval graphs, checked by the brute-force partition test above).
+    for size in range(len(boxes), 0, -1):
+        for subset in itertools.combinations(boxes, size):
+            if depth_by_points(list(subset), gap) <= lanes:
+                return size
+    return 0
+
+
+@settings(max_examples=300)
+@given(st.lists(small_grid_box, max_size=8), gaps, st.integers(1, 3))
+def test_most_that_fit_keeps_as_many_as_brute_force(boxes, gap, lanes):
+    keep = most_that_fit(boxes, gap, lanes)
+    kept = [b for b, k in zip(boxes, keep) if k]
+    assert depth_by_points(kept, gap) <= lanes if kept else True
+    assert len(kept) == most_by_brute_force(boxes, gap, lanes)
+
+
+@given(st.lists(box, min_size=1, max_size=60), gaps)
+def test_densest_moment_holds_that_many_boxes_throughout(boxes, gap):
+    moment = densest_moment(boxes, gap)
+    assert moment.depth == depth_by_points(boxes, gap)
+    assert moment.start <= moment.end
+    for point in (moment.start, (moment.start + moment.end) / 2, moment.end):
+        assert sum(1 for s, e in boxes if s <= point <= e + gap) == moment.depth
+
+
+def test_densest_moment_of_a_small_case():
+    # [0, 10], [2, 6], [4, 8]: all three share 4..6.
+    moment = densest_moment([(0, 10), (2, 6), (4, 8)])
+    assert (moment.depth, moment.start, moment.end) == (3, 4.0, 6.0)
+    assert densest_moment([]).depth == 0
+
+
+def test_two_hundred_thousand_boxes_pack_in_seconds():
+    # The sweep is O(n log n); a quadratic slip would take minutes here.
+    import random
+    import time
+    rng = random.Random(7)
+    boxes = [(s, s + rng.expovariate(1 / 400)) for s in
+             (rng.uniform(0, 3.65e5) for _ in range(200_000))]
+    began = time.perf_counter()
+    lanes = pack_lanes(boxes)
+    assert time.perf_counter() - began < 5.0
+    assert max(lanes) + 1 == max_overlap_depth(boxes)
 
 
 # --- group_records ---------------------------------------------------------------------------

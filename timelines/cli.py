@@ -1,13 +1,19 @@
-"""Command line: `timelines render | parse | check`. Thin over the API; one error reporter.
+"""Command line: `timelines render | parse | check | lanes`. Thin over the API; one error
+reporter.
 
-Exit codes: 0 success, 1 the input had errors (the chart is still written unless --strict),
-2 usage errors.
+Exit codes: 0 success, 1 the input had errors or rows were left out (the chart is still
+written unless --strict), 2 usage errors.
+
+Settings: `render`, `check` and `lanes` read `--config FILE` (TOML, keys are the long option
+names); an option on the command line wins over the file, the file over the default, and
+`--print-config` shows each effective setting and where it came from (see `config`).
 """
 from __future__ import annotations
 
 import argparse
 import contextlib
 import json
+import os
 import sys
 from dataclasses import replace
 from importlib import resources
@@ -15,15 +21,28 @@ from pathlib import Path
 
 from . import __version__
 from .calendar import CALENDARS
-from .chart import ChartOptions, read_records, render
+from . import lanes as lane_report
+from .chart import ChartOptions, LaneSettings, arrange, read_records, render
 from .check import check
+from .config import apply_settings, config_lines, parse_distance
 from .dates import DEFAULT_SETTINGS, DateSettings, describe
 from .encodings import FRINGES
 from .errors import TimelineError, UsageError
+from .layout import GROUP_ORDERS, LABEL_MODES, PACKINGS, SORT_KEYS
 from .sources import ColumnMap
 from .theme import DEFAULT_THEME
 
 DEMO = "fenwold-organ-builders.csv"
+ERAS = ("bce", "bc", "astronomical")
+LANE_DEFAULTS = LaneSettings()
+# Options that say what to run or where output goes, not how: never read from a config file.
+NOT_SETTINGS = frozenset({"help", "input", "output", "demo", "config", "print_config", "json",
+                          "format", "command", "debug", "version", "text"})
+CONFIG_COMMANDS = ("render", "check", "lanes")
+UNSET = {**{part: "found from the header names" for part in
+            ("start", "end", "when", "label", "group", "color", "id")},
+         "sheet": "the first sheet", "subgroup": "none", "lane-column": "none",
+         "max-lanes": "no limit"}
 
 
 class _Parser(argparse.ArgumentParser):
@@ -41,15 +60,20 @@ def build_parser() -> argparse.ArgumentParser:
 
     draw = commands.add_parser("render", help="draw a table of dated records as SVG, PNG or PDF")
     draw.add_argument("input", nargs="?", help="CSV, TSV, XLSX or ODS file")
-    draw.add_argument("-o", "--output", required=True, help="OUT.svg, OUT.png or OUT.pdf")
+    draw.add_argument("-o", "--output", help="OUT.svg, OUT.png or OUT.pdf")
     draw.add_argument("--demo", action="store_true", help="use the bundled demo table")
     _table_options(draw)
+    _lane_options(draw)
     draw.add_argument("--title", default="", help="chart title")
-    draw.add_argument("--fringe", choices=sorted(FRINGES), help="how possible parts are drawn")
-    draw.add_argument("--era", choices=("bce", "bc", "astronomical"), help="year labels")
-    draw.add_argument("--width", type=float, help="chart width in px (default 960)")
+    draw.add_argument("--fringe", choices=sorted(FRINGES), default=DEFAULT_THEME.fringe,
+                      help=f"how possible parts are drawn (default {DEFAULT_THEME.fringe})")
+    draw.add_argument("--era", choices=ERAS, default=DEFAULT_THEME.era, help="year labels")
+    draw.add_argument("--width", type=float, default=DEFAULT_THEME.width,
+                      help=f"chart width in px (default {DEFAULT_THEME.width:g})")
     draw.add_argument("--dpi", type=float, default=150.0, help="PNG resolution (default 150)")
-    draw.add_argument("--strict", action="store_true", help="write nothing if any row fails")
+    draw.add_argument("--strict", action="store_true",
+                      help="write nothing if any row is not drawn")
+    _config_options(draw)
 
     read = commands.add_parser("parse", help="show how date texts are read")
     read.add_argument("text", nargs="*", help="date texts; stdin lines when none are given")
@@ -57,9 +81,25 @@ def build_parser() -> argparse.ArgumentParser:
     _date_options(read)
 
     validate = commands.add_parser("check", help="report what cannot be read in a table")
-    validate.add_argument("input", help="CSV, TSV, XLSX or ODS file")
+    validate.add_argument("input", nargs="?", help="CSV, TSV, XLSX or ODS file")
     validate.add_argument("--json", action="store_true", help="the report as JSON")
     _table_options(validate)
+    _config_options(validate)
+
+    report = commands.add_parser("lanes", help="show how records are grouped and packed "
+                                               "into lanes")
+    report.add_argument("input", nargs="?", help="CSV, TSV, XLSX or ODS file")
+    report.add_argument("--demo", action="store_true", help="use the bundled demo table")
+    report.add_argument("--format", choices=("table", "csv", "json"), default="table",
+                        help="a table per group (default), or one row per record: "
+                             "row,id,group,lane,box_start,box_end")
+    _table_options(report)
+    _lane_options(report)
+    report.add_argument("--era", choices=ERAS, default=DEFAULT_THEME.era, help="year labels")
+    report.add_argument("--width", type=float, default=DEFAULT_THEME.width,
+                        help=f"chart width in px (default {DEFAULT_THEME.width:g}): "
+                             "labels and page distances take room by it")
+    _config_options(report)
     return parser
 
 
@@ -74,15 +114,96 @@ def _table_options(parser: argparse.ArgumentParser) -> None:
     _date_options(parser)
 
 
+def _lane_options(parser: argparse.ArgumentParser) -> None:
+    lanes = parser.add_argument_group("lanes")
+    defaults = LANE_DEFAULTS
+    lanes.add_argument("--subgroup", metavar="COL", help="column nesting groups inside --group")
+    for level in ("group", "subgroup"):
+        lanes.add_argument(f"--{level}-order", metavar="ORDER", type=_group_order_text,
+                           default=defaults.group_order,
+                           help=f"{level} order: first (earliest start, the default), name, "
+                                f"size (largest first), or {level} names separated by commas")
+    for level in ("group", "subgroup"):
+        lanes.add_argument(f"--min-{level}-size", metavar="N", type=_count(0),
+                           default=getattr(defaults, f"min_{level}_size"),
+                           help=f"merge {level}s of fewer than N records into one "
+                                "(see --other-group)")
+    lanes.add_argument("--other-group", metavar="NAME", default=defaults.other_group,
+                       help=f"name of the merged small groups (default {defaults.other_group})")
+    lanes.add_argument("--pack", choices=PACKINGS, default=defaults.pack,
+                       help="compact: fewest lanes (default); ordered: keep the --sort order "
+                            "top to bottom; single: one record per lane")
+    lanes.add_argument("--sort", metavar="KEY", default=defaults.sort,
+                       help=f"{', '.join(SORT_KEYS)} (default start) or a column")
+    lanes.add_argument("--descending", action="store_true", help="sort from the largest")
+    lanes.add_argument("--lane-gap", metavar="DISTANCE", type=_distance_text,
+                       default=defaults.lane_gap,
+                       help="least space between bars in one lane: a time (5y, 6mo, 30d) or a "
+                            f"page distance (4px, 1mm); default {defaults.lane_gap}")
+    lanes.add_argument("--lane-column", metavar="COL",
+                       help="column of lane numbers (1, 2, ...) pinning records to a lane")
+    lanes.add_argument("--max-lanes", metavar="N", type=_count(1),
+                       help="at most N lanes a group; records that find no room are "
+                            "listed and not drawn")
+    lanes.add_argument("--labels", choices=LABEL_MODES, default=defaults.labels,
+                       help="beside: inside the bar when it fits, else beside it (default); "
+                            "inside: inside or only in the tooltip, for the most compact "
+                            "lanes; none: tooltips only")
+
+
+def _config_options(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("--config", metavar="FILE",
+                        help="TOML file of settings; keys are the long option names")
+    parser.add_argument("--print-config", action="store_true",
+                        help="print the effective settings and where each came from, and stop")
+
+
+def _group_order_text(text: str) -> str:
+    if not text.strip():
+        raise argparse.ArgumentTypeError(f"give {', '.join(GROUP_ORDERS)} or group names "
+                                         "separated by commas")
+    return text
+
+
+def _distance_text(text: str) -> str:
+    try:
+        parse_distance(text)
+    except UsageError as error:
+        raise argparse.ArgumentTypeError(f"{error} ({error.hint})") from None
+    return text
+
+
+def _count(least: int):
+    def count(text: str) -> int:
+        try:
+            number = int(text)
+        except ValueError:
+            number = least - 1
+        if number < least:
+            raise argparse.ArgumentTypeError(f"expected a whole number >= {least}, "
+                                             f"not {text!r}")
+        return number
+    count.__name__ = "number"
+    return count
+
+
 def _date_options(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("--calendar", choices=CALENDARS,
                         help="calendar of free-text dates (default: historical)")
 
 
 def main(argv: list[str] | None = None) -> int:
+    argv = sys.argv[1:] if argv is None else list(argv)
     parser = build_parser()
     args = parser.parse_args(argv)
     with _reporting(args.debug) as outcome:
+        if args.command in CONFIG_COMMANDS:
+            settings = apply_settings(build_parser, argv, args, CONFIG_COMMANDS, NOT_SETTINGS)
+            if args.print_config:
+                print(f"# timelines {args.command}: effective settings "
+                      "(command line over config file over default)")
+                print("\n".join(config_lines(settings.values(), UNSET)))
+                return 0
         outcome.code = COMMANDS[args.command](args, parser)
     return outcome.code
 
@@ -105,6 +226,9 @@ def _reporting(debug: bool):
             raise
         _print_error(error)
         outcome.code = 1
+    except BrokenPipeError:
+        # The reader stopped early (`timelines lanes ... | head`): not an error of ours.
+        sys.stdout = open(os.devnull, "w")
     except OSError as error:
         if debug:
             raise
@@ -128,33 +252,80 @@ def _columns(args) -> ColumnMap:
                      group=args.group, color=args.color, id=args.id)
 
 
+def _lane_settings(args) -> LaneSettings:
+    return LaneSettings(
+        subgroup=args.subgroup, group_order=args.group_order,
+        subgroup_order=args.subgroup_order, min_group_size=args.min_group_size,
+        min_subgroup_size=args.min_subgroup_size,
+        other_group=args.other_group, pack=args.pack, sort=args.sort,
+        descending=args.descending, lane_gap=args.lane_gap, lane_column=args.lane_column,
+        max_lanes=args.max_lanes, labels=args.labels)
+
+
 def _input_path(args, parser) -> Path:
-    if args.demo:
+    if getattr(args, "demo", False):
         if args.input:
             parser.error("give either INPUT or --demo, not both")
         return Path(str(resources.files("timelines") / "demo" / DEMO))
     if not args.input:
-        parser.error("render needs INPUT (a CSV, TSV, XLSX or ODS file) or --demo")
+        demo = " or --demo" if hasattr(args, "demo") else ""
+        parser.error(f"{args.command} needs INPUT (a CSV, TSV, XLSX or ODS file){demo}")
     return Path(args.input)
 
 
 def run_render(args, parser) -> int:
     if args.when and (args.start or args.end):
         parser.error("give either --when or --start/--end, not both")
+    if not args.output:
+        parser.error("render needs -o OUT.svg, OUT.png or OUT.pdf")
     theme = DEFAULT_THEME.with_options(fringe=args.fringe, era=args.era, width=args.width)
     title = args.title or ("The Fenwold organ builders, 1600–1720 (invented demo data)"
                            if args.demo else "")
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args),
-                           theme=theme, title=title, strict=args.strict, dpi=args.dpi)
+                           theme=theme, title=title, strict=args.strict, dpi=args.dpi,
+                           lanes=_lane_settings(args))
     result = render(_input_path(args, parser), args.output, options)
-    _print_problems(result.loaded.problems)
-    _print_problems(result.report.warnings)
-    print(result.report.summary(), file=sys.stderr)
+    _print_run(result.arranged, args, theme.era)
     if result.written is None:
         print("error: nothing written (--strict and some rows were not drawn)", file=sys.stderr)
     else:
         print(f"wrote {result.written}", file=sys.stderr)
-    return 1 if result.report.not_drawn else 0
+    return 1 if result.arranged.not_drawn else 0
+
+
+def _print_run(arranged, args, era: str) -> None:
+    """Every problem, warning and layout note on stderr, then the summary line."""
+    _print_problems(arranged.loaded.problems)
+    _print_problems(arranged.report.warnings)
+    placement = arranged.placement
+    for line in lane_report.note_lines(placement.notes if placement else (), era):
+        print(line, file=sys.stderr)
+    print(arranged.summary(args.max_lanes), file=sys.stderr)
+    hidden = sum(s.labels_left_out for s in lane_report.group_summaries(placement)
+                 if s.densest is not None) if placement else 0
+    if hidden:
+        labels = "1 label did not fit, is" if hidden == 1 else f"{hidden} labels did not fit, are"
+        print(f"note: {labels} kept in the tooltips only ('timelines lanes' counts them by "
+              "group; --width gives more room)", file=sys.stderr)
+
+
+def run_lanes(args, parser) -> int:
+    if args.when and (args.start or args.end):
+        parser.error("give either --when or --start/--end, not both")
+    theme = DEFAULT_THEME.with_options(era=args.era, width=args.width)
+    options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args),
+                           theme=theme, lanes=_lane_settings(args))
+    arranged = arrange(_input_path(args, parser), options)
+    _print_run(arranged, args, theme.era)
+    if arranged.placement is None:
+        raise TimelineError("nothing to lay out: no row has a usable date")
+    if args.format == "csv":
+        lane_report.write_csv(arranged.placement, sys.stdout)
+    elif args.format == "json":
+        lane_report.write_json(arranged.placement, sys.stdout)
+    else:
+        print("\n".join(lane_report.summary_lines(arranged.placement, theme.era)))
+    return 1 if arranged.not_drawn else 0
 
 
 def _print_problems(problems) -> None:
@@ -165,7 +336,7 @@ def _print_problems(problems) -> None:
 
 def run_check(args, parser) -> int:
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args))
-    loaded = read_records(args.input, options)
+    loaded = read_records(_input_path(args, parser), options)
     report = check(loaded)
     if args.json:
         print(json.dumps(report.as_dict(), ensure_ascii=False, indent=2))
@@ -196,6 +367,6 @@ def _plain(result: dict) -> str:
     return f"{result['input']}: {earliest} .. {latest} ({result['precision']}{qualifiers})"
 
 
-COMMANDS = {"render": run_render, "parse": run_parse, "check": run_check}
+COMMANDS = {"render": run_render, "parse": run_parse, "check": run_check, "lanes": run_lanes}
 
 __all__ = ["main", "build_parser"]

@@ -19,6 +19,8 @@ from .scene import Group, Line, Primitive, Scene, Text
 from .textsize import text_width
 from .theme import Theme, text_color_on
 
+SUBGROUP_INDENT = 10.0      # px: subgroup names sit a little right of their group's header
+
 
 @dataclass(frozen=True, slots=True)
 class DrawnSpan:
@@ -102,30 +104,122 @@ def title_height(title: str, theme: Theme) -> float:
 
 
 def _draw_groups(placement, scale, theme, top, color_of, seen):
+    """Each group's lanes top to bottom, a separator line between groups. A group with
+    subgroups gets a header row of its own, then its subgroups with their names at the left
+    and a lighter, dashed separator between them."""
     items: list[Primitive] = []
     y = top
+    captions = _Captions(scale.x0 - theme.margin - 12, theme,
+                         named=any(group.name for group in placement.groups))
     for index, group in enumerate(placement.groups):
         if index:
             items.append(Line(theme.margin, y - theme.group_gap / 2, theme.width - theme.margin,
                               y - theme.group_gap / 2, theme.separator_color, 1.0,
                               css_class="separator"))
-        items.append(_group_block(group, index, scale, theme, y, color_of, seen))
-        y += max(group.lanes, 1) * theme.lane_height + theme.group_gap
+        block, y = _group_block(group, f"group-{index + 1}", scale, theme, y, color_of, seen,
+                                captions)
+        items.append(block)
+        y += theme.group_gap
     return items, y - theme.group_gap
 
 
-def _group_block(group: GroupPlacement, index: int, scale, theme, y, color_of, seen) -> Group:
+@dataclass(frozen=True, slots=True)
+class _Captions:
+    """How group names are written at the left: within `width`, "(none)" for records with
+    no group when other groups have names."""
+
+    width: float
+    theme: Theme
+    named: bool
+
+    def text(self, name: str, width: float | None = None, weight: str = "normal") -> str:
+        shown = name or ("(none)" if self.named else "")
+        return fit_text(shown, self.theme.group_label_size, width or self.width, weight)
+
+
+def _group_block(group: GroupPlacement, element_id: str, scale, theme, y, color_of, seen,
+                 captions: _Captions) -> tuple[Group, float]:
+    """The group's primitives and the y below its last lane."""
+    if not group.subgroups:
+        children, y = _lanes(group, scale, theme, y, color_of, seen,
+                             captions.text(group.name, weight="bold"), "group-label", 0.0)
+        return Group(tuple(children), css_class=f"group group-{slug(group.name or 'all')}",
+                     id=element_id), y
+    header = _caption(theme.margin, y, captions.text(group.name, theme.width - 2 * theme.margin,
+                                                     "bold"), theme, "bold", "group-label")
+    children: list[Primitive] = [_with_title(header, group)]
+    y += theme.lane_height
+    sub_captions = _Captions(captions.width - SUBGROUP_INDENT, theme,
+                             named=any(sub.name for sub in group.subgroups))
+    gap = theme.group_gap / 2
+    for index, subgroup in enumerate(group.subgroups):
+        if index:
+            children.append(Line(theme.margin + SUBGROUP_INDENT, y + gap / 2,
+                                 theme.width - theme.margin, y + gap / 2, theme.separator_color,
+                                 0.75, dash=(3.0, 3.0), css_class="subgroup-separator"))
+            y += gap
+        lanes, y = _lanes(subgroup, scale, theme, y, color_of, seen,
+                          sub_captions.text(subgroup.name), "subgroup-label", SUBGROUP_INDENT)
+        children.append(Group(tuple(lanes), id=f"{element_id}-{index + 1}",
+                              css_class=f"subgroup subgroup-{slug(subgroup.name or 'none')}"))
+    return Group(tuple(children), css_class=f"group group-{slug(group.name or 'all')}",
+                 id=element_id), y
+
+
+def _lanes(group: GroupPlacement, scale, theme, y, color_of, seen, caption: str,
+           caption_class: str, indent: float) -> tuple[list[Primitive], float]:
     children: list[Primitive] = []
-    if group.name:
-        children.append(Text(theme.margin, y + theme.lane_height / 2 + theme.group_label_size * 0.36,
-                             group.name, theme.group_label_size, weight="bold",
-                             fill=theme.text_color, css_class="group-label"))
+    if caption:
+        label = _caption(theme.margin + indent, y, caption, theme,
+                         "bold" if caption_class == "group-label" else "normal", caption_class)
+        children.append(_with_title(label, group))
     for placed in group.records:
         lane_top = y + placed.lane * theme.lane_height
         box = LaneBox(lane_top + (theme.lane_height - theme.bar_height) / 2, theme.bar_height)
         children.append(draw_record(placed, scale, theme, box, color_of(placed.record), seen.used))
-    return Group(tuple(children), css_class=f"group group-{slug(group.name or 'all')}",
-                 id=f"group-{index + 1}")
+    y += max(group.lanes, 1) * theme.lane_height
+    if group.left_out:
+        children.append(_left_out_row(group.left_out, scale, theme, y))
+        y += theme.lane_height
+    return children, y
+
+
+def _caption(x: float, y: float, text: str, theme: Theme, weight: str, css_class: str) -> Text:
+    return Text(x, y + theme.lane_height / 2 + theme.group_label_size * 0.36, text,
+                theme.group_label_size, weight=weight, fill=theme.text_color, css_class=css_class)
+
+
+def _with_title(caption: Text, group: GroupPlacement) -> Primitive:
+    """A caption, inside a group whose tooltip names the small groups merged into it."""
+    if not group.merged:
+        return caption
+    return Group((caption,), css_class="group-header",
+                 title=f"{group.name}: {', '.join(group.merged)} (small groups merged)")
+
+
+def _left_out_row(records: tuple[Record, ...], scale, theme, y: float) -> Group:
+    """A row under the lanes saying which records found no room in them; all in the tooltip."""
+    names = [f"{r.label} (row {r.provenance.row})" for r in records]
+    text = f"{len(records)} more not drawn, no room left in these lanes: {', '.join(names)}"
+    line = Text(scale.x0, y + theme.lane_height / 2 + theme.small_font_size * 0.36,
+                fit_text(text, theme.small_font_size, scale.x1 - scale.x0), theme.small_font_size,
+                style="italic", fill=theme.muted_color, css_class="left-out")
+    return Group((line,), css_class="left-out", title="Not drawn, no room left:\n"
+                 + "\n".join(names))
+
+
+def fit_text(text: str, size: float, width: float, weight: str = "normal") -> str:
+    """`text`, cut short with an ellipsis where it would be wider than `width` px."""
+    if text_width(text, size, weight) <= width:
+        return text
+    low, high = 0, len(text)          # the longest prefix that fits with "…" after it
+    while low < high:
+        middle = (low + high + 1) // 2
+        if text_width(text[:middle].rstrip() + "…", size, weight) <= width:
+            low = middle
+        else:
+            high = middle - 1
+    return text[:low].rstrip() + "…" if low else ""
 
 
 def draw_record(placed: PlacedRecord, scale: TimeScale, theme: Theme, box: LaneBox, color: str,
@@ -270,7 +364,7 @@ def _bound(day: int | None) -> str:
 
 
 def describe(placement: Placement, scale: TimeScale, theme: Theme, text: ChartText) -> str:
-    drawn = sum(len(group.records) for group in placement.groups)
+    drawn = sum(len(group.records) for _, group in placement.leaves())
     first = year_text(gregorian_year_from_fixed(int(scale.start)), theme.era)
     last = year_text(gregorian_year_from_fixed(int(scale.end)), theme.era)
     names = [g.name for g in placement.groups if g.name]

@@ -1,0 +1,205 @@
+"""`timelines lanes`: how the records were grouped and packed, to read or to reuse.
+
+- `summary_lines(placement, era)`: a table with one row per group (and subgroup): the
+  records drawn, the lanes they take, the fewest lanes any packing could use (the most boxes
+  that share one moment) and when that moment is, the labels left out of the picture;
+- `record_rows(placement)`: one row per record, `row,id,group,lane,box_start,box_end` (with
+  `subgroup` after `group` when there are subgroups): the lane counted from 1 within its
+  group, as `--lane-column` reads it back, and the box the record occupies in fixed day
+  numbers (R.D.), fractions allowed. Records with no lane (undated, or left out for lack of
+  room) have an empty lane; undated ones an empty box too.
+"""
+from __future__ import annotations
+
+import csv
+import json
+from collections.abc import Iterable, Iterator
+from dataclasses import dataclass
+from operator import attrgetter
+from typing import TextIO
+
+from .calendar import gregorian_year_from_fixed, iso_from_fixed
+from .layout import Density, GroupPlacement, LayoutNote, Placement, densest_moment
+from .scale import year_text
+
+RECORD_COLUMNS = ("row", "id", "group", "lane", "box_start", "box_end")
+# A chart spanning less than this many days gives its moments as dates, not years.
+SHORT_CHART_DAYS = 20 * 365
+NOTES_PER_GROUP = 20
+
+
+@dataclass(frozen=True, slots=True)
+class GroupSummary:
+    path: tuple[str, ...]       # group, or group and subgroup
+    records: int                # drawn in its lanes
+    lanes: int
+    fewest: int                 # no packing of these boxes takes fewer lanes
+    densest: Density | None     # None for a group whose subgroups hold the lanes
+    labels_left_out: int        # kept in the tooltips only
+    left_out: int               # records with no room within the lanes allowed
+    merged: tuple[str, ...] = ()
+
+
+def group_summaries(placement: Placement) -> list[GroupSummary]:
+    rows: list[GroupSummary] = []
+    for group in placement.groups:
+        if not group.subgroups:
+            rows.append(_leaf_summary((group.name,), group, placement.gap))
+            continue
+        leaves = [_leaf_summary((group.name, sub.name), sub, placement.gap)
+                  for sub in group.subgroups]
+        rows.append(GroupSummary((group.name,), sum(r.records for r in leaves), group.lanes,
+                                 sum(r.fewest for r in leaves), None,
+                                 sum(r.labels_left_out for r in leaves),
+                                 sum(r.left_out for r in leaves), group.merged))
+        rows += leaves
+    return rows
+
+
+def _leaf_summary(path: tuple[str, ...], group: GroupPlacement, gap: float) -> GroupSummary:
+    density = densest_moment([(p.box_start, p.box_end) for p in group.records], gap)
+    hidden = sum(1 for p in group.records if p.label_side == "none" and p.record.label)
+    return GroupSummary(path, len(group.records), group.lanes, density.depth, density, hidden,
+                        len(group.left_out), group.merged)
+
+
+def summary_lines(placement: Placement, era: str = "bce") -> list[str]:
+    """The table of groups, then a line for each merged group, then what the columns mean."""
+    summaries = group_summaries(placement)
+    in_days = placement.domain[1] - placement.domain[0] < SHORT_CHART_DAYS
+    header = ("group", "records", "lanes", "fewest possible", "densest moment",
+              "labels left out")
+    rows = [(_group_cell(s), str(s.records), str(s.lanes), str(s.fewest),
+             _densest_cell(s.densest, era, in_days), str(s.labels_left_out))
+            for s in summaries]
+    leaves = [s for s in summaries if s.densest is not None]
+    rows.append(("all", str(sum(s.records for s in leaves)), str(placement.lanes),
+                 str(sum(s.fewest for s in leaves)), "", str(sum(s.labels_left_out
+                                                                 for s in leaves))))
+    lines = _aligned([header, *rows], right=(1, 2, 3, 5))
+    for s in summaries:
+        where = _where(s.path)
+        if s.merged:
+            lines.append(f"{where} holds the small groups {', '.join(s.merged)}")
+        if s.left_out and s.densest is not None:
+            lines.append(f"{where}: {s.left_out} more not drawn for lack of room "
+                         "(listed on stderr)")
+    lines.append("fewest possible: no packing needs fewer lanes; it is the most boxes (bar, "
+                 "marks, label beside) that share one moment, the densest moment")
+    return lines
+
+
+def _where(path: tuple[str, ...]) -> str:
+    return " / ".join(repr(name) if name else "(none)" for name in path)
+
+
+def _group_cell(summary: GroupSummary) -> str:
+    name = summary.path[-1] or "(none)"
+    return ("  " + name) if len(summary.path) > 1 else name
+
+
+def _densest_cell(density: Density | None, era: str, in_days: bool) -> str:
+    if density is None or density.depth == 0:
+        return ""
+    return (f"{period_text(density.start, density.end, era, in_days)}: "
+            f"{density.depth} at once")
+
+
+def period_text(start: float, end: float, era: str = "bce", in_days: bool = False) -> str:
+    """A stretch of fixed days as a reader says it: years, or ISO dates `in_days` (for a
+    chart spanning a few years, where a year says too little)."""
+    if in_days:
+        first, last = iso_from_fixed(int(start // 1)), iso_from_fixed(int(end // 1))
+    else:
+        first = year_text(gregorian_year_from_fixed(int(start // 1)), era)
+        last = year_text(gregorian_year_from_fixed(int(end // 1)), era)
+    return first if first == last else f"{first}–{last}"
+
+
+def _aligned(rows: list[tuple[str, ...]], right: tuple[int, ...]) -> list[str]:
+    widths = [max(len(row[i]) for row in rows) for i in range(len(rows[0]))]
+    return ["  ".join(cell.rjust(widths[i]) if i in right else cell.ljust(widths[i])
+                      for i, cell in enumerate(row)).rstrip() for row in rows]
+
+
+def note_lines(notes: Iterable[LayoutNote], era: str = "bce",
+               most: int = NOTES_PER_GROUP) -> list[str]:
+    """A line for each note, at most `most` records left out of each group and then one line
+    saying how many more: a tight --max-lanes can leave out thousands."""
+    lines: list[str] = []
+    shown: dict[tuple[str, ...], int] = {}
+    for note in notes:
+        if note.kind == "left out":
+            shown[note.path] = shown.get(note.path, 0) + 1
+            if shown[note.path] > most:
+                continue
+        lines.append(note_line(note, era))
+    for path, count in shown.items():
+        if count > most:
+            lines.append(f"... and {count - most} more not drawn in {_where(path)} "
+                         "('timelines lanes --format csv' lists every record, with an empty "
+                         "lane)")
+    return lines
+
+
+def note_line(note: LayoutNote, era: str = "bce") -> str:
+    """One stderr line for a layout note, as problems are printed: `file:row: [id] ...`."""
+    record = note.record
+    who = f" [{record.id}]" if record.id else ""
+    when = period_text(*note.box, era, in_days=note.box[1] - note.box[0] < SHORT_CHART_DAYS)
+    if note.kind == "left out":
+        return f"{record.provenance}:{who} not drawn: {note.reason} ({when})"
+    return f"{record.provenance}:{who} warning: {note.reason}"
+
+
+def record_columns(placement: Placement) -> tuple[str, ...]:
+    if any(group.subgroups for group in placement.groups):
+        return ("row", "id", "group", "subgroup", "lane", "box_start", "box_end")
+    return RECORD_COLUMNS
+
+
+def record_rows(placement: Placement) -> list[dict[str, object]]:
+    """One dict per record: the placed ones by group, lane and box, then those with no lane."""
+    columns = record_columns(placement)
+    return [dict(zip(columns, row)) for row in record_tuples(placement)]
+
+
+def record_tuples(placement: Placement) -> Iterator[tuple]:
+    """The record rows as tuples in the order of `record_columns`; None where empty."""
+    nested = "subgroup" in record_columns(placement)
+    for path, group in placement.leaves():
+        names = path if nested else path[:1]
+        for placed in sorted(group.records, key=_lane_then_start):
+            yield (placed.record.provenance.row, placed.record.id or "", *names,
+                   placed.lane + 1, _day_number(placed.box_start), _day_number(placed.box_end))
+    for note in placement.notes:
+        if note.kind == "left out":
+            names = note.path if nested else note.path[:1]
+            yield (note.record.provenance.row, note.record.id or "", *names, None,
+                   _day_number(note.box[0]), _day_number(note.box[1]))
+    for record in placement.undated:
+        names = (record.group or "", "") if nested else (record.group or "",)
+        yield record.provenance.row, record.id or "", *names, None, None, None
+
+
+_lane_then_start = attrgetter("lane", "box_start")
+
+
+def _day_number(day: float) -> int | float:
+    # Millidays are finer than anything drawn; rounding keeps the output byte-stable.
+    rounded = round(float(day), 3)
+    return int(rounded) if rounded.is_integer() else rounded
+
+
+def write_csv(placement: Placement, stream: TextIO) -> None:
+    writer = csv.writer(stream, lineterminator="\n")
+    writer.writerow(record_columns(placement))
+    # csv writes None as an empty cell
+    writer.writerows(record_tuples(placement))
+
+
+def write_json(placement: Placement, stream: TextIO) -> None:
+    """A JSON array of the record rows, one object a line."""
+    rows = record_rows(placement)
+    stream.write("[\n" + ",\n".join(json.dumps(row, ensure_ascii=False) for row in rows)
+                 + ("\n]\n" if rows else "]\n"))

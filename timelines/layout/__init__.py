@@ -1,0 +1,35 @@
+"""Layout: grouping, ordering, label placement and lane packing, in fixed days. Pure and
+deterministic; imports only the model.
+
+- `packing`: boxes into lanes (the compact sweep, first fit in an order, the most that fit in
+  k lanes) and the densest moment of a set of boxes;
+- `grouping`: records into groups, small groups merged, groups in order;
+- `labels`: inside, beside or left out: where a label goes and the box it makes;
+- `placement`: `place()`, the whole step from records to a `Placement`.
+
+What a record occupies in its lane is its box: the bar as drawn (the caller's `drawn_extent`,
+fringes, open ends and marks beside it included) plus the room of a label beside it; with a
+gap `g`, the box `[start, end]` holds `[start, end + g]`, and boxes in one lane never share a
+point. Under this rule compact packing uses exactly the maximum overlap depth in lanes.
+"""
+from .grouping import (
+    GROUP_ORDERS, NO_GROUP, GroupKey, GroupOrder, UnknownGroup, collect_groups, group_records,
+    merge_small_groups, natural_key, order_groups,
+)
+from .labels import LABEL_MODES, LABEL_SIDES, label_box
+from .packing import (
+    LEFT_OUT, Density, densest_moment, first_fit, max_overlap_depth, most_that_fit, pack_lanes,
+)
+from .placement import (
+    PACKINGS, SORT_KEYS, GroupNode, GroupPlacement, LaneRules, LayoutNote, Placement,
+    PlacedRecord, group_tree, place,
+)
+
+__all__ = [
+    "Density", "GROUP_ORDERS", "GroupKey", "GroupNode", "GroupOrder", "GroupPlacement",
+    "LABEL_MODES", "LABEL_SIDES", "LEFT_OUT", "LaneRules", "LayoutNote", "NO_GROUP", "PACKINGS",
+    "Placement",
+    "PlacedRecord", "SORT_KEYS", "UnknownGroup", "collect_groups", "densest_moment",
+    "first_fit", "group_records", "group_tree", "label_box", "max_overlap_depth",
+    "merge_small_groups", "most_that_fit", "natural_key", "order_groups", "pack_lanes", "place",
+]

@@ -1,0 +1,165 @@
+"""Records into groups: collect by a key, merge the small ones, put them in order.
+
+Orders (`GroupOrder`):
+- "first": by earliest possible start. A record whose start is unbounded (open or unknown
+  start) counts as earlier than any date, undated records as later than any; ties keep the
+  order of first appearance.
+- "name": by name, without case, numbers by value ("Phase 2" before "Phase 10").
+- "size": most records first, ties as in "first".
+- a tuple of names: those groups first, in that order (a name matches exactly, else without
+  case), the rest after them as in "first". A name no group has is an error.
+
+Records inside a group keep input order. Records without a group (the key gives None or "")
+form one group named "" (`NO_GROUP`). Under "name" and "size" it comes after the named
+groups, and the remainder group of merged small groups comes last under every order unless
+an explicit list names it.
+"""
+from __future__ import annotations
+
+import re
+from collections.abc import Callable, Iterable, Sequence
+
+from ..model import Record
+
+NO_GROUP = ""
+GROUP_ORDERS = ("first", "name", "size")
+
+GroupKey = Callable[[Record], str | None]
+GroupOrder = str | tuple[str, ...]
+Groups = list[tuple[str, list[Record]]]
+
+
+class UnknownGroup(ValueError):
+    """An explicit group order names a group that does not occur."""
+
+    def __init__(self, name: str, known: Sequence[str]):
+        self.name = name
+        self.known = tuple(known)
+        listed = ", ".join(repr(known_name) for known_name in self.known if known_name)
+        super().__init__(f"no group {name!r} to put in order; the groups are {listed}")
+
+
+def collect_groups(records: Iterable[Record], key: GroupKey) -> Groups:
+    """Records by `key`, groups in order of first appearance, records in input order."""
+    members: dict[str, list[Record]] = {}
+    for record in records:
+        members.setdefault(key(record) or NO_GROUP, []).append(record)
+    return list(members.items())
+
+
+def group_records(records: Iterable[Record], key: GroupKey, order: GroupOrder = "first"
+                  ) -> Groups:
+    """Records grouped by `key` and the groups put in `order` (see the module notes)."""
+    return order_groups(collect_groups(records, key), order)
+
+
+def merge_small_groups(groups: Groups, min_size: int, other: str
+                       ) -> tuple[Groups, tuple[str, ...]]:
+    """Groups of fewer than `min_size` records merged into one group named `other`.
+
+    Merging needs two small groups at least: one alone keeps its name (calling it `other`
+    would only hide it). A group already named `other` takes the merged records in. Returns
+    the groups, the merged one where the first merged group was, and the merged names."""
+    small = [name for name, members in groups if len(members) < min_size and name != other]
+    if len(small) < 2:
+        return groups, ()
+    merged_names = set(small)
+    result: Groups = []
+    remainder: list[Record] | None = None
+    for name, members in groups:
+        if name in merged_names or name == other:
+            if remainder is None:
+                remainder = []
+                result.append((other, remainder))
+            remainder.extend(members)
+        else:
+            result.append((name, members))
+    return result, tuple(small)
+
+
+def order_groups(groups: Groups, order: GroupOrder, *, last: Iterable[str] = ()) -> Groups:
+    """`groups` in `order`; the names in `last` (a remainder group) go to the end."""
+    last = set(last)
+    if isinstance(order, tuple):
+        return _listed_order(groups, order, last)
+    if order not in GROUP_ORDERS:
+        raise ValueError(f"group order must be one of {', '.join(GROUP_ORDERS)} or a tuple "
+                         f"of names, not {order!r}")
+    firsts = {name: _first_start(members) for name, members in groups}
+    position = {name: index for index, (name, _) in enumerate(groups)}
+
+    def key(group: tuple[str, list[Record]]):
+        name, members = group
+        trailing = name in last or (order != "first" and name == NO_GROUP)
+        if order == "name":
+            return trailing, natural_key(name), position[name]
+        if order == "size":
+            return trailing, -len(members), firsts[name], position[name]
+        return trailing, firsts[name], position[name]
+
+    return sorted(groups, key=key)
+
+
+def _listed_order(groups: Groups, names: tuple[str, ...], last: set[str]) -> Groups:
+    by_name = dict(groups)
+    listed: list[str] = []
+    for wanted in names:
+        name = _matching_name(wanted, [name for name, _ in groups])
+        if name is not None and name not in listed:
+            listed.append(name)
+    rest = [(name, members) for name, members in groups if name not in listed]
+    named_last = last - set(listed)
+    return [(name, by_name[name]) for name in listed] + order_groups(rest, "first",
+                                                                     last=named_last)
+
+
+def _matching_name(wanted: str, names: list[str]) -> str | None:
+    if wanted in names:
+        return wanted
+    folded = [name for name in names if name.casefold() == wanted.casefold()]
+    return folded[0] if len(folded) == 1 else None
+
+
+def check_listed_names(names: tuple[str, ...], known: Iterable[str]) -> None:
+    """Raise UnknownGroup for a listed name that matches none of `known`."""
+    known = list(dict.fromkeys(known))
+    for wanted in names:
+        if _matching_name(wanted, known) is None:
+            raise UnknownGroup(wanted, known)
+
+
+def _first_start(records: list[Record]) -> tuple[int, float]:
+    # Records of one table share Span objects: order each span once.
+    orders = {id(record.span): record for record in records}
+    return min(map(_start_order, orders.values()))
+
+
+def _start_order(record: Record) -> tuple[int, float]:
+    # (0, -) an open start (the span runs on into the past), (1, day) a start bounded by a
+    # date, (2, -) no date at all. An unknown or 'before' start counts from its first known
+    # bound, so one missing birth year does not pull its whole group to the top.
+    if record.span is None:
+        return 2, 0.0
+    start, end = record.span.start, record.span.end
+    if start.is_open:
+        return 0, 0.0
+    known = next((day for day in (start.earliest, start.latest, end.earliest, end.latest)
+                  if day is not None), None)
+    return (0, 0.0) if known is None else (1, float(known))
+
+
+_NUMBER = re.compile(r"[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?")
+_DIGITS = re.compile(r"(\d+)")
+
+
+def natural_key(text: str | None) -> tuple:
+    """Sort key for a cell: numbers by value (1.25 before 1.5), then text with its digit runs
+    by value and case ignored ("Phase 2" before "Phase 10"), then empty cells."""
+    text = (text or "").strip()
+    if not text:
+        return (2,)
+    if _NUMBER.fullmatch(text):
+        return 0, float(text)
+    parts = tuple((0, int(part), "") if part.isdigit() else (1, 0, part.casefold())
+                  for part in _DIGITS.split(text) if part)
+    return 1, parts

@@ -1,0 +1,386 @@
+"""Records into placed groups: group, measure each record's box, order, pin, pack.
+
+All quantities are in days on the time axis; the caller converts label widths and gaps from
+page px to days before calling, and back afterwards.
+
+Packing inside a group (`LaneRules.pack`):
+- "compact": the fewest lanes (boxes by start, each to the lowest free lane); the sort key
+  only breaks ties between equal starts. With `max_lanes`, as many records as possible are
+  kept and the fewest left out.
+- "ordered": records in sort order, each to the first lane where it fits, so the order reads
+  top to bottom; it may take more lanes than compact. With `max_lanes` the records first in
+  the order are kept.
+- "single": one record per lane in sort order.
+
+Sort keys: "start", "end", "duration" (of the drawn bar), "label", or a function giving a
+cell's text (numbers by value, then text, then empty cells); ties go by source row, then
+input position, so the same records in any input order get the same lanes.
+
+A pinned record (`lane_of` gives its lane number, counting from 1 within its group) is put
+there first. A pin that is not a number, lies beyond `max_lanes`, or collides with an earlier
+pinned record is not kept: the record is packed with the others and a note says why. Pins
+take first-fit packing around them, so compact lanes are then no longer guaranteed minimal.
+
+Nothing is dropped silently: a record that finds no lane within `max_lanes` is left out of the
+picture and listed in `Placement.notes` (kind "left out") and in its group's `left_out`.
+"""
+from __future__ import annotations
+
+import math
+from collections.abc import Callable, Iterable, Iterator
+from dataclasses import dataclass, field
+
+from ..model import Record
+from .grouping import (
+    GROUP_ORDERS, GroupKey, GroupOrder, check_listed_names, collect_groups, merge_small_groups,
+    natural_key, order_groups,
+)
+from .labels import LABEL_MODES, label_box
+from .packing import (
+    LEFT_OUT, check_distance, first_fit, max_overlap_depth, most_that_fit, pack_lanes,
+)
+
+PACKINGS = ("compact", "ordered", "single")
+SORT_KEYS = ("start", "end", "duration", "label")
+
+CellKey = Callable[[Record], str | None]
+
+
+@dataclass(frozen=True, slots=True)
+class LaneRules:
+    """How records are grouped below the top level, ordered and packed (module notes)."""
+
+    subgroup_key: GroupKey | None = None
+    group_order: GroupOrder = "first"
+    subgroup_order: GroupOrder = "first"
+    min_group_size: int = 0            # groups with fewer records merge into `other_group`
+    min_subgroup_size: int = 0         # the same inside each group
+    other_group: str = "Other"
+    pack: str = "compact"
+    sort: str | CellKey = "start"
+    descending: bool = False
+    lane_of: CellKey | None = None     # a pinned lane number (1, 2, ...) as text, or None
+    max_lanes: int | None = None
+
+    def __post_init__(self) -> None:
+        if self.pack not in PACKINGS:
+            raise ValueError(f"pack must be one of {', '.join(PACKINGS)}, not {self.pack!r}")
+        if not callable(self.sort) and self.sort not in SORT_KEYS:
+            raise ValueError(f"sort must be one of {', '.join(SORT_KEYS)} or a function, "
+                             f"not {self.sort!r}")
+        for order in (self.group_order, self.subgroup_order):
+            if not isinstance(order, tuple) and order not in GROUP_ORDERS:
+                raise ValueError(f"group order must be one of {', '.join(GROUP_ORDERS)} or a "
+                                 f"tuple of names, not {order!r}")
+        for name in ("min_group_size", "min_subgroup_size"):
+            if getattr(self, name) < 0:
+                raise ValueError(f"{name} must be >= 0, not {getattr(self, name)}")
+        if not self.other_group:
+            raise ValueError("other_group needs a name")
+        if self.max_lanes is not None and self.max_lanes < 1:
+            raise ValueError(f"max_lanes must be at least 1, not {self.max_lanes}")
+
+
+@dataclass(frozen=True, slots=True)
+class PlacedRecord:
+    record: Record
+    lane: int
+    box_start: float
+    box_end: float
+    bar_start: float
+    bar_end: float
+    label_side: str   # "inside", "right", "left" or "none" (left out; keep it in the tooltip)
+
+
+@dataclass(frozen=True, slots=True)
+class GroupPlacement:
+    """A group's lanes. A group with subgroups holds no records itself: its subgroups do,
+    each in lanes of its own, and `lanes` is their sum."""
+
+    name: str
+    lanes: int
+    records: tuple[PlacedRecord, ...]
+    subgroups: tuple["GroupPlacement", ...] = ()
+    merged: tuple[str, ...] = ()           # names of the small groups merged into this one
+    left_out: tuple[Record, ...] = ()      # no room within the lanes allowed
+
+    def leaves(self, path: tuple[str, ...] = ()) -> Iterator[tuple[tuple[str, ...],
+                                                                  "GroupPlacement"]]:
+        """(group path, group) of each group that holds lanes itself, top to bottom."""
+        path = (*path, self.name)
+        if not self.subgroups:
+            yield path, self
+        for subgroup in self.subgroups:
+            yield from subgroup.leaves(path)
+
+
+@dataclass(frozen=True, slots=True)
+class LayoutNote:
+    """Something to report about one record's place."""
+
+    record: Record
+    path: tuple[str, ...]       # its group, and subgroup
+    kind: str                   # "left out" (not drawn) or "pin" (drawn, not where pinned)
+    reason: str
+    box: tuple[float, float]
+
+
+@dataclass(frozen=True, slots=True)
+class Placement:
+    groups: tuple[GroupPlacement, ...]
+    undated: tuple[Record, ...]
+    domain: tuple[float, float]
+    notes: tuple[LayoutNote, ...] = field(default=())
+    gap: float = 0.0            # the least distance kept between boxes in a lane, in days
+
+    @property
+    def lanes(self) -> int:
+        return sum(group.lanes for group in self.groups)
+
+    @property
+    def left_out(self) -> tuple[Record, ...]:
+        return tuple(note.record for note in self.notes if note.kind == "left out")
+
+    def leaves(self) -> Iterator[tuple[tuple[str, ...], GroupPlacement]]:
+        for group in self.groups:
+            yield from group.leaves()
+
+
+@dataclass(frozen=True, slots=True)
+class GroupNode:
+    """A group before packing: its records, or its subgroups."""
+
+    name: str
+    records: tuple[Record, ...]
+    subgroups: tuple["GroupNode", ...] = ()
+    merged: tuple[str, ...] = ()
+
+
+def group_tree(records: Iterable[Record], group_key: GroupKey | None = None,
+               rules: LaneRules = LaneRules()) -> tuple[GroupNode, ...]:
+    """Groups (and subgroups) in order, small ones merged. Raises UnknownGroup for a name in
+    an explicit order that no group has."""
+    records = list(records)
+    top = _ordered_level(records, group_key or (lambda record: None), rules.group_order,
+                         rules.min_group_size, rules.other_group)
+    if rules.subgroup_key is None:
+        return tuple(GroupNode(name, tuple(members), (), merged)
+                     for name, members, merged in top)
+    levels = [(name, _ordered_level(members, rules.subgroup_key, rules.subgroup_order,
+                                    rules.min_subgroup_size, rules.other_group, check=False),
+               merged) for name, members, merged in top]
+    if isinstance(rules.subgroup_order, tuple):
+        known = [rules.subgroup_key(record) or "" for record in records]
+        check_listed_names(rules.subgroup_order, [*known, rules.other_group])
+    return tuple(GroupNode(name, (), tuple(GroupNode(sub, tuple(members), (), sub_merged)
+                                          for sub, members, sub_merged in subs), merged)
+                 for name, subs, merged in levels)
+
+
+def _ordered_level(records: list[Record], key: GroupKey, order: GroupOrder, min_size: int,
+                   other: str, check: bool = True
+                   ) -> list[tuple[str, list[Record], tuple[str, ...]]]:
+    groups = collect_groups(records, key)
+    if check and isinstance(order, tuple):
+        check_listed_names(order, [*(name for name, _ in groups), other])
+    groups, merged = merge_small_groups(groups, min_size, other)
+    last = {other} if merged else set()
+    return [(name, members, merged if name == other else ())
+            for name, members in order_groups(groups, order, last=last)]
+
+
+@dataclass(frozen=True, slots=True)
+class _Measure:
+    domain: tuple[float, float]
+    drawn_extent: Callable[[Record], tuple[float, float]]
+    label_width: Callable[[Record], float]
+    label_pad: float
+    room: Callable[[Record], tuple[float, float] | None]
+    clearance: float
+    mode: str
+
+    def __call__(self, record: Record) -> tuple[float, float, float, float, str]:
+        bar = self.drawn_extent(record)
+        box_start, box_end, side = label_box(record.label, bar, self.label_width(record),
+                                             self.domain, self.label_pad, self.room(record),
+                                             self.clearance, self.mode)
+        return box_start, box_end, bar[0], bar[1], side
+
+
+def place(records: Iterable[Record], *, domain: tuple[float, float],
+          drawn_extent: Callable[[Record], tuple[float, float]],
+          label_width: Callable[[Record], float], group_key: GroupKey | None = None,
+          gap: float = 0.0, label_pad: float = 0.0,
+          inside_room: Callable[[Record], tuple[float, float] | None] | None = None,
+          label_clearance: float = 0.0, labels: str = "beside",
+          rules: LaneRules = LaneRules(), tree: tuple[GroupNode, ...] | None = None
+          ) -> Placement:
+    """Group dated records, place each label, pack each group's boxes into lanes.
+
+    `drawn_extent` gives a record's bar in days (the caller decides how open or unknown ends
+    are drawn); `label_width` its label's width in days; `label_pad` the space in days between
+    a label and the bar's edge (on both sides for a label inside); `inside_room` the part of
+    the bar a label may sit on (for example only the solid core, where text stays legible;
+    None from it: no room inside), the whole bar when not given; `label_clearance` the room
+    kept free on the far side of a label beside its bar; `labels` the label mode ("beside",
+    "inside" or "none", see `labels`); `gap` the least distance in days between boxes in one
+    lane; `tree` the dated records' groups as `group_tree(records, group_key, rules)` made
+    them, when the caller has them already."""
+    low, high = domain
+    if not high > low:
+        raise ValueError(f"domain end {high} must be after its start {low}")
+    check_distance("gap", gap)
+    check_distance("label_pad", label_pad)
+    check_distance("label_clearance", label_clearance)
+    if labels not in LABEL_MODES:
+        raise ValueError(f"labels must be one of {', '.join(LABEL_MODES)}, not {labels!r}")
+    records = list(records)
+    undated = tuple(record for record in records if record.span is None)
+    if tree is None:
+        tree = group_tree((record for record in records if record.span is not None),
+                          group_key, rules)
+    measure = _Measure((low, high), drawn_extent, label_width, label_pad,
+                       inside_room or drawn_extent, label_clearance, labels)
+    notes: list[LayoutNote] = []
+    groups = tuple(_place_node(node, (), measure, gap, rules, notes) for node in tree)
+    return Placement(groups, undated, (low, high), tuple(notes), gap)
+
+
+def _place_node(node: GroupNode, path: tuple[str, ...], measure: _Measure, gap: float,
+                rules: LaneRules, notes: list[LayoutNote]) -> GroupPlacement:
+    path = (*path, node.name)
+    if node.subgroups:
+        subgroups = tuple(_place_node(sub, path, measure, gap, rules, notes)
+                          for sub in node.subgroups)
+        return GroupPlacement(node.name, sum(sub.lanes for sub in subgroups), (), subgroups,
+                              node.merged)
+    records = node.records
+    boxes = [measure(record) for record in records]
+    order = _sorted_indices(records, boxes, rules)
+    pins = _pins(records, boxes, order, gap, rules, path, notes)
+    lanes = _lanes(boxes, order, pins, gap, rules)
+    placed = tuple(PlacedRecord(record, lane, *box) for record, box, lane
+                   in zip(records, boxes, lanes) if lane != LEFT_OUT)
+    left_out = tuple(record for record, lane in zip(records, lanes) if lane == LEFT_OUT)
+    where = f" in {_path_text(path)}" if any(path) else ""
+    for record, box, lane in zip(records, boxes, lanes):
+        if lane == LEFT_OUT:
+            notes.append(LayoutNote(record, path, "left out",
+                                    f"no room within the {rules.max_lanes} lanes allowed{where}",
+                                    (box[0], box[1])))
+    return GroupPlacement(node.name, max(lanes, default=-1) + 1, placed, (), node.merged,
+                          left_out)
+
+
+def _path_text(path: tuple[str, ...]) -> str:
+    return " / ".join(repr(name) if name else "(none)" for name in path)
+
+
+def _sorted_indices(records: tuple[Record, ...], boxes, rules: LaneRules) -> list[int]:
+    """Indices of `records` in sort order; ties by source row, then input position."""
+    places = [(record.provenance.source, record.provenance.row) for record in records]
+    by_row = sorted(range(len(records)), key=places.__getitem__)
+    sort = rules.sort
+    if callable(sort):
+        keys = [natural_key(sort(record)) for record in records]
+    elif sort == "label":
+        keys = [natural_key(record.label) for record in records]
+    elif sort == "duration":
+        keys = [box[3] - box[2] for box in boxes]      # of the drawn bar
+    else:
+        keys = [box[3 if sort == "end" else 2] for box in boxes]
+    # reverse=True keeps sort stability: equal keys stay in row order.
+    return sorted(by_row, key=keys.__getitem__, reverse=rules.descending)
+
+
+def _lanes(boxes, order: list[int], pins: dict[int, int], gap: float,
+           rules: LaneRules) -> list[int]:
+    if rules.pack == "single":
+        return _single_lanes(len(boxes), order, pins, rules.max_lanes)
+    free = [index for index in order if index not in pins]
+    if rules.pack == "compact":
+        free.sort(key=lambda index: boxes[index][0])   # stable: ties stay in sort order
+        if not pins:
+            return _compact_lanes(boxes, free, gap, rules.max_lanes)
+    taken = [((boxes[index][0], boxes[index][1]), lane) for index, lane in pins.items()]
+    found = first_fit([(boxes[index][0], boxes[index][1]) for index in free], gap,
+                      taken=taken, max_lanes=rules.max_lanes)
+    lanes = [LEFT_OUT] * len(boxes)
+    for index, lane in [*zip(free, found), *pins.items()]:
+        lanes[index] = lane
+    return lanes
+
+
+def _compact_lanes(boxes, ordered: list[int], gap: float, max_lanes: int | None) -> list[int]:
+    spans = [(boxes[index][0], boxes[index][1]) for index in ordered]
+    if max_lanes is not None and max_overlap_depth(spans, gap) > max_lanes:
+        keep = most_that_fit(spans, gap, max_lanes)
+        ordered = [index for index, kept in zip(ordered, keep) if kept]
+        spans = [span for span, kept in zip(spans, keep) if kept]
+    lanes = [LEFT_OUT] * len(boxes)
+    for index, lane in zip(ordered, pack_lanes(spans, gap)):
+        lanes[index] = lane
+    return lanes
+
+
+def _single_lanes(count: int, order: list[int], pins: dict[int, int],
+                  max_lanes: int | None) -> list[int]:
+    lanes = [LEFT_OUT] * count
+    taken = set(pins.values())
+    for index, lane in pins.items():
+        lanes[index] = lane
+    limit = math.inf if max_lanes is None else max_lanes
+    lane = 0
+    for index in order:
+        if index in pins:
+            continue
+        while lane in taken:
+            lane += 1
+        if lane < limit:
+            lanes[index] = lane
+            lane += 1
+    return lanes
+
+
+def _pins(records, boxes, order: list[int], gap: float, rules: LaneRules,
+          path: tuple[str, ...], notes: list[LayoutNote]) -> dict[int, int]:
+    """Pinned lane (from 0) of each record that keeps its pin; notes for those that do not."""
+    if rules.lane_of is None:
+        return {}
+    pins: dict[int, int] = {}
+    holders: dict[int, list[int]] = {}
+    for index in order:
+        text = (rules.lane_of(records[index]) or "").strip()
+        if not text:
+            continue
+        lane = _lane_number(text)
+        box = (boxes[index][0], boxes[index][1])
+        if lane is None:
+            reason = f"lane {text!r} is not a lane number (1, 2, ...)"
+        elif rules.max_lanes is not None and lane > rules.max_lanes:
+            reason = f"lane {lane} lies beyond the {rules.max_lanes} lanes allowed"
+        else:
+            holder = next((other for other in holders.get(lane, [])
+                           if rules.pack == "single" or _overlap(box, boxes[other], gap)), None)
+            if holder is None:
+                pins[index] = lane - 1
+                holders.setdefault(lane, []).append(index)
+                continue
+            taken_by = records[holder]
+            reason = (f"lane {lane} is taken there by row {taken_by.provenance.row} "
+                      f"({taken_by.label})")
+        notes.append(LayoutNote(records[index], path, "pin",
+                                f"{reason}; placed with the others", box))
+    return pins
+
+
+def _lane_number(text: str) -> int | None:
+    try:
+        number = float(text)
+    except ValueError:
+        return None
+    return int(number) if number.is_integer() and number >= 1 else None
+
+
+def _overlap(box: tuple[float, float], other, gap: float) -> bool:
+    return not (box[0] > other[1] + gap or other[0] > box[1] + gap)

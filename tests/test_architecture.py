@@ -27,12 +27,12 @@ ALLOWED = {
                 "calendar", "textsize"},
     "render": {"scene"},
     "chart": {"check", "compose", "dates", "errors", "layout", "model", "scale", "scene",
-              "sources", "textsize", "theme", "render", "calendar", "config"},
+              "sources", "textsize", "theme", "render", "calendar", "config", "privacy"},
     "config": {"errors"},                       # stdlib (tomllib, argparse) and errors only
     "lanes": {"calendar", "layout", "scale"},   # the `timelines lanes` report
     "privacy": {"model", "calendar"},           # withholding possibly living persons' details
     "cli": {"chart", "check", "calendar", "dates", "encodings", "errors", "sources", "theme",
-            "__init__", "config", "layout", "lanes"},
+            "__init__", "config", "layout", "lanes", "scene"},
     "__init__": {"dates", "errors", "model"},
     "__main__": {"cli"},
 }

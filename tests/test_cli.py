@@ -189,3 +189,41 @@ def test_colour_column_gets_a_palette_key_in_the_legend(tmp_path, capsys):
     fills = {r.get("fill") for r in root.iter(f"{SVG}rect") if r.get("class") == "core"}
     # Okabe & Ito (2008) blue and orange, the first two of the default palette
     assert {"#0072b2", "#e69f00"} <= {f.lower() for f in fills if f}
+
+
+def test_text_as_paths_and_a_tol_palette(tmp_path, capsys):
+    table = tmp_path / "colour.csv"
+    table.write_text("name,start,end,kind\nA,1650,1660,x\nB,1655,1670,y\n", encoding="utf-8")
+    out = tmp_path / "paths.svg"
+    code, _, _ = run(capsys, "render", str(table), "--color", "kind", "--palette", "tol-bright",
+                     "--text", "paths", "-o", str(out))
+    assert code == 0
+    root = ET.parse(out).getroot()
+    assert not list(root.iter(f"{SVG}text"))
+    fills = {r.get("fill") for r in root.iter(f"{SVG}rect") if r.get("class") == "core"}
+    # Paul Tol's "bright" scheme starts blue, red (SRON/EPS/TN/09-002, from memory)
+    assert {"#4477AA", "#EE6677"} <= {f.upper() for f in fills if f}
+
+
+def test_before_present_axis(tmp_path, capsys):
+    table = tmp_path / "phases.csv"
+    table.write_text("phase,start,end\nHall,c. 4900 BC,4700 BC\nMound,4300 BC,4100 BC\n",
+                     encoding="utf-8")
+    out = tmp_path / "bp.svg"
+    assert run(capsys, "render", str(table), "--era", "bp", "-o", str(out))[0] == 0
+    labels = [t.text for t in ET.parse(out).getroot().iter(f"{SVG}text")
+              if t.get("class") == "tick-label"]
+    assert labels and all(label.endswith(" BP") for label in labels), labels
+
+
+def test_withhold_living_replaces_recent_people_without_a_death(tmp_path, capsys):
+    table = tmp_path / "family.csv"
+    table.write_text("id,name,born,died\nP1,Old Ezra,1850,1920\nP2,Young Ada,1990-05-04,\n",
+                     encoding="utf-8")
+    out = tmp_path / "family.svg"
+    code, _, err = run(capsys, "render", str(table), "--withhold-living", "--as-of", "2026",
+                       "-o", str(out))
+    assert code == 0 and "1 record of possibly living persons" in err
+    text = out.read_text(encoding="utf-8")
+    assert "Young Ada" not in text and "1990-05-04" not in text and "P2" not in text
+    assert "Old Ezra" in text

@@ -23,6 +23,7 @@ from .layout import (
     group_tree, place,
 )
 from .model import Record
+from .privacy import withhold_possibly_living
 from .scale import TimeScale, nice_domain
 from .scene import Scene
 from .sources import ColumnMap, LoadResult, detect_columns, load_records, read_table
@@ -66,6 +67,16 @@ class ChartOptions:
     strict: bool = False
     dpi: float = 150.0
     lanes: LaneSettings = field(default_factory=LaneSettings)
+    text: str = "text"                  # SVG text: "text", or "paths" (glyph outlines)
+    privacy: "Privacy | None" = None    # withhold possibly living persons' details
+
+
+@dataclass(frozen=True, slots=True)
+class Privacy:
+    """Withhold the details of possibly living persons (see `privacy`, docs/privacy.md)."""
+
+    as_of_year: int
+    years: int = 100
 
 
 @dataclass(frozen=True, slots=True)
@@ -77,6 +88,7 @@ class Arranged:
     columns: ColumnMap
     scale: TimeScale | None
     placement: Placement | None
+    withheld: int = 0                   # records shown without their details
 
     @property
     def not_drawn(self) -> int:
@@ -115,7 +127,7 @@ def render(source: str | Path, output: str | Path, options: ChartOptions = Chart
     if options.strict and arranged.not_drawn:
         return RunResult(arranged.loaded, arranged.report, None, None, arranged)
     scene = arranged_scene(arranged, options)               # scene
-    write(scene, output, dpi=options.dpi)                   # draw
+    write(scene, output, dpi=options.dpi, text=options.text)  # draw
     return RunResult(arranged.loaded, arranged.report, scene, output, arranged)
 
 
@@ -123,16 +135,24 @@ def arrange(source: str | Path, options: ChartOptions = ChartOptions()) -> Arran
     table = read_table(source, options.sheet)                            # read
     columns = detect_columns(table.header, options.columns)
     loaded = load_records(table, columns, options.settings)              # parse
+    loaded, withheld = _withhold(loaded, options.privacy)
     report = check(loaded)                                               # check
     dated = [r for r in loaded.records if r.span is not None]
     if not dated:
-        return Arranged(loaded, report, columns, None, None)
+        return Arranged(loaded, report, columns, None, None, withheld)
     rules, gap = lane_rules(options.lanes, columns, table.header)
     tree = _group_tree(dated, rules)
     scale = chart_scale(dated, options.theme, tree)                      # scale
     placement = lay_out(loaded.records, scale, options.theme, rules, gap,  # layout
                         options.lanes.labels, tree)
-    return Arranged(loaded, report, columns, scale, placement)
+    return Arranged(loaded, report, columns, scale, placement, withheld)
+
+
+def _withhold(loaded: LoadResult, privacy: Privacy | None) -> tuple[LoadResult, int]:
+    if privacy is None:
+        return loaded, 0
+    kept = withhold_possibly_living(loaded.records, privacy.as_of_year, privacy.years)
+    return replace(loaded, records=kept.records), kept.count
 
 
 def read_records(source: str | Path, options: ChartOptions = ChartOptions()) -> LoadResult:
@@ -346,11 +366,11 @@ def output_format(path: Path) -> str:
     return suffix
 
 
-def write(scene: Scene, path: Path, dpi: float = 150.0) -> None:
+def write(scene: Scene, path: Path, dpi: float = 150.0, text: str = "text") -> None:
     suffix = output_format(path)
     if suffix == ".svg":
         from .render.svg import write_svg
-        write_svg(scene, path)
+        write_svg(scene, path, text=text)
     elif suffix == ".png":
         from .render.mpl import render_png
         render_png(scene, path, dpi=dpi)

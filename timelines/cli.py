@@ -12,6 +12,7 @@ from __future__ import annotations
 
 import argparse
 import contextlib
+import datetime
 import json
 import os
 import sys
@@ -22,7 +23,7 @@ from pathlib import Path
 from . import __version__
 from .calendar import CALENDARS
 from . import lanes as lane_report
-from .chart import ChartOptions, LaneSettings, arrange, read_records, render
+from .chart import ChartOptions, LaneSettings, Privacy, arrange, read_records, render
 from .check import check
 from .config import apply_settings, config_lines, parse_distance
 from .dates import DEFAULT_SETTINGS, DateSettings, describe
@@ -30,10 +31,11 @@ from .encodings import FRINGES
 from .errors import TimelineError, UsageError
 from .layout import GROUP_ORDERS, LABEL_MODES, PACKINGS, SORT_KEYS
 from .sources import ColumnMap
-from .theme import DEFAULT_THEME
+from .scene import TEXT_MODES
+from .theme import DEFAULT_THEME, PALETTES
 
 DEMO = "fenwold-organ-builders.csv"
-ERAS = ("bce", "bc", "astronomical")
+ERAS = ("bce", "bc", "astronomical", "bp")
 LANE_DEFAULTS = LaneSettings()
 # Options that say what to run or where output goes, not how: never read from a config file.
 NOT_SETTINGS = frozenset({"help", "input", "output", "demo", "config", "print_config", "json",
@@ -70,7 +72,12 @@ def build_parser() -> argparse.ArgumentParser:
     draw.add_argument("--era", choices=ERAS, default=DEFAULT_THEME.era, help="year labels")
     draw.add_argument("--width", type=float, default=DEFAULT_THEME.width,
                       help=f"chart width in px (default {DEFAULT_THEME.width:g})")
+    draw.add_argument("--palette", choices=sorted(PALETTES), default="okabe-ito",
+                      help="colours for --color (default okabe-ito; tol-* are Paul Tol's)")
     draw.add_argument("--dpi", type=float, default=150.0, help="PNG resolution (default 150)")
+    draw.add_argument("--text", dest="text_mode", choices=TEXT_MODES, default="text",
+                      help="SVG text as text (default) or as glyph outlines (paths) for print")
+    _privacy_options(draw)
     draw.add_argument("--strict", action="store_true",
                       help="write nothing if any row is not drawn")
     _config_options(draw)
@@ -149,6 +156,17 @@ def _lane_options(parser: argparse.ArgumentParser) -> None:
                        help="beside: inside the bar when it fits, else beside it (default); "
                             "inside: inside or only in the tooltip, for the most compact "
                             "lanes; none: tooltips only")
+
+
+def _privacy_options(parser: argparse.ArgumentParser) -> None:
+    living = parser.add_argument_group("living people (see docs/privacy.md)")
+    living.add_argument("--withhold-living", action="store_true",
+                        help="replace the details of possibly living persons: no end date "
+                             "and a start within --living-years of --as-of")
+    living.add_argument("--as-of", metavar="YEAR", type=int,
+                        help="the reference year for --withhold-living (default: this year)")
+    living.add_argument("--living-years", metavar="N", type=_count(1), default=100,
+                        help="how recent a start counts as possibly living (default 100)")
 
 
 def _config_options(parser: argparse.ArgumentParser) -> None:
@@ -262,6 +280,13 @@ def _lane_settings(args) -> LaneSettings:
         max_lanes=args.max_lanes, labels=args.labels)
 
 
+def _privacy(args) -> Privacy | None:
+    if not args.withhold_living:
+        return None
+    as_of = args.as_of if args.as_of is not None else datetime.date.today().year
+    return Privacy(as_of, args.living_years)
+
+
 def _input_path(args, parser) -> Path:
     if getattr(args, "demo", False):
         if args.input:
@@ -278,12 +303,14 @@ def run_render(args, parser) -> int:
         parser.error("give either --when or --start/--end, not both")
     if not args.output:
         parser.error("render needs -o OUT.svg, OUT.png or OUT.pdf")
-    theme = DEFAULT_THEME.with_options(fringe=args.fringe, era=args.era, width=args.width)
+    theme = DEFAULT_THEME.with_options(fringe=args.fringe, era=args.era, width=args.width,
+                                       palette=PALETTES[args.palette])
     title = args.title or ("The Fenwold organ builders, 1600–1720 (invented demo data)"
                            if args.demo else "")
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args),
                            theme=theme, title=title, strict=args.strict, dpi=args.dpi,
-                           lanes=_lane_settings(args))
+                           lanes=_lane_settings(args), text=args.text_mode,
+                           privacy=_privacy(args))
     result = render(_input_path(args, parser), args.output, options)
     _print_run(result.arranged, args, theme.era)
     if result.written is None:
@@ -297,6 +324,10 @@ def _print_run(arranged, args, era: str) -> None:
     """Every problem, warning and layout note on stderr, then the summary line."""
     _print_problems(arranged.loaded.problems)
     _print_problems(arranged.report.warnings)
+    if arranged.withheld:
+        people = "1 record" if arranged.withheld == 1 else f"{arranged.withheld} records"
+        print(f"note: {people} of possibly living persons shown without their details "
+              "(--withhold-living)", file=sys.stderr)
     placement = arranged.placement
     for line in lane_report.note_lines(placement.notes if placement else (), era):
         print(line, file=sys.stderr)

@@ -10,6 +10,8 @@ from dataclasses import dataclass, field
 from typing import Union
 
 PX_PER_INCH = 96.0
+# How a vector renderer writes text: as text (selectable, restylable) or as glyph outlines.
+TEXT_MODES = ("text", "paths")
 PX_PER_MM = PX_PER_INCH / 25.4
 
 

@@ -16,7 +16,7 @@ from pathlib import Path
 import svgwrite
 from svgwrite.base import Desc, Title
 
-from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Scene, Text
+from timelines.scene import TEXT_MODES, GradientRect, Group, Line, Polygon, Rect, Scene, Text
 
 TITLE_ID = "timelines-title"
 DESC_ID = "timelines-desc"
@@ -33,9 +33,6 @@ _XML_WHITESPACE = re.compile("[\t\n\r ]+")
 # Hex colours and CSS colour keywords only: nothing that could be url(...) or a script.
 _COLOUR = re.compile(r"#[0-9a-fA-F]{3}(?:[0-9a-fA-F]{3})?|[a-zA-Z]{1,40}")
 _FONT_NAME_UNSAFE = re.compile(r"[^\w \-]")
-
-
-TEXT_MODES = ("text", "paths")
 
 
 def render_svg(scene: Scene, *, text: str = "text") -> str:

@@ -24,8 +24,10 @@ from timelines.scene import PX_PER_INCH, GradientRect, Group, Line, Polygon, Rec
 POINTS_PER_PX = 72.0 / PX_PER_INCH
 # A fade in a PDF is one row of 256 samples: as fine as 8-bit alpha resolves, so no steps show.
 GRADIENT_SAMPLES = 256
+PNG_COMPRESSION = 3
 DRAW_ORDER = 1  # one zorder for every artist: insertion order is drawing order
 HORIZONTAL_ALIGNMENT = {"start": "left", "middle": "center", "end": "right"}
+ANCHOR_SHIFT = {"start": 0.0, "middle": 0.5, "end": 1.0}   # of the width, to the left
 
 _SETTINGS = {
     "pdf.fonttype": 42,               # embed TrueType (Type 42), not Type 3 outlines
@@ -48,10 +50,12 @@ _PDF_INFO_KEYS = {"author": "Author", "subject": "Subject", "keywords": "Keyword
 def render_png(scene: Scene, path: str | Path, dpi: float = 150) -> None:
     """Write the scene as PNG; the image is width*dpi/96 by height*dpi/96 pixels."""
     with _local_settings():
-        figure = _figure(scene)
+        figure = _figure(scene, raster=True)
         figure.savefig(
             path, format="png", dpi=dpi, facecolor=figure.get_facecolor(),
             metadata=_png_metadata(scene),
+            # zlib level 3: on chart images as small as the default 6 and a third faster
+            pil_kwargs={"compress_level": PNG_COMPRESSION},
         )
 
 
@@ -70,8 +74,9 @@ def _local_settings():
     return matplotlib.style.context(["default", _SETTINGS])
 
 
-def _figure(scene: Scene):
-    """A Figure of the scene's size holding every primitive, on an Agg canvas."""
+def _figure(scene: Scene, raster: bool = False):
+    """A Figure of the scene's size holding every primitive, on an Agg canvas. With `raster`,
+    text is drawn by the glyph-caching artist (PNG); vector output keeps matplotlib's Text."""
     from matplotlib.backends.backend_agg import FigureCanvasAgg
     from matplotlib.figure import Figure
     from matplotlib.transforms import TransformedPatchPath
@@ -86,7 +91,7 @@ def _figure(scene: Scene):
     axes.set_xlim(0, scene.width)
     axes.set_ylim(scene.height, 0)  # y grows downward, as on the page
     fonts = list(dict.fromkeys([scene.font_family, "DejaVu Sans"]))
-    page = _Page(axes, fonts, TransformedPatchPath(axes.patch))
+    page = _Page(axes, fonts, TransformedPatchPath(axes.patch), raster and _glyph_cache_works())
     for item in scene.children:
         _draw(item, page)
     return figure
@@ -99,6 +104,7 @@ class _Page:
     axes: object
     font_family: list[str]
     clip: object
+    cached_glyphs: bool = False     # draw text with _glyph_text_type() (raster output)
 
 
 def _draw(item, page: _Page) -> None:
@@ -247,12 +253,99 @@ def _draw_text(text: Text, page: _Page):
         return None
     if text.anchor not in HORIZONTAL_ALIGNMENT:
         raise ValueError(f"{text.anchor!r} is not one of start, middle, end")
+    if page.cached_glyphs:
+        return _glyph_text_type()(text, content, page.font_family)
     return TextArtist(
         text.x, text.y, content, fontsize=text.size * POINTS_PER_PX,
         horizontalalignment=HORIZONTAL_ALIGNMENT[text.anchor], verticalalignment="baseline",
         fontfamily=page.font_family, fontweight=text.weight, fontstyle=text.style,
         color=text.fill, parse_math=False, usetex=False, wrap=False,
     )
+
+
+def _glyph_cache_works() -> bool:
+    """Whether this matplotlib has the per-glyph Agg text calls the cache relies on (3.11's);
+    otherwise PNG text falls back to matplotlib's Text artist."""
+    from matplotlib import ft2font
+
+    return (all(hasattr(ft2font.FT2Font, name) for name in ("_set_transform", "_render_glyph"))
+            and hasattr(ft2font, "Kerning") and hasattr(ft2font, "RenderMode"))
+
+
+@functools.cache
+def _glyph_text_type():
+    """An artist drawing one line of text on Agg from a cache of rendered glyphs.
+
+    matplotlib's Text lays out and renders every glyph of every string anew; a chart repeats
+    the same few dozen glyphs thousands of times. Glyphs are cached per font, size and quarter
+    pixel of position, then composited by Agg's own text-image call, as matplotlib does."""
+    from matplotlib.artist import Artist
+    from matplotlib.backends.backend_agg import get_hinting_flag
+    from matplotlib.font_manager import FontProperties, fontManager, get_font
+    from matplotlib.ft2font import Kerning, RenderMode
+
+    glyphs: dict[tuple, tuple] = {}
+
+    def rendered(font, size, dpi, index, x, y):
+        phase_x, phase_y = round(4 * (x % 1)) / 4, round(4 * (y % 1)) / 4
+        key = (font.fname, size, dpi, index, phase_x, phase_y)
+        if key not in glyphs:
+            font.set_size(size, dpi)
+            font._set_transform([[0x10000, 0], [0, 0x10000]],
+                                [round(0x40 * phase_x), round(0x40 * phase_y)])
+            bitmap = font._render_glyph(index, get_hinting_flag(), RenderMode.NORMAL)
+            glyphs[key] = (bitmap.buffer.copy(), bitmap.left, bitmap.top)
+        return glyphs[key]
+
+    class GlyphText(Artist):
+        def __init__(self, text: Text, content: str, families: list[str]):
+            super().__init__()
+            self.text, self.content = text, content
+            self.properties = FontProperties(family=families, weight=text.weight,
+                                             style=text.style, size=text.size * POINTS_PER_PX)
+            self.color = text.fill
+
+        def draw(self, renderer):
+            if not self.get_visible():
+                return
+            x, y = self.get_transform().transform((self.text.x, self.text.y))  # y up
+            size = self.properties.get_size_in_points()
+            font = get_font(fontManager._find_fonts_by_props(self.properties))
+            font.set_size(size, renderer.dpi)
+            offsets, width = laid_out(font, size, renderer.dpi, self.content)
+            x -= ANCHOR_SHIFT[self.text.anchor] * width
+            gc = renderer.new_gc()
+            gc.set_foreground(self.color)
+            for index, offset in offsets:
+                gx, gy = x + offset, y
+                buffer, left, top = rendered(font, size, renderer.dpi, index, gx, gy)
+                column, row = math.floor(gx) + left, math.floor(gy) + top
+                renderer._renderer.draw_text_image(
+                    buffer, column, int(renderer.height) - row + buffer.shape[0], 0, gc)
+            gc.restore()
+            self.stale = False
+
+    advances: dict[tuple, tuple[int, float]] = {}
+
+    def laid_out(font, size, dpi, content) -> tuple[list[tuple[int, float]], float]:
+        """(glyph index, x offset) per character and the line's width, in device px: hinted
+        advances plus pair kerning, FreeType's basic layout, each character's advance
+        measured once."""
+        offsets, pen, previous = [], 0.0, None
+        for character in content:
+            key = (font.fname, size, dpi, character)
+            if key not in advances:
+                index = font.get_char_index(ord(character))
+                advances[key] = (index, font.load_glyph(index, get_hinting_flag()).horiAdvance / 64)
+            index, advance = advances[key]
+            if previous is not None:
+                pen += font.get_kerning(previous, index, Kerning.DEFAULT) / 64
+            offsets.append((index, pen))
+            pen += advance
+            previous = index
+        return offsets, pen
+
+    return GlyphText
 
 
 def _draw_group(group: Group, page: _Page):

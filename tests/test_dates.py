@@ -28,7 +28,9 @@ def _iso(fixed):
 def test_public_names():
     assert set(dates.__all__) == {
         "parse_date", "parse_span", "parse_endpoint", "endpoint_from_cell", "span_from_cell",
-        "describe", "DateSettings", "DEFAULT_SETTINGS", "DateError"}
+        "describe", "DateSettings", "DEFAULT_SETTINGS", "DateError", "explain", "iso_form",
+        "parse_column", "parse_span_column", "settings_from_options", "options_from_settings",
+        "SETTING_HELP"}
     assert DateError is ErrorsDateError and DateSettings is SettingsDateSettings
     assert DEFAULT_SETTINGS == DateSettings()
 

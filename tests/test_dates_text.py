@@ -321,7 +321,7 @@ TEXT_ERRORS = [
     ("–1660", "the range has no start"),
     ("1650 – 1660 – 1670", "a range has one start and one end"),
     ("1650-04-12-1660", "more than one hyphen could end the start here"),
-    ("1650–16x0", "the end '16x0' is not a date form I know"),
+    ("1650–16y0", "the end '16y0' is not a date form I know"),
     ("1650–2001-02-29", "the end '2001-02-29': 2001 is not a leap year"),
 ]
 

@@ -216,3 +216,38 @@ def iso_from_fixed(fixed: int) -> str:
         return f"{year:04d}-{month:02d}-{day:02d}"
     sign = "-" if year < 0 else "+"
     return f"{sign}{abs(year):04d}-{month:02d}-{day:02d}"
+
+
+def weekday_from_fixed(fixed: int) -> int:
+    """ISO 8601 day of the week: 1 = Monday .. 7 = Sunday (R.D. 1, 0001-01-01, was a Monday)."""
+    return (fixed - 1) % 7 + 1
+
+
+def _iso_week_one_monday(year: int) -> int:
+    # ISO 8601 week 1 is the week (Monday to Sunday) that holds 4 January.
+    january_4 = fixed_from_gregorian(year, 1, 4)
+    return january_4 - weekday_from_fixed(january_4) + 1
+
+
+def iso_weeks_in_year(year: int) -> int:
+    """52 or 53: the weeks from this year's week 1 to the next year's."""
+    return (_iso_week_one_monday(year + 1) - _iso_week_one_monday(year)) // 7
+
+
+def fixed_from_iso_week(year: int, week: int, weekday: int = 1) -> int:
+    """R.D. of an ISO 8601 week date (`1985-W15-5`); raises ValueError for a week or day
+    that does not exist."""
+    if not 1 <= weekday <= 7:
+        raise ValueError(f"day {weekday} of the week does not exist (Monday 1 .. Sunday 7)")
+    weeks = iso_weeks_in_year(year)
+    if not 1 <= week <= weeks:
+        raise ValueError(f"week {week} does not exist in {year} (it has {weeks} weeks)")
+    return _iso_week_one_monday(year) + 7 * (week - 1) + weekday - 1
+
+
+def fixed_from_ordinal_date(year: int, day_of_year: int) -> int:
+    """R.D. of an ISO 8601 ordinal date (`1985-102`), proleptic Gregorian."""
+    length = 366 if is_gregorian_leap_year(year) else 365
+    if not 1 <= day_of_year <= length:
+        raise ValueError(f"day {day_of_year} does not exist in {year} (it has {length} days)")
+    return fixed_from_gregorian(year, 1, 1) + day_of_year - 1

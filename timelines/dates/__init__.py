@@ -13,12 +13,18 @@ Conventions that practitioners settle differently are in `DateSettings`.
 """
 from ..errors import DateError
 from .cells import endpoint_from_cell, span_from_cell
+from .column import parse_column, parse_span_column
+from .explain import explain
+from .normal import iso_form
+from .options import SETTING_HELP, options_from_settings, settings_from_options
 from .ranges import parse_endpoint, parse_span
 from .report import describe
 from .settings import DEFAULT_SETTINGS, DateSettings
 from .single import parse_date
 
 __all__ = [
-    "DEFAULT_SETTINGS", "DateError", "DateSettings", "describe", "endpoint_from_cell",
-    "parse_date", "parse_endpoint", "parse_span", "span_from_cell",
+    "DEFAULT_SETTINGS", "DateError", "DateSettings", "SETTING_HELP", "describe",
+    "endpoint_from_cell", "explain", "iso_form", "options_from_settings", "parse_column",
+    "parse_date", "parse_endpoint", "parse_span", "parse_span_column", "settings_from_options",
+    "span_from_cell",
 ]

@@ -1,6 +1,7 @@
 """Spreadsheet cells as dates: whatever a table reader hands over, without importing pandas.
 
-- empty: None, NaN, pandas NaT/NA, a blank or whitespace-only string -> None (no date);
+- empty: None, NaN, pandas NaT/NA, a blank or whitespace-only string, and the words that say
+  there is no date (`n.d.`, `s.d.`, `undated`, `unknown`, `?`) -> None (no date);
 - a string -> the date language (stripped first);
 - a date or date-time (`datetime.date`, `datetime.datetime`, `pandas.Timestamp`: anything with
   year, month and day) -> that day; these types are proleptic Gregorian, as is ISO 8601;
@@ -16,9 +17,12 @@ from ..calendar import GREGORIAN
 from ..errors import DateError
 from ..model import Endpoint, Precision, Span
 from .ranges import parse_endpoint, parse_span
+from .reasons import DATE_HINT, reading
 from .settings import DEFAULT_SETTINGS, DateSettings
-from .windows import DATE_HINT, day, reading, years
+from .windows import day, years
 
+# What cataloguers write for "no date" (n.d., Latin s.d. sine dato): the cell says no date.
+NO_DATE_WORDS = frozenset({"n.d.", "n.d", "nd", "s.d.", "s.d", "undated", "unknown", "?", "??"})
 # pandas' missing-value markers, known by name so that this module need not import pandas.
 _MISSING_TYPES = frozenset({"NaTType", "NAType"})
 
@@ -45,7 +49,7 @@ def is_empty_cell(value: object) -> bool:
     if value is None or type(value).__name__ in _MISSING_TYPES:
         return True
     if isinstance(value, str):
-        return not value.strip()
+        return not value.strip() or value.strip().lower() in NO_DATE_WORDS
     return isinstance(value, float) and math.isnan(value)
 
 

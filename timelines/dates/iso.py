@@ -1,59 +1,76 @@
-"""ISO 8601-1 calendar dates and ISO 8601-2 (EDTF) extensions, always proleptic Gregorian.
+"""ISO 8601-1 dates, proleptic Gregorian unless the text names another calendar.
 
-Forms read here (one function each, dispatched by `_unqualified`):
-- `1985-04-12`, `1985-04`, `1985`; signed and expanded years `-0043`, `+12000`, `+001985-04-12`,
-  the EDTF letter-prefixed year `Y170000002`. Years are astronomical (`0000` = 1 BC).
-- a date with a time of day (`1985-04-12T23:20:30Z`, `1985-04-12 00:00:00`): read at day
-  precision, the day as written (the time zone does not move it).
-- unspecified digits `X`: `198X` decade, `19XX` century, `1XXX` millennium, `1985-XX` the year,
-  `1985-04-XX` the month; qualifier `unspecified`.
-- a qualifier on the whole date: `?` uncertain, `~` approximate, `%` both. Approximate dates are
-  widened by the circa settings, like `c.` in free text (so they are `convention_dependent`).
-- intervals `A/B`, `../B` and `A/..` (open), `/B` and `A/` (unknown).
+Forms (one regex each; `edtf.py` reads the ISO 8601-2 parts they allow):
+- calendar dates, extended `1985-04-12`, `1985-04`, and basic `19850412` (eight digits alone are
+  read by text.py and handed here); signed and expanded years `-0043`, `+12000`,
+  `+001985-04-12`. Years are astronomical (`0000` = 1 BC). `YYYYMM` does not exist in ISO 8601
+  (it would read as YYMMDD) and is not read.
+- ordinal dates `1985-102` and `1985102`; week dates `1985-W15-5`, `1985W155`, and weeks
+  `1985-W15`, `1985W15` (Monday to Sunday, at day precision: there is no week precision).
+- a date with a time of day (`1985-04-12T23:20:30Z`, `19850412T232030`, `1985-04-12 00:00:00`):
+  read at day precision, the day as written (the time zone does not move it).
+- inside the calendar form, ISO 8601-2: unspecified digits `X` anywhere (`156X-12-25`,
+  `1985-04-3X`), sub-year groupings 21-41 in the month's place (`2001-21`, spring), and
+  qualifiers on single components (`2004-06~-11`, `?2004-06-~11`, `2004?-06-11`).
 
-A year-month `YYYY-MM` is claimed only for MM in 00-12 (00 is then refused as no month) and
-21-41 (the ISO 8601-2 season and quarter codes, refused as not supported yet); `1650-60` is left
-to the range reader as 1650 to 1660.
-
-A plain four-digit year is also an ISO date, but `parse_date` reads a bare year as free text first
-(in the calendar setting, so that `1650`, `c. 1650` and `1650s` agree; with the default
-historical setting both readings agree from 1583 on). Two exceptions are ISO and Gregorian: a
-year padded with zeros (`0000`, `0044`), and any year inside an interval (`1500/1510`).
+A year-month `YYYY-MM` is claimed only for MM in 00-12 (00 is then refused as no month),
+21-41 and X patterns, so that `1650-60` stays a range.
 """
 from __future__ import annotations
 
 import re
 
-from ..calendar import GREGORIAN, days_in_month
-from ..errors import DateError
-from ..model import Endpoint, Precision, Qualifier, Span
+from ..calendar import (
+    GREGORIAN, days_in_month, fixed_from_iso_week, fixed_from_ordinal_date,
+)
+from ..model import Endpoint, Precision
+from . import edtf
+from .grammar import FLAGS, Form
+from .reasons import Unreadable
 from .settings import DateSettings
-from .windows import approximate, day, month, ordered_span, qualified, years
+from .windows import check_year, day, month, years
 
-_FLAGS = re.VERBOSE | re.IGNORECASE | re.ASCII
+_MARK = r"[?~%]"   # ISO 8601-2 qualifiers: uncertain, approximate, both
+_YEAR = r"[+-][0-9]{5,12} | [+-]?[0-9X]{4}"   # expanded years need a sign; X: unspecified
 
-ISO_DATE = re.compile(r"""
-    (?P<year>
-        [+-][0-9]{5,12}            # expanded year, sign required: +12000, -12000, +001985
-      | [+-]?[0-9]{4}              # four-digit year, optionally signed: 1985, -0043
-      | [+-]?[0-9]{3}X             # unspecified last digit: 198X, a decade
-      | [+-]?[0-9]{2}XX            # unspecified last two digits: 19XX, a century
-      | [+-]?[0-9]XXX              # unspecified last three digits: 1XXX, a millennium
-      | XXXX                       # no year digit at all: refused below
-      | Y[+-]?[0-9]{5,12}          # EDTF letter-prefixed year: Y170000002, Y-170000002
-    )
+ISO_CALENDAR = re.compile(rf"""
+    (?P<year_left>{_MARK})? (?P<year>{_YEAR}) (?P<year_right>{_MARK})?
     (?:
-        -(?P<month>[0-9]{2}|XX)    # year-month-day: any two digits, checked below
-        -(?P<day>[0-9]{2}|XX)
-        (?P<time>[T\x20][0-9:.,+Z-]+)?   # time of day, checked by TIME_OF_DAY
-      | -(?P<month_only>           # year-month alone: only what can be a month code, so
-            0[0-9] | 1[0-2]        # that 1650-60 stays a range; 00 is refused below
-          | 2[1-9] | 3[0-9] | 4[01] # ISO 8601-2 seasons, quarters, semesters: refused below
-          | XX                     # unspecified month: 1985-XX
+        - (?P<month_left>{_MARK})? (?P<month>[0-9X]{{2}}) (?P<month_right>{_MARK})?
+        - (?P<day_left>{_MARK})? (?P<day>[0-9X]{{2}}) (?P<day_right>{_MARK})?
+        (?P<time>[T\x20][0-9:.,+Z-]+)?          # time of day, checked by TIME_OF_DAY
+      | - (?P<only_left>{_MARK})?
+        (?P<month_only>                         # year-month alone: only what can be a month
+            0[0-9X] | 1[0-2X] | X[0-9X]         # code, so that 1650-60 stays a range
+          | 2[1-9] | 3[0-9] | 4[01]             # ISO 8601-2 seasons, quarters, semesters
         )
+        (?P<only_right>{_MARK})?
     )?
-    (?P<qualifier>[?~%])?          # ISO 8601-2 qualifier on the whole date
-""", _FLAGS)
+""", FLAGS)
+
+ISO_PADDED_YEAR = re.compile(r"""
+    (?P<year>0[0-9]{3})            # 0000, 0044: only ISO 8601 pads a year to four digits
+""", FLAGS)
+
+ISO_BASIC = re.compile(r"""
+    (?P<digits>[0-9]{8}) (?P<time>T[0-9:.,+Z-]+)?   # 19850412, 19850412T101530Z
+""", FLAGS)
+
+ISO_ORDINAL_BASIC = re.compile(r"""
+    (?P<year>[0-9]{4}) (?P<day>[0-9]{3})            # 1985102
+""", FLAGS)
+
+ISO_ORDINAL = re.compile(r"""
+    (?P<year>[+-][0-9]{5,12} | [+-]?[0-9]{4}) - (?P<day>[0-9]{3})   # 1985-102
+""", FLAGS)
+
+ISO_WEEK = re.compile(r"""
+    (?P<year>[+-]?[0-9]{4}) - W(?P<week>[0-9]{2}) (?: -(?P<weekday>[0-9]) )?   # 1985-W15-5
+""", FLAGS)
+
+ISO_WEEK_BASIC = re.compile(r"""
+    (?P<year>[0-9]{4}) W(?P<week>[0-9]{2}) (?P<weekday>[0-9])?                  # 1985W155
+""", FLAGS)
 
 TIME_OF_DAY = re.compile(r"""
     [T\x20]
@@ -62,126 +79,126 @@ TIME_OF_DAY = re.compile(r"""
         (?: :?(?P<second>[0-9]{2}) (?:[.,][0-9]+)? )?   # seconds, with a decimal fraction
     )?
     (?: Z | [+-][0-9]{2}(?::?[0-9]{2})? )?   # UTC or an offset: does not move the day
-""", _FLAGS)
-
-INTERVAL_HINT = "an ISO 8601 interval joins two dates: 1985/1987, 1985-04/1985-06, ../1760"
+""", FLAGS)
 
 
-def iso_date(text: str, settings: DateSettings) -> Endpoint | None:
-    """An ISO 8601 date, or None when `text` is not written as one."""
-    match = ISO_DATE.fullmatch(text)
-    if match is None:
-        return None
-    endpoint = _unqualified(match, text)
-    return _with_qualifier(endpoint, match["qualifier"], settings)
-
-
-def _unqualified(match: re.Match[str], text: str) -> Endpoint:
+def read_iso_calendar(match: re.Match[str], era: str | None, marker: str | None,
+                      settings: DateSettings) -> Endpoint:
+    calendar = marker or GREGORIAN
     year_text = match["year"].upper()
     month_text = (match["month"] or match["month_only"] or "").upper()
     day_text = (match["day"] or "").upper()
-    if "X" in year_text:
-        return _unspecified_year(year_text, month_text + day_text, text)
-    year = int(year_text.lstrip("Y"))
     if match["time"]:
-        _check_time(match["time"], text)
-    if day_text and day_text != "XX":
-        return _calendar_date(year_text, year, _month_number(month_text, day_text), int(day_text))
-    if month_text and month_text != "XX":
-        endpoint = month(year, _month_number(month_text, day_text), GREGORIAN)
-        return qualified(endpoint, Qualifier.UNSPECIFIED) if day_text else endpoint
-    endpoint = years(year, year, GREGORIAN, Precision.YEAR)
-    return qualified(endpoint, Qualifier.UNSPECIFIED) if month_text else endpoint
+        check_time(match["time"])
+    if match["month_only"] and "X" not in month_text and int(month_text) > 20:
+        base = edtf.sub_year(int(year_text), int(month_text), calendar, settings)
+    elif "X" in year_text + month_text + day_text:
+        base = edtf.unspecified(year_text, month_text, day_text, calendar)
+    else:
+        base = _calendar_date(year_text, month_text, day_text, calendar)
+    return edtf.with_component_marks(base, match, settings, calendar)
 
 
-def _unspecified_year(year_text: str, later_parts: str, text: str) -> Endpoint:
-    """`198X`: every year the digits allow; `-019X` is -0199..-0190."""
-    if year_text == "XXXX":
-        raise DateError(text, "a year with no known digit says nothing",
-                        hint="leave the cell empty for an unknown date")
-    if later_parts.strip("X"):
-        raise DateError(text, "a known month or day after unspecified year digits "
-                        "is not supported yet")
-    low, high = int(year_text.replace("X", "0")), int(year_text.replace("X", "9"))
-    first, last = (high, low) if year_text.startswith("-") else (low, high)
-    precision = _UNSPECIFIED_YEAR_PRECISION[year_text.count("X")]
-    return years(first, last, GREGORIAN, precision, {Qualifier.UNSPECIFIED})
+def _calendar_date(year_text: str, month_text: str, day_text: str, calendar: str) -> Endpoint:
+    """A complete date, a year-month or a year; the reasons name the year as it was written."""
+    year = int(year_text)
+    if not month_text:
+        return years(year, year, calendar, Precision.YEAR)
+    month_number = month_of(month_text)
+    if not day_text:
+        return month(year, month_number, calendar)
+    day_number = int(day_text)
+    length = days_in_month(check_year(year), month_number, calendar)
+    if not 1 <= day_number <= length:
+        if month_number == 2 and day_number == 29:
+            raise Unreadable(f"{year_text} is not a leap year" + _in(calendar),
+                             fragment=f"{month_text}-{day_text}")
+        raise Unreadable(f"day {day_number} does not exist in {year_text}-{month_number:02d} "
+                         f"(it has {length} days)", fragment=f"{month_text}-{day_text}")
+    return day(year, month_number, day_number, calendar)
 
 
-_UNSPECIFIED_YEAR_PRECISION = {1: Precision.DECADE, 2: Precision.CENTURY, 3: Precision.MILLENNIUM}
+def _in(calendar: str) -> str:
+    return "" if calendar == GREGORIAN else f" in the {calendar} calendar"
 
 
-def _month_number(month_text: str, day_text: str) -> int:
-    if month_text == "XX":
-        raise ValueError("an unspecified month with a known day is not supported yet")
+def month_of(month_text: str) -> int:
     number = int(month_text)
-    if 21 <= number <= 41 and not day_text:
-        raise ValueError(f"ISO 8601-2 season and quarter codes such as {month_text} "
-                         "are not supported yet")
     if not 1 <= number <= 12:
-        raise ValueError(f"month {number} does not exist")
+        raise Unreadable(f"month {number} does not exist", fragment=month_text)
     return number
 
 
-def _calendar_date(year_text: str, year: int, month_number: int, day_number: int) -> Endpoint:
-    """A complete date; the reasons name the year as it was written."""
-    length = days_in_month(year, month_number, GREGORIAN)
-    if not 1 <= day_number <= length:
-        if month_number == 2 and day_number == 29:
-            raise ValueError(f"{year_text} is not a leap year")
-        raise ValueError(f"day {day_number} does not exist in {year_text}-{month_number:02d} "
-                         f"(it has {length} days)")
-    return day(year, month_number, day_number, GREGORIAN)
+def basic_date(digits: str, marker: str | None) -> Endpoint:
+    """`19850412`: the basic format of a complete calendar date."""
+    return _calendar_date(digits[:4], digits[4:6], digits[6:], marker or GREGORIAN)
 
 
-def _check_time(time_text: str, text: str) -> None:
+def read_basic(match: re.Match[str], era: str | None, marker: str | None,
+               settings: DateSettings) -> Endpoint:
+    if match["time"]:
+        check_time(match["time"])
+    return basic_date(match["digits"], marker)
+
+
+def read_padded_year(match: re.Match[str], era: str | None, marker: str | None,
+                     settings: DateSettings) -> Endpoint:
+    year = int(match["year"])
+    return years(year, year, marker or GREGORIAN, Precision.YEAR)
+
+
+def ordinal_date(year_text: str, day_text: str, marker: str | None) -> Endpoint:
+    """`1985-102`: the 102nd day of 1985."""
+    if (marker or GREGORIAN) != GREGORIAN:
+        raise Unreadable("ordinal dates are ISO 8601 forms: proleptic Gregorian only")
+    year = check_year(int(year_text))
+    try:
+        return Endpoint.day(fixed_from_ordinal_date(year, int(day_text)))
+    except ValueError as error:
+        raise Unreadable(str(error), fragment=day_text) from None
+
+
+def read_ordinal(match: re.Match[str], era: str | None, marker: str | None,
+                 settings: DateSettings) -> Endpoint:
+    return ordinal_date(match["year"], match["day"], marker)
+
+
+def read_week(match: re.Match[str], era: str | None, marker: str | None,
+              settings: DateSettings) -> Endpoint:
+    if (marker or GREGORIAN) != GREGORIAN:
+        raise Unreadable("week dates are ISO 8601 forms: proleptic Gregorian only")
+    year, week = check_year(int(match["year"])), int(match["week"])
+    try:
+        if match["weekday"]:
+            return Endpoint.day(fixed_from_iso_week(year, week, int(match["weekday"])))
+        monday = fixed_from_iso_week(year, week, 1)
+    except ValueError as error:
+        raise Unreadable(str(error), fragment=match["weekday"] or match["week"]) from None
+    return Endpoint(monday, monday + 6, Precision.DAY)
+
+
+def check_time(time_text: str) -> None:
     match = TIME_OF_DAY.fullmatch(time_text)
     limits = (("hour", 24), ("minute", 59), ("second", 60))  # 24:00 ends a day; 60 is a leap second
     if match is None or any(int(match[name] or 0) > limit for name, limit in limits):
-        raise DateError(text, f"{time_text.strip()!r} is not a time of day",
-                        hint="a date with a time looks like 1985-04-12T23:20:30")
+        raise Unreadable(f"{time_text.strip()!r} is not a time of day", fragment=time_text,
+                         hint="a date with a time looks like 1985-04-12T23:20:30")
 
 
-def _with_qualifier(endpoint: Endpoint, mark: str | None, settings: DateSettings) -> Endpoint:
-    if mark == "?":
-        return qualified(endpoint, Qualifier.UNCERTAIN)
-    if mark == "~":
-        return approximate(endpoint, settings, GREGORIAN)
-    if mark == "%":
-        return qualified(approximate(endpoint, settings, GREGORIAN), Qualifier.UNCERTAIN)
-    return endpoint
+# Digits alone that only ISO 8601 writes: before the free-text year in the table (core.py).
+ISO_DIGIT_FORMS = (
+    Form("ISO 8601 year", ISO_PADDED_YEAR, read_padded_year, takes_era=False, gregorian=True),
+    Form("ISO 8601 basic date", ISO_BASIC, read_basic, takes_era=False, gregorian=True),
+    Form("ISO 8601 ordinal date", ISO_ORDINAL_BASIC, read_ordinal, takes_era=False,
+         gregorian=True),
+)
 
-
-def iso_interval(text: str, settings: DateSettings) -> Span | None:
-    """`A/B` with ISO dates, `..` (open) or nothing (unknown) on either side; None without '/'."""
-    if "/" not in text:
-        return None
-    parts = text.split("/")
-    if len(parts) != 2:
-        raise DateError(text, "an interval has exactly one '/'", hint=INTERVAL_HINT)
-    start = _interval_side(parts[0], text, settings, _START_SIDE)
-    end = _interval_side(parts[1], text, settings, _END_SIDE)
-    if start.earliest is None and end.latest is None:
-        raise DateError(text, "an interval needs a date on at least one side", hint=INTERVAL_HINT)
-    return ordered_span(start, end, text)
-
-
-# (qualifier for `..`, qualifier for nothing) on each side of an interval
-_START_SIDE = (Qualifier.OPEN_START, Qualifier.UNKNOWN_START)
-_END_SIDE = (Qualifier.OPEN_END, Qualifier.UNKNOWN_END)
-
-
-def _interval_side(part: str, text: str, settings: DateSettings,
-                   side: tuple[Qualifier, Qualifier]) -> Endpoint:
-    date_text = part.strip()
-    if date_text == "..":
-        return Endpoint.open(side[0])
-    if not date_text:
-        return Endpoint.open(side[1])
-    if date_text[0] in "Pp":
-        raise DateError(text, "durations (P...) in intervals are not supported yet",
-                        hint=INTERVAL_HINT)
-    endpoint = iso_date(date_text, settings)
-    if endpoint is None:
-        raise DateError(text, f"{date_text!r} is not an ISO 8601 date", hint=INTERVAL_HINT)
-    return endpoint
+ISO_FORMS = (
+    Form("ISO 8601 date", ISO_CALENDAR, read_iso_calendar, takes_era=False, gregorian=True,
+         starts="digit letter other"),
+    Form("ISO 8601 ordinal date", ISO_ORDINAL, read_ordinal, takes_era=False, gregorian=True,
+         starts="digit other"),
+    Form("ISO 8601 week date", ISO_WEEK, read_week, takes_era=False, gregorian=True,
+         starts="digit other"),
+    Form("ISO 8601 week date", ISO_WEEK_BASIC, read_week, takes_era=False, gregorian=True),
+)

@@ -1,44 +1,68 @@
-"""Ranges: an ISO 8601 interval (`1985/1987`, see iso.py) or two dates joined by a dash or `to`.
+"""Ranges: two dates joined by a dash or a word, or an ISO 8601 interval (intervals.py).
 
 Separators, tried in this order:
 - an en dash, em dash, figure dash or horizontal bar, spaced or not: `1650–1660`, `1650 — 1660`;
-- the word `to`: `1650 to 1660`;
+- the words `to`, `until`, `till`: `1650 to 1660`, optionally after `from`
+  (`from 1650 to 1660`, GEDCOM's FROM ... TO);
+- a slash: first as one date that holds one (`1701/02` a dual year, `25/12/1650`), then as
+  an ISO 8601 interval (`1985/1987`);
 - a hyphen, only when no single-date form claims the whole text. A date claims its own hyphens
   first, so `1985-04` and `-0043-03-15` are dates, and `1985-13-01` is a date with no month 13;
   a year-month is claimed only for months 00-12 and the ISO 8601-2 codes 21-41, so `1650-1660`,
   `1650-60`, `1650s-1670s`, `c. 1650-1660` are ranges. A hyphen straight after another hyphen
   is a sign (`-0500 - -0400`). Two hyphens that could each separate are refused as ambiguous.
 
-The end may lean on the start:
-- two digits after a plain three- or four-digit year abbreviate it: `1650–60` is 1650 to 1660
-  (inclusive numbers as the Chicago Manual of Style writes them, from memory);
-- an end in BC lends its era to a start written without one or a sign: `500–400 BC`.
+A side may be `?` (or `unknown`): the side is not known; an end may be `present`, `now`,
+`today`, `ongoing` or `date`: the span runs on (open). The two sides lend each other what
+they share (completion.py: `1650–60`, `March–May 1650`, `500–400 BC`, `17th–18th century`).
 """
 from __future__ import annotations
 
 import re
 
 from ..errors import DateError
-from ..model import Endpoint, Span
-from .iso import iso_interval
+from ..model import Endpoint, Qualifier, Span
+from . import trace
+from .completion import completed
+from .intervals import iso_interval
+from .quick import quick_span
+from .reasons import DATE_HINT, RANGE_HINT, date_error, locate
 from .settings import DEFAULT_SETTINGS, DateSettings
+from .frame import read_framed
 from .single import not_a_date, prepared, read_single
-from .text import split_era
-from .windows import DATE_HINT, collapsed, ordered_span, reading
-
-RANGE_HINT = "a range looks like 1650–1660, 1650 to 1660, 500 BC – AD 100 or 1985/1987"
+from .windows import collapsed, ordered_span
 
 DASH = re.compile(r"\s*[\u2012-\u2015]\s*")      # figure dash, en dash, em dash, horizontal bar
-TO = re.compile(r"\s+to\s+", re.IGNORECASE)
-_PLAIN_YEAR = re.compile(r"[0-9]{3,4}")
-_TWO_DIGITS = re.compile(r"[0-9]{2}")
+WORD = re.compile(r"\s+(?:to|until|till)\s+", re.IGNORECASE)
+FROM = re.compile(r"from\s+", re.IGNORECASE)
+_RANGE_SIGN = re.compile(r"[\u2012-\u2015]|\s(?:to|until|till)\s", re.IGNORECASE)
+# Anything that makes a text more than one plain date: a dash, a slash, a set's bracket,
+# a joining word, or a pair's opening word.
+_COMPOUND = re.compile(r"[\u2012-\u2015/\[{]|\s(?:to|until|till|or)\s|^(?:bet|btw|from\s)",
+                       re.IGNORECASE)
+
+_UNKNOWN_WORDS = ("?", "??", "unknown")
+_RUNNING_ON_WORDS = ("present", "now", "today", "ongoing", "date")
 
 
 def parse_span(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Span:
     """A range or interval, or a single date as a point span; raises DateError."""
+    if type(text) is str:
+        span = quick_span(text, settings)
+        if span is not None:
+            return span
+    return general_span(text, settings)
+
+
+def general_span(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Span:
+    """parse_span without the quick lane (quick.py), which must agree with it."""
     cleaned = prepared(text)
-    with reading(text):
+    try:
         return _read_span(cleaned, text, settings)
+    except DateError:
+        raise
+    except ValueError as error:
+        raise date_error(text, error) from error
 
 
 def parse_endpoint(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Endpoint:
@@ -48,19 +72,42 @@ def parse_endpoint(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Endp
 
 
 def _read_span(cleaned: str, text: str, settings: DateSettings) -> Span:
-    interval = iso_interval(cleaned, settings)
-    if interval is not None:
-        return interval
-    parts = split_at_mark(cleaned, text, DASH) or split_at_mark(cleaned, text, TO)
-    if parts is not None:
-        return _text_range(parts, text, settings)
+    if _COMPOUND.search(cleaned) is None:
+        # Most cells: one date with no dash, slash, bracket or joining word. Straight to it.
+        endpoint = read_framed(cleaned, settings)
+        if endpoint is not None:
+            return Span.point(endpoint)
+        return _hyphen_range(cleaned, text, settings)
+    if cleaned[:1] in ("[", "{") or cleaned[:3].lower() in ("bet", "btw"):
+        return _point(cleaned, text, settings)
+    if _RANGE_SIGN.search(cleaned):
+        written = FROM.sub("", cleaned, count=1) if cleaned[:5].lower() == "from " else cleaned
+        parts = split_at_mark(written, text, DASH) or split_at_mark(written, text, WORD)
+        if parts is not None:
+            return _text_range(parts, text, settings)
+    if "/" in cleaned:
+        endpoint = read_single(cleaned, settings)
+        if endpoint is not None:
+            return Span.point(endpoint)
+        return iso_interval(cleaned, text, settings)
     endpoint = read_single(cleaned, settings)
     if endpoint is not None:
         return Span.point(endpoint)
+    return _hyphen_range(cleaned, text, settings)
+
+
+def _hyphen_range(cleaned: str, text: str, settings: DateSettings) -> Span:
     parts = split_at_hyphen(cleaned, text)
     if parts is not None:
         return _text_range(parts, text, settings)
     raise not_a_date(text, cleaned)
+
+
+def _point(cleaned: str, text: str, settings: DateSettings) -> Span:
+    endpoint = read_single(cleaned, settings)
+    if endpoint is None:
+        raise not_a_date(text, cleaned)
+    return Span.point(endpoint)
 
 
 def split_at_mark(cleaned: str, text: str, mark: re.Pattern[str]) -> tuple[str, str] | None:
@@ -90,40 +137,46 @@ def _separates(cleaned: str, index: int) -> bool:
 
 
 def _text_range(parts: tuple[str, str], text: str, settings: DateSettings) -> Span:
-    start_text, written_end = parts
-    end_text = _unabbreviated(start_text, written_end)
-    start_text = _with_shared_era(start_text, end_text)
+    written_start, written_end = parts
+    start_text, end_text = completed(written_start, written_end)
+    if trace.on:
+        trace.note(f"a range: start {start_text!r}, end {end_text!r}")
     start = _range_side(start_text, "start", text, settings)
     end = _range_side(end_text, "end", text, settings)
     hint = None
-    if end_text != written_end:
-        hint = f"{written_end} after {start_text} reads as {end_text}; months are written 1650-04"
-    return ordered_span(start, end, text, hint)
+    if end_text != written_end and written_end.isdigit():
+        hint = (f"{written_end} after {written_start} reads as {end_text}; "
+                "months are written 1650-04")
+    elif end.latest is not None and start.earliest is not None and end.latest < start.earliest:
+        hint = _reversed_hint(start_text, end_text)
+    return ordered_span(start, end, text, hint, locate(text, written_end) if written_end else None)
 
 
-def _unabbreviated(start_text: str, end_text: str) -> str:
-    if _PLAIN_YEAR.fullmatch(start_text) and _TWO_DIGITS.fullmatch(end_text):
-        return start_text[:-2] + end_text
-    return end_text
-
-
-def _with_shared_era(start_text: str, end_text: str) -> str:
-    if (start_text and start_text[0] not in "+-" and split_era(start_text)[1] is None
-            and split_era(end_text)[1] == "BC"):
-        return f"{start_text} BC"
-    return start_text
+def _reversed_hint(start_text: str, end_text: str) -> str:
+    if re.search(r"\b(?:BP|ka|kya|Ma|mya|Ga|ago)\b", end_text, re.IGNORECASE):
+        return "ages count back from the present: write the older first (66–56 Ma)"
+    return f"did you mean {end_text} – {start_text}?"
 
 
 def _range_side(part: str, side: str, text: str, settings: DateSettings) -> Endpoint:
     """One side of a free-text range; its errors name the side."""
     if not part:
         raise DateError(text, f"the range has no {side}", hint=RANGE_HINT)
+    word = part.lower()
+    if word in _UNKNOWN_WORDS:
+        return Endpoint.open(Qualifier.UNKNOWN_START if side == "start" else Qualifier.UNKNOWN_END)
+    if side == "end" and word in _RUNNING_ON_WORDS:
+        return Endpoint.open(Qualifier.OPEN_END)
     try:
         endpoint = read_single(part, settings)
     except DateError as error:
-        raise DateError(text, f"the {side} {part!r}: {error.reason}", hint=error.hint) from error
+        raise DateError(text, f"the {side} {part!r}: {error.reason}", hint=error.hint,
+                        position=locate(text, part)) from error
     except ValueError as error:
-        raise DateError(text, f"the {side} {part!r}: {error}") from error
+        reason = getattr(error, "reason", str(error))
+        raise DateError(text, f"the {side} {part!r}: {reason}", hint=getattr(error, "hint", None),
+                        position=locate(text, getattr(error, "fragment", None) or part)) from error
     if endpoint is None:
-        raise DateError(text, f"the {side} {part!r} is not a date form I know", hint=DATE_HINT)
+        raise DateError(text, f"the {side} {part!r} is not a date form I know", hint=DATE_HINT,
+                        position=locate(text, part))
     return endpoint

@@ -1,49 +1,45 @@
-"""One date: a base form (free text or ISO 8601), optionally behind `c.` and `before`/`after`.
+"""One date: a set, `between X and Y`, `X or Y`, or a core with its words (frame.py).
 
-Dispatch is flat: `before`/`after` over `circa` over a base form. A base form is tried as free
-text first (calendar setting), then as ISO 8601 (proleptic Gregorian); the two sets of forms
-never claim the same text except a bare unpadded year, which is free text on purpose (iso.py).
+- `between 1650 and 1660`, `bet. 1650 and 1660` (GEDCOM's BET ... AND): one window from the
+  first's earliest to the second's latest day, `one_of`;
+- `1650 or 1651`, `12 or 13 April 1650`: the same window, `one_of` (the window also holds
+  the days between the two: an endpoint is one window);
+- `1650 or earlier`, `1650 or before`: on or before 1650; `1650 or later`, `or after`: on or
+  after (the words allow the date itself, so no convention is involved);
+- sets `[..]` and `{..}`: sets.py.
+The two dates of a pair lend each other what they share (completion.py).
 
-Each form returns None when the text is not written its way and raises when it is but the date
+Forms return None when the text is not written their way and raise when it is but the date
 cannot exist; so a text matched by no form gets one general reason and hint.
 """
 from __future__ import annotations
 
 import re
 
-from ..calendar import GREGORIAN
 from ..errors import DateError
-from ..model import Endpoint
-from .iso import iso_date
+from ..model import Endpoint, Qualifier
+from . import trace
+from .completion import completed
+from .frame import read_framed
+from .grammar import FLAGS
+from .months import misspelt_month
+from .reasons import DATE_HINT, Unreadable, date_error, locate
+from .sets import read_set
 from .settings import DEFAULT_SETTINGS, DateSettings
-from .text import read_text
-from .windows import DATE_HINT, after, approximate, before, normalise, reading
+from .windows import after, before, normalise, spanning
 
-_FLAGS = re.VERBOSE | re.IGNORECASE | re.ASCII
+BETWEEN = re.compile(r"""
+    (?:between|betw\.?|bet\.?|btw\.?) \s+ (?P<first>.+?) \s+ (?:and|&) \s+ (?P<second>.+)
+""", FLAGS)
 
-CIRCA = re.compile(r"""
-    (?: circa                      # circa 1650
-      | ca\. | ca(?=[\s0-9])       # ca. 1650, ca 1650
-      | c\.  | c(?=[\s0-9])        # c. 1650, c 1650, c1650 (not CE 1066)
-      | about(?=\s)                # about 1650
-      | approx\. | approx(?=\s)    # approx. 1650, approx 1650
-      | approximately(?=\s)        # approximately 1650
-    )
-    \s*
-    (?P<rest>.+)
-""", _FLAGS)
+EITHER = re.compile(r"""
+    (?:either\s+)? (?P<first>.+?) \s+ or \s+ (?P<second>.+)
+""", FLAGS)
 
-BOUND = re.compile(r"""
-    (?: (?P<before> before | bef\. | bef(?=\s) )   # before 1700, bef. 1700
-      | (?P<after>  after  | aft\. | aft(?=\s) )   # after 1700, aft. 1700
-    )
-    \s*
-    (?P<rest>.+)
-""", _FLAGS)
+_OPEN_SIDE_WORDS = {"earlier": before, "before": before, "later": after, "after": after}
 
 # Signs that a text holds two dates: a dash, "to", or an interval's slash.
 _RANGE_MARK = re.compile(r"[\u2012-\u2015/]|\sto\s", re.IGNORECASE)
-
 
 # Longer texts are notes, not dates; refusing them early keeps every regex here linear.
 MAX_DATE_LENGTH = 200
@@ -52,8 +48,12 @@ MAX_DATE_LENGTH = 200
 def parse_date(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Endpoint:
     """One date (no range) as an endpoint window; raises DateError."""
     cleaned = prepared(text)
-    with reading(text):
+    try:
         endpoint = read_single(cleaned, settings)
+    except DateError:
+        raise
+    except ValueError as error:
+        raise date_error(text, error) from error
     if endpoint is None:
         raise not_a_date(text, cleaned)
     return endpoint
@@ -70,39 +70,47 @@ def prepared(text: object) -> str:
 
 
 def read_single(text: str, settings: DateSettings) -> Endpoint | None:
-    """A normalised single date, or None when no form claims it."""
-    for form in (bounded, circa):
-        endpoint = form(text, settings)
-        if endpoint is not None:
-            return endpoint
-    return read_base(text, settings)
-
-
-def bounded(text: str, settings: DateSettings) -> Endpoint | None:
-    """`before X`, `after X`, where X may be approximate."""
-    match = BOUND.fullmatch(text)
-    if match is None:
+    """A normalised single date, or None when no form claims it; raises Unreadable."""
+    if not text:
         return None
-    inner = circa(match["rest"], settings) or read_base(match["rest"], settings)
-    if inner is None:
+    if text[0] in "[{":
+        return read_set(text, settings, read_single)
+    if text[:3].lower() in ("bet", "btw"):
+        pair = BETWEEN.fullmatch(text)
+        if pair is not None:
+            return _pair(pair["first"], pair["second"], "between", settings)
+    if " or " in text.lower():
+        pair = EITHER.fullmatch(text)
+        if pair is not None:
+            return _either(pair["first"], pair["second"], settings)
+    return read_framed(text, settings)
+
+
+def _either(first: str, second: str, settings: DateSettings) -> Endpoint | None:
+    side = _OPEN_SIDE_WORDS.get(second.lower())
+    if side is None:
+        return _pair(first, second, "or", settings)
+    endpoint = read_framed(first, settings)
+    return None if endpoint is None else side(endpoint, settings, inclusive=True)
+
+
+def _pair(first_text: str, second_text: str, word: str,
+          settings: DateSettings) -> Endpoint | None:
+    """`between X and Y` / `X or Y`: one window over both dates."""
+    first_text, second_text = completed(first_text, second_text)
+    first = read_framed(first_text, settings)
+    second = read_framed(second_text, settings)
+    if first is None or second is None:
         return None
-    return before(inner, settings) if match["before"] else after(inner, settings)
-
-
-def circa(text: str, settings: DateSettings) -> Endpoint | None:
-    """`c. X`: X widened by the circa settings, in the calendar X was read in."""
-    match = CIRCA.fullmatch(text)
-    if match is None:
-        return None
-    inner = read_text(match["rest"], settings)
-    if inner is not None:
-        return approximate(inner, settings, settings.calendar)
-    inner = iso_date(match["rest"], settings)
-    return None if inner is None else approximate(inner, settings, GREGORIAN)
-
-
-def read_base(text: str, settings: DateSettings) -> Endpoint | None:
-    return read_text(text, settings) or iso_date(text, settings)
+    if (first.earliest is not None and second.latest is not None
+            and second.latest < first.earliest):
+        raise Unreadable("the second date comes before the first", fragment=second_text,
+                         hint=f"write the earlier first: {second_text} {word} {first_text}")
+    endpoint = spanning(first, second, Qualifier.ONE_OF)
+    if trace.on:
+        trace.note(f"'{word}': one window from the first date's earliest to the second's "
+                   f"latest day: {trace.bounds(endpoint)}")
+    return endpoint
 
 
 def not_a_date(text: str, cleaned: str) -> DateError:
@@ -112,4 +120,8 @@ def not_a_date(text: str, cleaned: str) -> DateError:
                          hint="an empty cell is read as no date, not through the parser")
     if _RANGE_MARK.search(cleaned):
         return DateError(text, "a range where one date is expected", hint=DATE_HINT)
+    misspelt = misspelt_month(cleaned)
+    if misspelt:
+        word, hint = misspelt
+        return DateError(text, "not a date form I know", position=locate(text, word), hint=hint)
     return DateError(text, "not a date form I know", hint=DATE_HINT)

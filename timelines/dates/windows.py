@@ -1,109 +1,178 @@
 """Endpoint windows built from calendar units, and the conventions that move their bounds.
 
-The helpers here know nothing of text. They raise `ValueError` with a plain reason ("month 13
-does not exist"); the parser entry points turn it into a `DateError` naming the text, in one
-place (`reading`).
+The helpers here know nothing of text. They raise `Unreadable` (a ValueError) with a plain
+reason ("month 13 does not exist"); the parser entry points turn it into a `DateError` naming
+the text, in one place (`reasons.reading`).
 """
 from __future__ import annotations
 
-from contextlib import contextmanager
 from dataclasses import replace
-from typing import Iterable, Iterator
+from functools import lru_cache
+from typing import Iterable
 
 from ..calendar import (
-    GREGORIAN, GREGORIAN_REFORM, HISTORICAL, fixed_from_calendar, gregorian_year_from_fixed,
+    GREGORIAN, GREGORIAN_REFORM, HISTORICAL, JULIAN, days_in_month, fixed_from_calendar,
+    fixed_from_gregorian, fixed_from_julian, gregorian_from_fixed, gregorian_year_from_fixed,
     julian_from_fixed, month_range, year_range,
 )
 from ..errors import DateError
 from ..model import Endpoint, Precision, Qualifier, Span
+from . import trace
+from .options import option_name
+from .reasons import Unreadable
 from .settings import DateSettings
 
 # Years of more digits than this are refused before `int()` sees them: deep time reaches
 # 10^10 years, and 10^12 years of days still fit an int64 fixed day number.
 MAX_YEAR_DIGITS = 12
+PRESENT_YEAR = 1950  # "before present" (BP, ka, Ma) counts back from 1950 (radiocarbon usage)
 
-DATE_HINT = "expected a date such as 1650, c. 1650, 1650s, 17th century, 1650-04-12, 44 BC"
-
-_PRECISION_ORDER = tuple(Precision)
-
-
-@contextmanager
-def reading(text: str) -> Iterator[None]:
-    """Turn a plain ValueError raised while reading `text` into a DateError about `text`."""
-    try:
-        yield
-    except DateError:
-        raise
-    except ValueError as error:
-        raise DateError(text, str(error)) from error
+_PRECISION_ORDER = {precision: rank for rank, precision in enumerate(Precision)}
+_APPROXIMATE_MARKS = frozenset({Qualifier.APPROXIMATE, Qualifier.CONVENTION_DEPENDENT})
 
 
 def normalise(text: str) -> str:
     """One space between words, none at the ends; typographic apostrophes and hyphens made plain."""
-    return " ".join(text.translate(_PLAIN_PUNCTUATION).split())
+    if not text.isascii():
+        text = text.translate(_PLAIN_PUNCTUATION)
+    return " ".join(text.split())
 
 
-_PLAIN_PUNCTUATION = str.maketrans({"\u2019": "'", "\u2018": "'", "\u2010": "-", "\u2011": "-"})
+_PLAIN_PUNCTUATION = str.maketrans({"\u2019": "'", "\u2018": "'", "\u2010": "-", "\u2011": "-",
+                                    "\u00a0": " ", "\u202f": " "})
 
 
 def check_year(year: int) -> int:
     if abs(year) >= 10 ** MAX_YEAR_DIGITS:
-        raise ValueError(f"year {year} is out of range (at most {MAX_YEAR_DIGITS} digits)")
+        raise Unreadable(f"year {year} is out of range (at most {MAX_YEAR_DIGITS} digits)")
     return year
+
+
+@lru_cache(maxsize=1 << 16)
+def year_bounds(year: int, calendar: str) -> tuple[int, int]:
+    """First and last fixed day of a year; columns repeat years, so this is remembered."""
+    check_year(year)
+    if calendar == HISTORICAL:
+        if year == 1582:
+            return year_range(year, calendar)   # Julian January, Gregorian December
+        calendar = GREGORIAN if year > 1582 else JULIAN
+    if calendar == GREGORIAN:
+        return fixed_from_gregorian(year, 1, 1), fixed_from_gregorian(year + 1, 1, 1) - 1
+    if calendar == JULIAN:
+        return fixed_from_julian(year, 1, 1), fixed_from_julian(year + 1, 1, 1) - 1
+    return year_range(year, calendar)           # an unknown calendar: its error
+
+
+@lru_cache(maxsize=1 << 16)
+def month_bounds(year: int, month_number: int, calendar: str) -> tuple[int, int]:
+    """First and last fixed day of a month; remembered like year_bounds."""
+    check_year(year)
+    if 1 <= month_number <= 12:
+        calendar = _reckoning(year, month_number, calendar)
+    if not 1 <= month_number <= 12 or calendar not in (GREGORIAN, JULIAN):
+        return month_range(year, month_number, calendar)   # its errors, or the 1582 reform
+    to_fixed = fixed_from_gregorian if calendar == GREGORIAN else fixed_from_julian
+    first = to_fixed(year, month_number, 1)
+    return first, first + days_in_month(year, month_number, calendar) - 1
+
+
+def day_fixed(year: int, month_number: int, day_number: int, calendar: str) -> int:
+    """The fixed day of a date that must exist in `calendar`; raises ValueError."""
+    if 1 <= month_number <= 12 and 1 <= day_number <= 28 and (
+            calendar != HISTORICAL or (year, month_number) != (1582, 10)):
+        # Every month has a 28th: only the reform month of the historical reckoning lacks days.
+        reckoning = _reckoning(check_year(year), month_number, calendar)
+        if reckoning == GREGORIAN:
+            return fixed_from_gregorian(year, month_number, day_number)
+        if reckoning == JULIAN:
+            return fixed_from_julian(year, month_number, day_number)
+    return fixed_from_calendar(check_year(year), month_number, day_number, calendar)
+
+
+def _reckoning(year: int, month_number: int, calendar: str) -> str:
+    """The calendar a month is written in: the historical reckoning's side of the reform."""
+    if calendar != HISTORICAL or (year, month_number) == (1582, 10):
+        return calendar
+    return GREGORIAN if (year, month_number) > (1582, 10) else JULIAN
 
 
 def years(first: int, last: int, calendar: str, precision: Precision,
           qualifiers: Iterable[Qualifier] = ()) -> Endpoint:
     """1 January of `first` .. 31 December of `last`, astronomical years written in `calendar`."""
-    earliest = year_range(check_year(first), calendar)[0]
-    latest = year_range(check_year(last), calendar)[1]
-    return Endpoint(earliest, latest, precision, frozenset(qualifiers))
+    return Endpoint(year_bounds(first, calendar)[0], year_bounds(last, calendar)[1], precision,
+                    frozenset(qualifiers))
 
 
 def month(year: int, month_number: int, calendar: str,
           qualifiers: Iterable[Qualifier] = ()) -> Endpoint:
-    earliest, latest = month_range(check_year(year), month_number, calendar)
+    earliest, latest = month_bounds(year, month_number, calendar)
     return Endpoint(earliest, latest, Precision.MONTH, frozenset(qualifiers))
 
 
 def day(year: int, month_number: int, day_number: int, calendar: str) -> Endpoint:
-    return Endpoint.day(fixed_from_calendar(check_year(year), month_number, day_number, calendar))
+    return Endpoint.day(day_fixed(year, month_number, day_number, calendar))
 
 
 def qualified(endpoint: Endpoint, *qualifiers: Qualifier) -> Endpoint:
     return replace(endpoint, qualifiers=endpoint.qualifiers | frozenset(qualifiers))
 
 
-def approximate(endpoint: Endpoint, settings: DateSettings, calendar: str) -> Endpoint:
-    """`c. X` / `X~`: X widened on both sides by the settings' circa amount for X's precision.
+def approximate(endpoint: Endpoint, settings: DateSettings, calendar: str,
+                precision: Precision | None = None) -> Endpoint:
+    """`c. X` / `X~`: X widened on both sides by the settings' circa amount for a precision
+    (X's own unless given: `2004-06~-11` widens by the month's amount).
 
-    A single day stays the likely day of the wider window."""
+    A single day, or the likely day X already had, stays the likely day of the wider window."""
     if endpoint.has(Qualifier.APPROXIMATE):
-        raise ValueError("approximate twice (both c. and ~); write one of them")
-    unit, amount = _circa_amount(endpoint.precision, settings)
-    if amount == 0:
-        return qualified(endpoint, Qualifier.APPROXIMATE)
-    if unit == "days":
-        earliest, latest = endpoint.earliest - amount, endpoint.latest + amount
-    else:
-        first_year = check_year(year_of(endpoint.earliest, calendar) - amount)
-        last_year = check_year(year_of(endpoint.latest, calendar) + amount)
-        earliest, latest = year_range(first_year, calendar)[0], year_range(last_year, calendar)[1]
+        raise Unreadable("approximate twice (both c. and ~); write one of them")
+    if endpoint.earliest is None or endpoint.latest is None:
+        raise Unreadable("only a bounded date can be approximate",
+                         hint="write c. before the date inside before/after: before c. 1650")
+    field, amount = circa_amount(precision or endpoint.precision, settings)
+    earliest, latest = _widened(endpoint, field, amount, calendar)
     likely = endpoint.earliest if endpoint.is_exact else endpoint.likely
-    marks = frozenset({Qualifier.APPROXIMATE, Qualifier.CONVENTION_DEPENDENT})
-    return Endpoint(earliest, latest, endpoint.precision, endpoint.qualifiers | marks, likely)
+    widened = Endpoint(earliest, latest, endpoint.precision,
+                       endpoint.qualifiers | _APPROXIMATE_MARKS, likely)
+    if trace.on:
+        unit = {"days": "days", "percent": "% of the age"}.get(_CIRCA_UNITS[field], "years")
+        trace.note(f"approximate: widened by {amount} {unit} on each side (setting "
+                   f"{option_name(field)} = {amount}): {trace.bounds(widened)}")
+    return widened
 
 
-def _circa_amount(precision: Precision | None, settings: DateSettings) -> tuple[str, int]:
-    # Millennia and coarser have no circa setting yet: they are marked, not widened.
-    amounts = {
-        Precision.DAY: ("days", settings.circa_days_for_day),
-        Precision.MONTH: ("days", settings.circa_days_for_month),
-        Precision.YEAR: ("years", settings.circa_years_for_year),
-        Precision.DECADE: ("years", settings.circa_years_for_decade),
-        Precision.CENTURY: ("years", settings.circa_years_for_century),
-    }
-    return amounts.get(precision, ("years", 0))
+_CIRCA_UNITS = {
+    "circa_days_for_day": "days", "circa_days_for_month": "days",
+    "circa_years_for_year": "years", "circa_years_for_decade": "years",
+    "circa_years_for_century": "years", "circa_years_for_millennium": "years",
+    "circa_percent_for_deep_time": "percent",
+}
+_CIRCA_FIELD = {
+    Precision.DAY: "circa_days_for_day", Precision.MONTH: "circa_days_for_month",
+    Precision.SEASON: "circa_days_for_month", Precision.YEAR: "circa_years_for_year",
+    Precision.DECADE: "circa_years_for_decade", Precision.CENTURY: "circa_years_for_century",
+    Precision.MILLENNIUM: "circa_years_for_millennium",
+    Precision.DEEP_TIME: "circa_percent_for_deep_time",
+}
+
+
+def circa_amount(precision: Precision | None, settings: DateSettings) -> tuple[str, int]:
+    """(the settings field, its value) that says how far circa widens at `precision`."""
+    field = _CIRCA_FIELD[precision or Precision.YEAR]
+    return field, getattr(settings, field)
+
+
+def _widened(endpoint: Endpoint, field: str, amount: int, calendar: str) -> tuple[int, int]:
+    unit = _CIRCA_UNITS[field]
+    if unit == "days":
+        return endpoint.earliest - amount, endpoint.latest + amount
+    first, last = year_of(endpoint.earliest, calendar), year_of(endpoint.latest, calendar)
+    if unit == "percent":
+        # Deep time: a share of the age, counted back from the present of BP (1950).
+        first -= (PRESENT_YEAR - first) * amount // 100
+        last += (PRESENT_YEAR - last) * amount // 100
+    else:
+        first, last = first - amount, last + amount
+    return year_bounds(first, calendar)[0], year_bounds(last, calendar)[1]
 
 
 def year_of(fixed: int, calendar: str) -> int:
@@ -113,37 +182,80 @@ def year_of(fixed: int, calendar: str) -> int:
     return julian_from_fixed(fixed)[0]
 
 
-def before(endpoint: Endpoint, settings: DateSettings) -> Endpoint:
-    """`before X`: no earliest bound; ends the day before X begins (exclusive) or with X."""
-    exclusive = settings.before_after == "exclusive"
-    latest = endpoint.earliest - 1 if exclusive else endpoint.latest
-    marks = frozenset({Qualifier.BEFORE, Qualifier.CONVENTION_DEPENDENT})
-    return Endpoint(None, latest, endpoint.precision, endpoint.qualifiers | marks)
+def date_of(fixed: int, calendar: str) -> tuple[int, int, int]:
+    """(year, month, day) of a fixed day as `calendar` writes it."""
+    if calendar == GREGORIAN or (calendar == HISTORICAL and fixed >= GREGORIAN_REFORM):
+        return gregorian_from_fixed(fixed)
+    return julian_from_fixed(fixed)
 
 
-def after(endpoint: Endpoint, settings: DateSettings) -> Endpoint:
+def before(endpoint: Endpoint, settings: DateSettings, inclusive: bool | None = None) -> Endpoint:
+    """`before X`: no earliest bound; ends the day before X begins (exclusive) or with X.
+
+    `inclusive` None follows the before-after setting; True or False is what the words said
+    (`by 1700`, `not after 1700`)."""
+    latest = endpoint.latest if _inclusive(inclusive, settings) else endpoint.earliest - 1
+    marks = _bound_marks(Qualifier.BEFORE, inclusive)
+    bounded = Endpoint(None, latest, endpoint.precision, endpoint.qualifiers | marks)
+    _note_bound("before", bounded, inclusive, settings)
+    return bounded
+
+
+def after(endpoint: Endpoint, settings: DateSettings, inclusive: bool | None = None) -> Endpoint:
     """`after X`: no latest bound; begins the day after X ends (exclusive) or with X."""
-    exclusive = settings.before_after == "exclusive"
-    earliest = endpoint.latest + 1 if exclusive else endpoint.earliest
-    marks = frozenset({Qualifier.AFTER, Qualifier.CONVENTION_DEPENDENT})
-    return Endpoint(earliest, None, endpoint.precision, endpoint.qualifiers | marks)
+    earliest = endpoint.earliest if _inclusive(inclusive, settings) else endpoint.latest + 1
+    marks = _bound_marks(Qualifier.AFTER, inclusive)
+    bounded = Endpoint(earliest, None, endpoint.precision, endpoint.qualifiers | marks)
+    _note_bound("after", bounded, inclusive, settings)
+    return bounded
+
+
+def _inclusive(inclusive: bool | None, settings: DateSettings) -> bool:
+    return settings.before_after == "inclusive" if inclusive is None else inclusive
+
+
+def _bound_marks(side: Qualifier, inclusive: bool | None) -> frozenset[Qualifier]:
+    if inclusive is None:
+        return frozenset({side, Qualifier.CONVENTION_DEPENDENT})
+    return frozenset({side})
+
+
+def _note_bound(side: str, bounded: Endpoint, inclusive: bool | None,
+                settings: DateSettings) -> None:
+    if not trace.on:
+        return
+    if inclusive is None:
+        rule = f"setting before-after = {settings.before_after}"
+    else:
+        rule = "the words say " + ("the date itself is allowed" if inclusive else "strictly")
+    trace.note(f"{side}: one side left open ({rule}): {trace.bounds(bounded)}")
 
 
 def coarser(first: Precision | None, second: Precision | None) -> Precision | None:
     """The coarser of two precisions; an open side (None) gives way to the other."""
-    known = [p for p in (first, second) if p is not None]
-    return max(known, key=_PRECISION_ORDER.index) if known else None
+    if first is None:
+        return second
+    if second is None:
+        return first
+    return first if _PRECISION_ORDER[first] >= _PRECISION_ORDER[second] else second
 
 
-def ordered_span(start: Endpoint, end: Endpoint, text: str, hint: str | None = None) -> Span:
+def ordered_span(start: Endpoint, end: Endpoint, text: str, hint: str | None = None,
+                 position: int | None = None) -> Span:
     if start.earliest is not None and end.latest is not None and end.latest < start.earliest:
-        raise DateError(text, "the end comes before the start", hint=hint)
+        raise DateError(text, "the end comes before the start", hint=hint, position=position)
     return Span(start, end)
+
+
+def spanning(first: Endpoint, last: Endpoint, qualifier: Qualifier) -> Endpoint:
+    """One window from `first`'s earliest to `last`'s latest day, e.g. `between X and Y`."""
+    qualifiers = first.qualifiers | last.qualifiers | {qualifier}
+    return Endpoint(first.earliest, last.latest, coarser(first.precision, last.precision),
+                    frozenset(qualifiers))
 
 
 def collapsed(span: Span) -> Endpoint:
     """A range read as one window: it happened once, somewhere between the start's earliest
     and the end's latest day (a born column holding `1985/1987`)."""
-    qualifiers = span.start.qualifiers | span.end.qualifiers | {Qualifier.ONE_OF}
-    precision = coarser(span.start.precision, span.end.precision)
-    return Endpoint(span.start.earliest, span.end.latest, precision, frozenset(qualifiers))
+    return spanning(span.start, span.end, Qualifier.ONE_OF)
+

@@ -1,0 +1,97 @@
+"""A whole column at once: each distinct cell read once, a plain ISO column read in bulk.
+
+`parse_column(values)` gives, for each cell, what `endpoint_from_cell` gives (an Endpoint, or
+None for an empty cell) or the DateError it raises; `parse_span_column` does the same with
+`span_from_cell`. Real columns repeat a lot (a thousand rows, forty distinct decades), so the
+results are shared objects, one per distinct value.
+
+A column whose cells are all `YYYY-MM-DD` strings is read by numpy's ISO 8601 day parser,
+which is proleptic Gregorian and refuses days that do not exist, as the language does; a
+column with anything else, or with one impossible day, takes the general path, which gives
+each bad cell its own error.
+"""
+from __future__ import annotations
+
+from typing import Callable, Iterable, Sequence
+
+from ..calendar import fixed_from_gregorian
+from ..errors import DateError
+from ..model import Endpoint, Precision, Span
+from .cells import endpoint_from_cell, span_from_cell
+from .settings import DEFAULT_SETTINGS, DateSettings
+
+Result = Endpoint | Span | DateError | None
+
+# numpy counts datetime64[D] days from 1970-01-01; R.D. counts from 0001-01-01 = 1.
+_UNIX_EPOCH = fixed_from_gregorian(1970, 1, 1)
+_ISO_DAY_LENGTH = 10
+
+
+def parse_column(values: Iterable[object],
+                 settings: DateSettings = DEFAULT_SETTINGS) -> list[Endpoint | DateError | None]:
+    """The endpoint (or None, or the DateError) of each cell of a start or end column."""
+    values = values if isinstance(values, list) else list(values)
+    days = _iso_days(values)
+    if days is not None:
+        return days
+    return _each_distinct_once(values, endpoint_from_cell, settings)
+
+
+def parse_span_column(values: Iterable[object],
+                      settings: DateSettings = DEFAULT_SETTINGS) -> list[Span | DateError | None]:
+    """The span (or None, or the DateError) of each cell of a single date column."""
+    values = values if isinstance(values, list) else list(values)
+    return _each_distinct_once(values, span_from_cell, settings)
+
+
+def _each_distinct_once(values: list[object], parse: Callable[[object, DateSettings], Result],
+                        settings: DateSettings) -> list:
+    results: dict[object, Result] = {}
+    for key in dict.fromkeys(map(_key, values)):
+        value = key if type(key) is str else key[1]
+        try:
+            results[key] = parse(value, settings)
+        except DateError as error:
+            results[key] = error
+    if all(type(value) is str for value in results):
+        return list(map(results.__getitem__, values))
+    return [results[_key(value)] for value in values]
+
+
+def _key(value: object) -> object:
+    # 1650, 1650.0 and True are equal dict keys; keep cells of different types apart.
+    return value if type(value) is str else (type(value), value)
+
+
+def _iso_days(values: Sequence[object]) -> list[Endpoint] | None:
+    """Every cell as its day when all are `YYYY-MM-DD` strings; None otherwise."""
+    if not values:
+        return None
+    try:
+        if set(map(len, values)) != {_ISO_DAY_LENGTH} or not min(values)[0].isdigit():
+            return None  # a cell of another length, or a sign (+/- sort before digits)
+    except TypeError:
+        return None      # a cell that is not a string
+    import numpy
+    try:
+        parsed = numpy.array(values, dtype="datetime64[D]")
+    except (ValueError, TypeError, OverflowError):
+        return None
+    if numpy.isnat(parsed).any():
+        return None      # 'NaT' and the like: not a date
+    days = parsed.astype(numpy.int64) + _UNIX_EPOCH
+    return _shared_days(days)
+
+
+def _shared_days(days) -> list[Endpoint]:
+    """One Endpoint per distinct day, each cell pointing at its own."""
+    import numpy
+    low = int(days.min())
+    offsets = days - low
+    present = numpy.zeros(int(offsets.max()) + 1, dtype=bool)
+    present[offsets] = True
+    distinct = numpy.flatnonzero(present)
+    # A table over the days from the first to the last, holding each distinct day's Endpoint.
+    table = numpy.empty(len(present), dtype=object)
+    table[distinct] = [Endpoint(day, day, Precision.DAY) for day in (distinct + low).tolist()]
+    return table[offsets].tolist()

@@ -24,15 +24,23 @@ ALLOWED = {
     "encodings": {"model", "scale", "theme", "scene", "errors"},
     "legend": {"encodings", "scale", "scene", "textsize", "theme"},
     "compose": {"layout", "scale", "theme", "encodings", "scene", "legend", "model",
-                "calendar", "textsize"},
+                "calendar", "textsize", "axis", "bands", "bars"},
+    "bars": {"calendar", "encodings", "layout", "model", "scale", "scene", "theme"},
+    "lane_settings": {"config", "errors", "layout", "model", "sources"},
+    "axis": {"scale", "scene", "textsize", "theme"},            # the time axis and grid
+    "bands": {"encodings", "legend", "model", "scale", "scene", "textsize", "theme"},
+    "facets": {"compose", "layout", "legend", "model", "scale", "scene", "theme"},
+    "window": {"dates", "errors", "model"},                      # --from/--to
+    "page": {"config", "errors", "scene", "theme"},              # --size, --font-size
     "render": {"scene"},
     "chart": {"check", "compose", "dates", "errors", "layout", "model", "scale", "scene",
-              "sources", "textsize", "theme", "render", "calendar", "config", "privacy"},
+              "sources", "textsize", "theme", "render", "calendar", "config", "privacy",
+              "facets", "page", "window", "bands", "bars", "lane_settings"},
     "config": {"errors"},                       # stdlib (tomllib, argparse) and errors only
     "lanes": {"calendar", "layout", "scale"},   # the `timelines lanes` report
     "privacy": {"model", "calendar"},           # withholding possibly living persons' details
     "cli": {"chart", "check", "calendar", "dates", "encodings", "errors", "sources", "theme",
-            "__init__", "config", "layout", "lanes", "scene"},
+            "__init__", "config", "layout", "lanes", "scene", "page", "window"},
     "__init__": {"dates", "errors", "model"},
     "__main__": {"cli"},
 }

@@ -227,3 +227,37 @@ def test_withhold_living_replaces_recent_people_without_a_death(tmp_path, capsys
     text = out.read_text(encoding="utf-8")
     assert "Young Ada" not in text and "1990-05-04" not in text and "P2" not in text
     assert "Old Ezra" in text
+
+
+def test_parse_explain_says_how_each_bound_was_reached(capsys):
+    code, out, _ = run(capsys, "parse", "--explain", "c. 1650")
+    assert code == 0
+    lines = out.splitlines()
+    assert lines[0] == "input: 'c. 1650'"
+    assert any("setting circa-year = 5" in line for line in lines)
+    assert lines[-1].startswith("result: 1645-01-01 .. 1655-12-31")
+
+
+def test_date_conventions_are_options_and_config_keys(tmp_path, capsys):
+    # 17th century read strictly counts from AD 1: 1601-1700 (common practice, no source)
+    code, out, _ = run(capsys, "parse", "--json", "--century", "strict", "17th century")
+    assert code == 0 and json.loads(out)["earliest"] == "1601-01-01"
+    code, _, err = run(capsys, "parse", "--century", "sometimes", "17th century")
+    assert code == 2 and "century must be one of common, strict" in err
+    config = tmp_path / "dates.toml"
+    config.write_text('century = "strict"\nday-first = "yes"\n', encoding="utf-8")
+    table = tmp_path / "t.csv"
+    table.write_text("name,start,end\nA,17th century,03/04/1710\n", encoding="utf-8")
+    out_file = tmp_path / "t.svg"
+    assert run(capsys, "render", str(table), "--config", str(config), "-o", str(out_file))[0] == 0
+    [title] = [g.find(f"{SVG}title").text for g in ET.parse(out_file).getroot().iter(f"{SVG}g")
+               if g.get("class") == "record"]
+    assert "possible: 1601-01-01 to 1710-04-03" in title
+
+
+@pytest.mark.parametrize("command", ["render", "parse", "check", "lanes"])
+def test_every_command_has_working_help(command, capsys):
+    with pytest.raises(SystemExit) as exited:
+        main([command, "--help"])
+    assert exited.value.code == 0
+    assert "usage: timelines" in capsys.readouterr().out

@@ -242,3 +242,19 @@ def test_importing_the_module_does_not_load_matplotlib():
         "assert 'matplotlib' not in sys.modules\n"
     )
     subprocess.run([sys.executable, "-c", script], check=True)
+
+
+def test_png_text_stays_inside_the_room_layout_reserves(tmp_path):
+    # Layout reserves textsize.text_width times the hinting allowance; the PNG stays inside.
+    from PIL import Image
+
+    from timelines.chart import RENDERED_WIDTH_ALLOWANCE
+    from timelines.textsize import text_width
+
+    label = "Chamber organ for the Brightwater rooms, 1650-1720 and more words"
+    path = tmp_path / "wide.png"
+    render_png(Scene(1000, 40, (Text(10, 28, label, 12),)), path, dpi=96)
+    grey = numpy.asarray(Image.open(path).convert("L"))
+    ink = numpy.where((grey < 160).any(axis=0))[0]
+    assert ink.max() <= 10 + text_width(label, 12) * RENDERED_WIDTH_ALLOWANCE
+    assert ink.max() >= 10 + text_width(label, 12) * 0.97

@@ -2,8 +2,10 @@
 
 `render()` is what `timelines render` runs; `arrange()` stops after the layout (what
 `timelines lanes` reports); `build_scene()` is the part after the records exist, for callers
-who make records themselves. The user's lane options arrive by name (`LaneSettings`: columns
-by header name, distances as text) and become the layout's rules here.
+who make records themselves. The user's lane options arrive by name (`LaneSettings`, made into
+the layout's rules by `lane_settings`). Around the lanes: the time window of --from/--to
+(`window`), background bands from a second table (`bands`), one panel per value of a facet
+column (`facets`) and the page size the chart is fitted to (`page`).
 """
 from __future__ import annotations
 
@@ -11,50 +13,38 @@ from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import Callable, Iterable
 
+from .bands import on_axis
 from .check import Report, check
-from .compose import (
-    SUBGROUP_INDENT, ChartText, compose, drawn_span, qualifier_kind, title_height,
-)
+from .bars import drawn_span, qualifier_kind
+from .compose import SUBGROUP_INDENT, ChartText, compose, title_height
+from .facets import Panel, compose_facets, panel_width
 from .config import Distance, parse_distance
 from .dates import DEFAULT_SETTINGS, DateSettings
 from .errors import TimelineError, UsageError
-from .layout import (
-    GROUP_ORDERS, LABEL_MODES, PACKINGS, SORT_KEYS, GroupNode, LaneRules, Placement, UnknownGroup,
-    group_tree, place,
-)
+from .lane_settings import LaneSettings, column_reader, lane_rules
+from .layout import GroupNode, LaneRules, Placement, UnknownGroup, group_records, group_tree, place
 from .model import Record
+from .page import FittedPage, PageSize, fit_height, font_note
 from .privacy import withhold_possibly_living
 from .scale import TimeScale, nice_domain
 from .scene import Scene
 from .sources import ColumnMap, LoadResult, detect_columns, load_records, read_table
-from .sources.columns import column_parts, did_you_mean, existing_column
+from .sources import read_records as read_table_records
+from .sources.columns import did_you_mean, existing_column
 from .textsize import text_width
 from .theme import DEFAULT_THEME, Theme
+from .window import TimeWindow, split_by_window
+
+# Renderers that hint glyphs (Agg for PNG, cairo) set a line up to about 4% wider than the
+# font's own advances (measured here: a 12 px line 3.5% wider in our PNG); labels get that
+# room so a label never touches the next bar in any output.
+RENDERED_WIDTH_ALLOWANCE = 1.04
 
 FORMATS = (".svg", ".png", ".pdf")
 # Room kept free beyond a label beside its bar, in label pads: with the lane gap it puts the
 # next bar three times as far from the label as the label's own bar, so proximity says which
 # bar a label names (Gestalt law of proximity; the factor is common practice, no source).
 LABEL_CLEARANCE = 2.0
-
-
-@dataclass(frozen=True, slots=True)
-class LaneSettings:
-    """How lanes are grouped, ordered and packed, as the user names things (see layout)."""
-
-    subgroup: str | None = None          # a column nesting groups inside the --group column
-    group_order: str = "first"           # first, name, size, or names separated by commas
-    subgroup_order: str = "first"
-    min_group_size: int = 0              # smaller groups merge into `other_group`
-    min_subgroup_size: int = 0           # the same for the subgroups of each group
-    other_group: str = "Other"
-    pack: str = "compact"                # compact, ordered or single
-    sort: str = "start"                  # start, end, duration, label or a column name
-    descending: bool = False
-    lane_gap: str = "3px"                # a time (5y, 30d) or a page distance (4px, 1mm)
-    lane_column: str | None = None       # a column of lane numbers pinning records
-    max_lanes: int | None = None         # per group; what does not fit is reported
-    labels: str = "beside"               # beside, inside (or left out) or none
 
 
 @dataclass(frozen=True, slots=True)
@@ -69,6 +59,13 @@ class ChartOptions:
     lanes: LaneSettings = field(default_factory=LaneSettings)
     text: str = "text"                  # SVG text: "text", or "paths" (glyph outlines)
     privacy: "Privacy | None" = None    # withhold possibly living persons' details
+    subtitle: str = ""
+    credit: str = ""                    # a source or credit line at the foot of the page
+    notes: tuple[str, ...] = ()         # the user's notes under the chart
+    window: TimeWindow | None = None    # --from/--to: the time the axis shows
+    bands: str | Path | None = None     # a table of named periods drawn behind the lanes
+    facet: str | None = None            # a column: one small timeline per value
+    size: PageSize | None = None        # the page; its width overrides the theme's
 
 
 @dataclass(frozen=True, slots=True)
@@ -81,7 +78,8 @@ class Privacy:
 
 @dataclass(frozen=True, slots=True)
 class Arranged:
-    """A table read, checked and laid out; no scale or placement when nothing is dated."""
+    """A table read, checked and laid out; no scale or placement when nothing is dated.
+    With `--facet`, `panels` holds each value's placement (all on one `scale`) instead."""
 
     loaded: LoadResult
     report: Report
@@ -89,25 +87,45 @@ class Arranged:
     scale: TimeScale | None
     placement: Placement | None
     withheld: int = 0                   # records shown without their details
+    outside: tuple[Record, ...] = ()    # dated records wholly outside --from/--to
+    bands: LoadResult | None = None     # the --bands table
+    panels: tuple[Panel, ...] = ()      # with --facet: one placement per value
+
+    @property
+    def placements(self) -> tuple[Placement, ...]:
+        if self.panels:
+            return tuple(panel.placement for panel in self.panels)
+        return (self.placement,) if self.placement else ()
+
+    @property
+    def bands_off_axis(self) -> tuple[Record, ...]:
+        """Bands with no part in the time shown (or no usable date): not drawn."""
+        if self.bands is None or self.scale is None:
+            return ()
+        return tuple(on_axis(self.bands.records, (self.scale.start, self.scale.end))[1])
 
     @property
     def not_drawn(self) -> int:
-        """Rows without a bar: unreadable, contradictory, undated or left out of the lanes."""
+        """Rows without a bar: unreadable, contradictory, undated or left out of the lanes.
+        Rows outside --from/--to are not counted: the user chose to leave them out."""
         return self.report.not_drawn + len(self.left_out)
 
     @property
     def left_out(self) -> tuple[Record, ...]:
-        return self.placement.left_out if self.placement else ()
+        return tuple(record for placement in self.placements for record in placement.left_out)
 
     def summary(self, max_lanes: int | None = None) -> str:
-        """The check's one-line summary, with the records the lanes had no room for."""
-        if not self.left_out:
-            return self.report.summary()
-        counts = replace(self.report.counts,
-                         drawn=self.report.counts.drawn - len(self.left_out))
-        limit = f" (at most {max_lanes} lanes a group)" if max_lanes else ""
-        return (f"{replace(self.report, counts=counts).summary()}; "
-                f"{len(self.left_out)} left out for lack of room{limit}")
+        """The check's one-line summary, with the records the lanes had no room for and those
+        outside the window."""
+        hidden = len(self.left_out) + len(self.outside)
+        counts = replace(self.report.counts, drawn=self.report.counts.drawn - hidden)
+        text = replace(self.report, counts=counts).summary()
+        if self.left_out:
+            limit = f" (at most {max_lanes} lanes a group)" if max_lanes else ""
+            text += f"; {len(self.left_out)} left out for lack of room{limit}"
+        if self.outside:
+            text += f"; {len(self.outside)} outside --from/--to"
+        return text
 
 
 @dataclass(frozen=True, slots=True)
@@ -117,35 +135,73 @@ class RunResult:
     scene: Scene | None
     written: Path | None
     arranged: Arranged | None = None
+    warnings: tuple[str, ...] = ()      # about the page: a chart taller than --size, the font
 
 
 def render(source: str | Path, output: str | Path, options: ChartOptions = ChartOptions()
            ) -> RunResult:
     output = Path(output)
     output_format(output)                                   # fail before any work
+    options = page_options(options)
     arranged = arrange(source, options)                     # read + parse + check + layout
     if options.strict and arranged.not_drawn:
         return RunResult(arranged.loaded, arranged.report, None, None, arranged)
-    scene = arranged_scene(arranged, options)               # scene
-    write(scene, output, dpi=options.dpi, text=options.text)  # draw
-    return RunResult(arranged.loaded, arranged.report, scene, output, arranged)
+    page = arranged_page(arranged, options)                 # scene, fitted to the page
+    write(page.scene, output, dpi=options.dpi, text=options.text)  # draw
+    warnings = tuple(w for w in (page.warning, font_note(options.theme.font_family)) if w)
+    return RunResult(arranged.loaded, arranged.report, page.scene, output, arranged, warnings)
+
+
+def page_options(options: ChartOptions) -> ChartOptions:
+    """Options with the page width of `size` in the theme, where the layout measures it."""
+    if options.size is None:
+        return options
+    return replace(options, theme=replace(options.theme, width=options.size.width))
 
 
 def arrange(source: str | Path, options: ChartOptions = ChartOptions()) -> Arranged:
+    options = page_options(options)
     table = read_table(source, options.sheet)                            # read
     columns = detect_columns(table.header, options.columns)
     loaded = load_records(table, columns, options.settings)              # parse
     loaded, withheld = _withhold(loaded, options.privacy)
     report = check(loaded)                                               # check
-    dated = [r for r in loaded.records if r.span is not None]
+    kept, outside = split_by_window(loaded.records, options.window)      # the window
+    bands = read_bands(options.bands, options.settings) if options.bands else None
+    arranged = Arranged(loaded, report, columns, None, None, withheld, tuple(outside), bands)
+    dated = [r for r in kept if r.span is not None]
     if not dated:
-        return Arranged(loaded, report, columns, None, None, withheld)
+        return arranged
     rules, gap = lane_rules(options.lanes, columns, table.header)
+    if options.facet:
+        return _arrange_panels(arranged, dated, options, table.header, rules, gap)
     tree = _group_tree(dated, rules)
-    scale = chart_scale(dated, options.theme, tree)                      # scale
-    placement = lay_out(loaded.records, scale, options.theme, rules, gap,  # layout
+    scale = chart_scale(dated, options.theme, tree, options.window)      # scale
+    placement = lay_out(kept, scale, options.theme, rules, gap,          # layout
                         options.lanes.labels, tree)
-    return Arranged(loaded, report, columns, scale, placement, withheld)
+    return replace(arranged, scale=scale, placement=placement)
+
+
+def _arrange_panels(arranged: Arranged, dated: list[Record], options: ChartOptions,
+                    header, rules: LaneRules, gap: Distance) -> Arranged:
+    """One placement per value of the facet column, all on one time scale and one width."""
+    facet = existing_column(header, options.facet, "facet")
+    facets = group_records(dated, column_reader(arranged.columns, header, facet, "facet"),
+                           "first")
+    theme = replace(options.theme, width=panel_width(options.theme.width, len(facets)))
+    # Faceted by the group column, a panel is one group: no group names inside it.
+    group_of = (lambda r: None) if facet == arranged.columns.group else (lambda r: r.group)
+    trees = [_group_tree(members, rules, group_of) for _, members in facets]
+    scale = chart_scale(dated, theme, [node for tree in trees for node in tree], options.window)
+    panels = tuple(Panel(name, lay_out(members, scale, theme, rules, gap, options.lanes.labels,
+                                       tree))
+                   for (name, members), tree in zip(facets, trees))
+    return replace(arranged, scale=scale, panels=panels)
+
+
+def read_bands(source: str | Path, settings: DateSettings = DEFAULT_SETTINGS) -> LoadResult:
+    """The named periods of a `--bands` table: columns label, start, end (or when)."""
+    return read_table_records(source, ColumnMap(), settings)
 
 
 def _withhold(loaded: LoadResult, privacy: Privacy | None) -> tuple[LoadResult, int]:
@@ -162,47 +218,88 @@ def read_records(source: str | Path, options: ChartOptions = ChartOptions()) -> 
 
 
 def arranged_scene(arranged: Arranged, options: ChartOptions) -> Scene:
-    if arranged.placement is None:
+    return arranged_page(arranged, options).scene
+
+
+def arranged_page(arranged: Arranged, options: ChartOptions) -> FittedPage:
+    """The scene of an arranged table, fitted to the page height of `options.size`."""
+    if arranged.scale is None and arranged.outside:
+        raise UsageError(f"nothing to draw: all {len(arranged.outside)} dated records lie "
+                         "outside --from/--to", hint="widen the window or leave it out")
+    if arranged.scale is None:
         raise TimelineError("nothing to draw: no row has a usable date")
+    options = page_options(options)
+    records = arranged.loaded.records
     report = arranged.report
-    return placement_scene(arranged.loaded.records, arranged.placement, arranged.scale,
-                           options.theme, options.title,
-                           not_drawn=report.not_drawn - report.undated)
+    text = ChartText(options.title, tuple(r for r in records if r.span is None),
+                     report.not_drawn - report.undated, subtitle=options.subtitle,
+                     credit=options.credit, notes=options.notes, outside=arranged.outside)
+    bands = arranged.bands.records if arranged.bands else ()
+    if arranged.panels:
+        facet = options.facet or ""
+        return fit_height(lambda theme: compose_facets(
+            arranged.panels, arranged.scale, theme, text, *_colors(records, arranged, theme),
+            facet=facet, bands=bands), options.theme, options.size)
+    return fit_height(lambda theme: placement_scene(
+        records, arranged.placement, arranged.scale, theme, text=text, bands=bands),
+        options.theme, options.size)
+
+
+def _colors(records, arranged: Arranged, theme: Theme):
+    """(colour of a record, the colour key) for the records drawn, in table order."""
+    drawn = {id(p.record) for placement in arranged.placements
+             for _, group in placement.leaves() for p in group.records}
+    colors = color_key([r for r in records if id(r) in drawn], theme)
+    by_value = dict(colors)
+    return (lambda r: by_value.get(r.color, theme.bar_color)), colors
 
 
 def build_scene(records: Iterable[Record], theme: Theme = DEFAULT_THEME, title: str = "",
                 not_drawn: int = 0, lanes: LaneSettings = LaneSettings(),
-                columns: ColumnMap = ColumnMap()) -> Scene:
+                columns: ColumnMap = ColumnMap(), window: TimeWindow | None = None,
+                bands: Iterable[Record] = (), text: ChartText | None = None) -> Scene:
+    """The scene of records made by the caller (no table): what `render` draws."""
     records = list(records)
-    dated = [r for r in records if r.span is not None]
+    kept, outside = split_by_window(records, window)
+    dated = [r for r in kept if r.span is not None]
     if not dated:
         raise TimelineError("nothing to draw: no row has a usable date")
     rules, gap = lane_rules(lanes, columns, None)
     tree = _group_tree(dated, rules)
-    scale = chart_scale(dated, theme, tree)                             # scale
-    placement = lay_out(records, scale, theme, rules, gap, lanes.labels, tree)  # layout
-    return placement_scene(records, placement, scale, theme, title, not_drawn)   # scene
+    scale = chart_scale(dated, theme, tree, window)                             # scale
+    placement = lay_out(kept, scale, theme, rules, gap, lanes.labels, tree)     # layout
+    text = text or ChartText(title, placement.undated, not_drawn)
+    return placement_scene(records, placement, scale, theme, text=replace(       # scene
+        text, outside=tuple(outside)), bands=tuple(bands))
 
 
 def placement_scene(records: Iterable[Record], placement: Placement, scale: TimeScale,
-                    theme: Theme, title: str, not_drawn: int = 0) -> Scene:
+                    theme: Theme, title: str = "", not_drawn: int = 0, *,
+                    text: ChartText | None = None, bands: Iterable[Record] = ()) -> Scene:
     # Colours in order of first appearance in the table, for the records drawn.
     drawn = {id(p.record) for _, group in placement.leaves() for p in group.records}
     colors = color_key([r for r in records if id(r) in drawn], theme)
-    text = ChartText(title, placement.undated, not_drawn)
+    text = text or ChartText(title, placement.undated, not_drawn)
     by_value = dict(colors)
     return compose(placement, scale, theme, text,
                    lambda r: by_value.get(r.color, theme.bar_color), colors,
-                   plot_top=title_height(title, theme) + 8)
+                   plot_top=title_height(text, theme) + 8, bands=tuple(bands))
 
 
 def chart_scale(dated: list[Record], theme: Theme,
-                tree: tuple[GroupNode, ...] | None = None) -> TimeScale:
-    """The time axis over every bound of the dated records, right of the group names."""
+                tree: Iterable[GroupNode] | None = None,
+                window: TimeWindow | None = None) -> TimeScale:
+    """The time axis over every bound of the dated records (or the --from/--to window),
+    right of the group names."""
     bounds = [day for r in dated for day in (r.span.start.earliest, r.span.start.latest,
                                              r.span.end.earliest, r.span.end.latest)
               if day is not None]
     low, high = nice_domain(min(bounds), max(bounds), era=theme.era)
+    if window is not None:
+        low, high = window.domain(low, high)
+    if high <= low:
+        raise UsageError(f"no record reaches into the window --from {window.start_text!r} "
+                         f"--to {window.end_text!r}", hint="give both --from and --to")
     if tree is None:
         tree = _group_tree(dated, LaneRules())
     left = theme.margin + group_column_width(tree, theme)
@@ -229,9 +326,11 @@ def _caption(name: str) -> str:
     return name or "(none)"
 
 
-def _group_tree(records: list[Record], rules: LaneRules) -> tuple[GroupNode, ...]:
+def _group_tree(records: list[Record], rules: LaneRules,
+                group_of: Callable[[Record], str | None] = lambda r: r.group
+                ) -> tuple[GroupNode, ...]:
     try:
-        return group_tree(records, lambda r: r.group, rules)
+        return group_tree(records, group_of, rules)
     except UnknownGroup as error:
         raise UsageError(str(error), hint=did_you_mean(error.name, error.known)) from error
 
@@ -246,7 +345,8 @@ def lay_out(records: list[Record], scale: TimeScale, theme: Theme,
     try:
         return place(records, domain=(scale.start, scale.end),
                      drawn_extent=lambda r: measured(r.span)[0],
-                     label_width=lambda r: text_width(r.label, theme.font_size) * days_per_px,
+                     label_width=lambda r: (text_width(r.label, theme.font_size)
+                                            * RENDERED_WIDTH_ALLOWANCE * days_per_px),
                      group_key=lambda r: r.group, gap=gap.days(days_per_px),
                      label_pad=theme.label_pad * days_per_px,
                      inside_room=lambda r: measured(r.span)[1],
@@ -286,72 +386,6 @@ def _drawn_measure(scale: TimeScale, theme: Theme, days_per_px: float):
 
 def _has_glyph(endpoint) -> bool:
     return qualifier_kind(endpoint.qualifiers) is not None
-
-
-def lane_rules(settings: LaneSettings, columns: ColumnMap, header: tuple[str, ...] | None
-               ) -> tuple[LaneRules, Distance]:
-    """The layout's rules from the user's settings; column names checked against `header`
-    (None: records made by the caller, whose other columns are in `Record.fields`)."""
-    for value, choices in ((settings.pack, PACKINGS), (settings.labels, LABEL_MODES)):
-        if value not in choices:
-            raise UsageError(f"{value!r} is not one of {', '.join(choices)}",
-                             hint=did_you_mean(value, choices))
-    # The sort keys are words, whatever their case; anything else names a column.
-    sort = settings.sort.strip().casefold()
-    if sort not in SORT_KEYS:
-        sort = column_reader(columns, header, settings.sort, "sort", keywords=SORT_KEYS)
-    rules = LaneRules(
-        subgroup_key=_optional_reader(columns, header, settings.subgroup, "subgroup"),
-        group_order=group_order(settings.group_order),
-        subgroup_order=group_order(settings.subgroup_order),
-        min_group_size=settings.min_group_size,
-        min_subgroup_size=settings.min_subgroup_size, other_group=settings.other_group or "Other",
-        pack=settings.pack, sort=sort, descending=settings.descending,
-        lane_of=_optional_reader(columns, header, settings.lane_column, "lane column"),
-        max_lanes=settings.max_lanes)
-    return rules, parse_distance(settings.lane_gap)
-
-
-def group_order(text: str) -> str | tuple[str, ...]:
-    """"first", "name", "size", or a comma-separated list of group names ("Masters," is a
-    list of one name, for a group called like an order)."""
-    if text.strip() in GROUP_ORDERS:
-        return text.strip()
-    names = tuple(name.strip() for name in text.split(",") if name.strip())
-    if not names:
-        raise UsageError(f"cannot read the group order {text!r}",
-                         hint="give first, name, size or group names separated by commas")
-    return names
-
-
-def _optional_reader(columns: ColumnMap, header, name: str | None, part: str):
-    return None if name is None else column_reader(columns, header, name, part)
-
-
-def column_reader(columns: ColumnMap, header: tuple[str, ...] | None, name: str, part: str,
-                  keywords: tuple[str, ...] = ()) -> Callable[[Record], str | None]:
-    """A function giving a record's text in column `name` (checked against `header`)."""
-    if header is not None:
-        try:
-            name = existing_column(header, name, part)
-        except UsageError as error:
-            hint = did_you_mean(name, (*keywords, *header)) if keywords else error.hint
-            raise UsageError(str(error), hint=hint) from None
-    role = next((role for role, column in column_parts(columns) if column == name), None)
-    if role in ("label", "id", "group", "color"):
-        return lambda record: getattr(record, role)
-    if role in ("start", "when"):
-        return lambda record: record.start_text
-    if role == "end":
-        return lambda record: record.end_text
-
-    def field_text(record: Record) -> str | None:
-        for column, text in record.fields:
-            if column == name:
-                return text
-        return None
-
-    return field_text
 
 
 def color_key(records: list[Record], theme: Theme) -> tuple[tuple[str, str], ...]:

@@ -16,25 +16,29 @@ import datetime
 import json
 import os
 import sys
-from dataclasses import replace
 from importlib import resources
 from pathlib import Path
 
 from . import __version__
-from .calendar import CALENDARS
 from . import lanes as lane_report
 from .chart import ChartOptions, LaneSettings, Privacy, arrange, read_records, render
 from .check import check
 from .config import apply_settings, config_lines, parse_distance
-from .dates import DEFAULT_SETTINGS, DateSettings, describe
+from .dates import (
+    DEFAULT_SETTINGS, SETTING_HELP, DateSettings, describe, explain, options_from_settings,
+    settings_from_options,
+)
 from .encodings import FRINGES
 from .errors import TimelineError, UsageError
 from .layout import GROUP_ORDERS, LABEL_MODES, PACKINGS, SORT_KEYS
+from .page import parse_font_size, parse_size, png_dpi
 from .sources import ColumnMap
 from .scene import TEXT_MODES
 from .theme import DEFAULT_THEME, PALETTES
+from .window import outside_note, parse_window
 
 DEMO = "fenwold-organ-builders.csv"
+DATE_DEFAULTS = options_from_settings(DEFAULT_SETTINGS)
 ERAS = ("bce", "bc", "astronomical", "bp")
 LANE_DEFAULTS = LaneSettings()
 # Options that say what to run or where output goes, not how: never read from a config file.
@@ -44,7 +48,9 @@ CONFIG_COMMANDS = ("render", "check", "lanes")
 UNSET = {**{part: "found from the header names" for part in
             ("start", "end", "when", "label", "group", "color", "id")},
          "sheet": "the first sheet", "subgroup": "none", "lane-column": "none",
-         "max-lanes": "no limit"}
+         "max-lanes": "no limit", "from": "the earliest record", "to": "the latest record",
+         "bands": "none", "facet": "none", "size": "--width wide, as tall as the chart",
+         "font-size": "9pt", "dpi": "150, or 96 with --size in px", "note": "none"}
 
 
 class _Parser(argparse.ArgumentParser):
@@ -66,7 +72,8 @@ def build_parser() -> argparse.ArgumentParser:
     draw.add_argument("--demo", action="store_true", help="use the bundled demo table")
     _table_options(draw)
     _lane_options(draw)
-    draw.add_argument("--title", default="", help="chart title")
+    _window_options(draw)
+    _text_options(draw)
     draw.add_argument("--fringe", choices=sorted(FRINGES), default=DEFAULT_THEME.fringe,
                       help=f"how possible parts are drawn (default {DEFAULT_THEME.fringe})")
     draw.add_argument("--era", choices=ERAS, default=DEFAULT_THEME.era, help="year labels")
@@ -74,7 +81,7 @@ def build_parser() -> argparse.ArgumentParser:
                       help=f"chart width in px (default {DEFAULT_THEME.width:g})")
     draw.add_argument("--palette", choices=sorted(PALETTES), default="okabe-ito",
                       help="colours for --color (default okabe-ito; tol-* are Paul Tol's)")
-    draw.add_argument("--dpi", type=float, default=150.0, help="PNG resolution (default 150)")
+    _page_options(draw)
     draw.add_argument("--text", dest="text_mode", choices=TEXT_MODES, default="text",
                       help="SVG text as text (default) or as glyph outlines (paths) for print")
     _privacy_options(draw)
@@ -85,6 +92,8 @@ def build_parser() -> argparse.ArgumentParser:
     read = commands.add_parser("parse", help="show how date texts are read")
     read.add_argument("text", nargs="*", help="date texts; stdin lines when none are given")
     read.add_argument("--json", action="store_true", help="one JSON object per input line")
+    read.add_argument("--explain", action="store_true",
+                      help="say how each bound was reached: form, rule, convention setting")
     _date_options(read)
 
     validate = commands.add_parser("check", help="report what cannot be read in a table")
@@ -102,6 +111,7 @@ def build_parser() -> argparse.ArgumentParser:
                              "row,id,group,lane,box_start,box_end")
     _table_options(report)
     _lane_options(report)
+    _window_options(report)
     report.add_argument("--era", choices=ERAS, default=DEFAULT_THEME.era, help="year labels")
     report.add_argument("--width", type=float, default=DEFAULT_THEME.width,
                         help=f"chart width in px (default {DEFAULT_THEME.width:g}): "
@@ -158,6 +168,46 @@ def _lane_options(parser: argparse.ArgumentParser) -> None:
                             "lanes; none: tooltips only")
 
 
+def _window_options(parser: argparse.ArgumentParser) -> None:
+    window = parser.add_argument_group("time shown")
+    window.add_argument("--from", dest="window_from", metavar="DATE",
+                        help="start the axis at the earliest day of DATE (e.g. 1650, 44 BC); "
+                             "records wholly before it are listed, not drawn")
+    window.add_argument("--to", dest="window_to", metavar="DATE",
+                        help="end the axis at the latest day of DATE; records reaching past "
+                             "either edge are cut there and marked as continuing")
+
+
+def _text_options(parser: argparse.ArgumentParser) -> None:
+    words = parser.add_argument_group("words on the chart")
+    words.add_argument("--title", default="", help="chart title")
+    words.add_argument("--subtitle", default="", help="a line under the title")
+    words.add_argument("--credit", default="", help="a source or credit line at the foot")
+    words.add_argument("--note", action="append", metavar="TEXT",
+                       help="a note under the chart (repeat for more)")
+    words.add_argument("--bands", metavar="FILE",
+                       help="a table of named periods (label, start, end) drawn behind "
+                            "the lanes")
+    words.add_argument("--facet", metavar="COL",
+                       help="one small timeline per value of COL, in a grid on one time axis")
+
+
+def _page_options(parser: argparse.ArgumentParser) -> None:
+    page = parser.add_argument_group("page")
+    page.add_argument("--size", metavar="WxH", type=_checked(parse_size),
+                      help="page size such as 180x120mm, 7x5in or 1200x800px; the chart "
+                           "fills the height, bars closer together if it must (overrides "
+                           "--width)")
+    page.add_argument("--font", default=DEFAULT_THEME.font_family, metavar="FAMILY",
+                      help=f"font family (default {DEFAULT_THEME.font_family}, whose "
+                           "metrics label room is always measured with)")
+    page.add_argument("--font-size", metavar="SIZE", type=_checked(parse_font_size),
+                      help="label size in pt (9) or px (12px); other text scales with it "
+                           "(default 9pt)")
+    page.add_argument("--dpi", type=float,
+                      help="PNG resolution (default 150, or 96 with --size in px)")
+
+
 def _privacy_options(parser: argparse.ArgumentParser) -> None:
     living = parser.add_argument_group("living people (see docs/privacy.md)")
     living.add_argument("--withhold-living", action="store_true",
@@ -183,12 +233,20 @@ def _group_order_text(text: str) -> str:
     return text
 
 
-def _distance_text(text: str) -> str:
-    try:
-        parse_distance(text)
-    except UsageError as error:
-        raise argparse.ArgumentTypeError(f"{error} ({error.hint})") from None
-    return text
+def _checked(parse):
+    """An argparse type keeping the option's text, once `parse` has read it without error
+    (the text, not the value, so --print-config shows what was written)."""
+    def text_of(text: str) -> str:
+        try:
+            parse(text)
+        except UsageError as error:
+            raise argparse.ArgumentTypeError(f"{error} ({error.hint})") from None
+        return text
+    text_of.__name__ = parse.__name__.removeprefix("parse_")
+    return text_of
+
+
+_distance_text = _checked(parse_distance)
 
 
 def _count(least: int):
@@ -206,8 +264,10 @@ def _count(least: int):
 
 
 def _date_options(parser: argparse.ArgumentParser) -> None:
-    parser.add_argument("--calendar", choices=CALENDARS,
-                        help="calendar of free-text dates (default: historical)")
+    conventions = parser.add_argument_group("date conventions (docs/dates.md)")
+    for name, meaning in SETTING_HELP.items():
+        conventions.add_argument(f"--{name}", metavar="VALUE", default=DATE_DEFAULTS[name],
+                                 help=meaning.replace("%", "%%"))  # argparse formats help
 
 
 def main(argv: list[str] | None = None) -> int:
@@ -262,7 +322,11 @@ def _print_error(error: TimelineError) -> None:
 
 
 def _settings(args) -> DateSettings:
-    return replace(DEFAULT_SETTINGS, calendar=args.calendar) if args.calendar else DEFAULT_SETTINGS
+    given = {name: getattr(args, name.replace("-", "_")) for name in SETTING_HELP}
+    try:
+        return settings_from_options(given)
+    except ValueError as error:
+        raise UsageError(str(error), hint="see docs/dates.md for each convention") from None
 
 
 def _columns(args) -> ColumnMap:
@@ -303,37 +367,72 @@ def run_render(args, parser) -> int:
         parser.error("give either --when or --start/--end, not both")
     if not args.output:
         parser.error("render needs -o OUT.svg, OUT.png or OUT.pdf")
-    theme = DEFAULT_THEME.with_options(fringe=args.fringe, era=args.era, width=args.width,
-                                       palette=PALETTES[args.palette])
-    title = args.title or ("The Fenwold organ builders, 1600–1720 (invented demo data)"
-                           if args.demo else "")
-    options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args),
-                           theme=theme, title=title, strict=args.strict, dpi=args.dpi,
-                           lanes=_lane_settings(args), text=args.text_mode,
-                           privacy=_privacy(args))
-    result = render(_input_path(args, parser), args.output, options)
-    _print_run(result.arranged, args, theme.era)
+    if args.size and args.width != DEFAULT_THEME.width:
+        parser.error("give either --size or --width, not both")
+    result = render(_input_path(args, parser), args.output, _render_options(args))
+    _print_run(result.arranged, args, args.era)
+    for warning in result.warnings:
+        print(f"warning: {warning}", file=sys.stderr)
     if result.written is None:
         print("error: nothing written (--strict and some rows were not drawn)", file=sys.stderr)
     else:
         print(f"wrote {result.written}", file=sys.stderr)
-    return 1 if result.arranged.not_drawn else 0
+    return 1 if result.arranged.not_drawn or _band_problems(result.arranged) else 0
+
+
+def _render_options(args) -> ChartOptions:
+    theme = DEFAULT_THEME.with_options(fringe=args.fringe, era=args.era, width=args.width,
+                                       palette=PALETTES[args.palette], font_family=args.font)
+    if args.font_size:
+        theme = theme.with_font_size(parse_font_size(args.font_size))
+    title = args.title or ("The Fenwold organ builders, 1600–1720 (invented demo data)"
+                           if args.demo else "")
+    size = parse_size(args.size) if args.size else None
+    settings = _settings(args)
+    notes = [args.note] if isinstance(args.note, str) else args.note or []  # a config string
+    return ChartOptions(
+        columns=_columns(args), sheet=args.sheet, settings=settings, theme=theme, title=title,
+        strict=args.strict, dpi=png_dpi(args.dpi, size), lanes=_lane_settings(args),
+        text=args.text_mode, privacy=_privacy(args), subtitle=args.subtitle,
+        credit=args.credit, notes=tuple(notes), window=_window(args, settings),
+        bands=args.bands, facet=args.facet, size=size)
+
+
+def _window(args, settings: DateSettings):
+    return parse_window(args.window_from, args.window_to, settings)
+
+
+def _band_problems(arranged) -> int:
+    return len(arranged.bands.problems) if arranged and arranged.bands else 0
 
 
 def _print_run(arranged, args, era: str) -> None:
     """Every problem, warning and layout note on stderr, then the summary line."""
     _print_problems(arranged.loaded.problems)
     _print_problems(arranged.report.warnings)
+    if arranged.bands:
+        _print_problems(arranged.bands.problems)
     if arranged.withheld:
         people = "1 record" if arranged.withheld == 1 else f"{arranged.withheld} records"
         print(f"note: {people} of possibly living persons shown without their details "
               "(--withhold-living)", file=sys.stderr)
-    placement = arranged.placement
-    for line in lane_report.note_lines(placement.notes if placement else (), era):
-        print(line, file=sys.stderr)
+    for placement in arranged.placements:
+        for line in lane_report.note_lines(placement.notes, era):
+            print(line, file=sys.stderr)
+    if arranged.outside:
+        named = " (named under the chart)" if args.command == "render" else ""
+        print(f"note: {outside_note(len(arranged.outside))}{named}", file=sys.stderr)
+    if arranged.bands_off_axis:
+        names = ", ".join(repr(band.label) for band in arranged.bands_off_axis)
+        print(f"note: bands not drawn, outside the time shown or undated: {names}",
+              file=sys.stderr)
     print(arranged.summary(args.max_lanes), file=sys.stderr)
-    hidden = sum(s.labels_left_out for s in lane_report.group_summaries(placement)
-                 if s.densest is not None) if placement else 0
+    _print_hidden_labels(arranged.placements)
+
+
+def _print_hidden_labels(placements) -> None:
+    hidden = sum(s.labels_left_out for placement in placements
+                 for s in lane_report.group_summaries(placement) if s.densest is not None)
     if hidden:
         labels = "1 label did not fit, is" if hidden == 1 else f"{hidden} labels did not fit, are"
         print(f"note: {labels} kept in the tooltips only ('timelines lanes' counts them by "
@@ -344,8 +443,10 @@ def run_lanes(args, parser) -> int:
     if args.when and (args.start or args.end):
         parser.error("give either --when or --start/--end, not both")
     theme = DEFAULT_THEME.with_options(era=args.era, width=args.width)
-    options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args),
-                           theme=theme, lanes=_lane_settings(args))
+    settings = _settings(args)
+    options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=settings,
+                           theme=theme, lanes=_lane_settings(args),
+                           window=_window(args, settings))
     arranged = arrange(_input_path(args, parser), options)
     _print_run(arranged, args, theme.era)
     if arranged.placement is None:
@@ -379,13 +480,18 @@ def run_check(args, parser) -> int:
 
 
 def run_parse(args, parser) -> int:
+    if args.json and args.explain:
+        parser.error("give either --json or --explain, not both")
     settings = _settings(args)
     texts = args.text if args.text else [line.rstrip("\r\n") for line in sys.stdin]
     failed = 0
-    for text in texts:
+    for number, text in enumerate(texts):
         result = describe(text, settings)
         failed += not result["ok"]
-        print(json.dumps(result, ensure_ascii=False) if args.json else _plain(result))
+        if args.explain:
+            print(("\n" if number else "") + "\n".join(explain(text, settings)))
+        else:
+            print(json.dumps(result, ensure_ascii=False) if args.json else _plain(result))
     return 1 if failed else 0
 
 

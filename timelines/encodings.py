@@ -212,3 +212,39 @@ def point_marker(day: float, scale: TimeScale, lane: LaneBox, style: MarkStyle) 
     x, y, r = scale.x(day), lane.middle, lane.height * 0.55
     points = ((x, y - r), (x + r, y), (x, y + r), (x - r, y))
     return [Polygon(points, style.color, "#ffffff", 0.75, css_class="point")]
+
+
+def continues_mark(day: float, side: str, scale: TimeScale, lane: LaneBox,
+                   style: MarkStyle) -> list[Primitive]:
+    """A zigzag cut across the bar where the `--from/--to` window clips it: the span goes on
+    past the window (unlike an open arrow, which says no bound exists at all)."""
+    x = scale.x(day)
+    teeth, reach = 3, lane.height * 0.3
+    top, height = lane.y - 2, lane.height + 4
+    # A zigzag of `teeth` points, leaning outward on the clipped side.
+    out = -reach if side == "start" else reach
+    points = [(x, top)]
+    for tooth in range(teeth):
+        points.append((x + out, top + height * (tooth + 0.5) / teeth))
+        points.append((x, top + height * (tooth + 1) / teeth))
+    return [Polygon(tuple(points), None, style.text_color, 1.25, closed=False,
+                    css_class="continues")]
+
+
+def band(start: EndWindow, end: EndWindow, scale: TimeScale, box: LaneBox, color: str,
+         opacity: float) -> list[Primitive]:
+    """A named period behind the lanes (`--bands`): a pale rectangle from the start window's
+    high bound to the end window's low bound, fading in across the start window and out across
+    the end window, so a period's uncertain edges look like a bar's."""
+    parts: list[Primitive] = []
+    x = [scale.x(day) for day in (start.low, start.high, end.low, end.high)]
+    if x[1] > x[0]:
+        parts.append(GradientRect(x[0], box.y, x[1] - x[0], box.height, color, 0.0, opacity,
+                                  css_class="band-fringe"))
+    if x[2] > x[1]:
+        parts.append(Rect(x[1], box.y, x[2] - x[1], box.height, color, opacity=opacity,
+                          css_class="band-core"))
+    if x[3] > x[2]:
+        parts.append(GradientRect(x[2], box.y, x[3] - x[2], box.height, color, opacity, 0.0,
+                                  css_class="band-fringe"))
+    return parts

@@ -1,4 +1,6 @@
-"""The legend (only the marks that occur, in plain words) and the notes under the chart."""
+"""The chart's words: the heading (title, subtitle), the legend (only the marks that occur,
+in plain words) and the notes under it (what was not drawn and why, the user's notes, and last
+the source or credit line)."""
 from __future__ import annotations
 
 from . import encodings as marks
@@ -17,6 +19,7 @@ ENTRIES = (
     ("fringe:hatch", "possible: the date lies somewhere in the hatched part"),
     ("fringe:dots", "possible: the date lies somewhere in the dotted part"),
     ("open", "open: runs on beyond the chart"),
+    ("continues", "continues beyond the window shown"),
     ("unknown", "not recorded: could lie anywhere in the dashed part"),
     ("before", "before: no later than the bracket"),
     ("after", "after: no earlier than the bracket"),
@@ -26,7 +29,9 @@ ENTRIES = (
     ("likely", "most likely date"),
     ("point", "a dated moment"),
     ("point window", "a moment somewhere on the line"),
+    ("band fringe", "shaded period; its edge fades where its start or end is uncertain"),
 )
+OUTSIDE_LISTED = 10     # records outside the window named in the note; the rest counted
 
 
 def legend_and_notes(used: set[str], color_key, text, theme: Theme, top: float,
@@ -72,7 +77,13 @@ def _sample(key: str, theme: Theme, color: str):
         if key.startswith("fringe:"):
             return marks.FRINGES[key.split(":", 1)[1]](EndWindow(0, 10, "end"), scale, box, style)
         if key == "open":
-            return marks.core(0, 7, scale, box, style) + marks.open_arrow(7, "end", scale, box, style)
+            return (marks.core(0, 7, scale, box, style)
+                    + marks.open_arrow(7, "end", scale, box, style))
+        if key == "continues":
+            return (marks.core(0, 8, scale, box, style)
+                    + marks.continues_mark(8, "end", scale, box, style))
+        if key == "band fringe":
+            return _band_sample(x, box, theme)
         if key == "unknown":
             return marks.unknown_stretch(EndWindow(0, 10, "end"), scale, box, style)
         if key == "before":
@@ -93,6 +104,13 @@ def _sample(key: str, theme: Theme, color: str):
     return draw
 
 
+def _band_sample(x: float, box: LaneBox, theme: Theme) -> list[Primitive]:
+    scale = TimeScale(0.0, 10.0, x, x + SWATCH)
+    tall = LaneBox(box.y - 3, box.height + 6)
+    start, end = EndWindow(0, 4, "start"), EndWindow(10, 10, "end")
+    return marks.band(start, end, scale, tall, theme.band_color, theme.band_opacities[0])
+
+
 def _color_sample(color: str, theme: Theme):
     style = MarkStyle(color)
 
@@ -102,23 +120,58 @@ def _color_sample(color: str, theme: Theme):
 
 
 def _notes(text, theme: Theme, top: float, width: float) -> tuple[list[Primitive], float]:
-    lines: list[str] = []
-    if text.undated:
-        names = ", ".join(f"{r.label} (row {r.provenance.row})" for r in text.undated)
-        lines += wrap(f"Undated, not drawn: {names}.", theme.small_font_size,
-                      width - 2 * theme.margin)
-    if text.not_drawn:
-        rows = "row" if text.not_drawn == 1 else "rows"
-        lines += wrap(f"{text.not_drawn} {rows} with unreadable or contradictory dates not drawn; "
-                      f"'timelines check' lists them.", theme.small_font_size,
-                      width - 2 * theme.margin)
+    room = width - 2 * theme.margin
+    paragraphs = [*_report_notes(text), *text.notes]
+    lines = [(line, "note") for paragraph in paragraphs
+             for line in wrap(paragraph, theme.small_font_size, room)]
+    if text.credit:
+        lines += [(line, "credit") for line in wrap(text.credit, theme.small_font_size, room)]
     items: list[Primitive] = []
     y = top
-    for line in lines:
+    for line, css_class in lines:
         y += theme.small_font_size * 1.4
-        items.append(Text(theme.margin, y, line, theme.small_font_size, fill=theme.muted_color,
-                          css_class="note"))
+        items.append(Text(theme.margin, y, line, theme.small_font_size,
+                          style="italic" if css_class == "credit" else "normal",
+                          fill=theme.muted_color, css_class=css_class))
     return items, y + (4 if lines else 0)
+
+
+def _report_notes(text) -> list[str]:
+    """What the chart leaves out and why: every row is drawn or named here."""
+    notes = []
+    if text.undated:
+        notes.append(f"Undated, not drawn: {_names(text.undated)}.")
+    if text.not_drawn:
+        rows = "row" if text.not_drawn == 1 else "rows"
+        notes.append(f"{text.not_drawn} {rows} with unreadable or contradictory dates not "
+                     "drawn; 'timelines check' lists them.")
+    if text.outside:
+        shown = text.outside[:OUTSIDE_LISTED]
+        more = len(text.outside) - len(shown)
+        rest = f" and {more} more" if more else ""
+        count = "1 record lies" if len(text.outside) == 1 else f"{len(text.outside)} records lie"
+        notes.append(f"{count} outside the time shown, not drawn: {_names(shown)}{rest}.")
+    return notes
+
+
+def _names(records) -> str:
+    return ", ".join(f"{r.label} (row {r.provenance.row})" for r in records)
+
+
+def heading(text, theme: Theme, width: float) -> tuple[list[Primitive], float]:
+    """The title and, under it, the subtitle (wrapped); the y where the plot may begin."""
+    items: list[Primitive] = []
+    y = theme.margin
+    if text.title:
+        y += theme.title_size
+        items.append(Text(theme.margin, y, text.title, theme.title_size, weight="bold",
+                          fill=theme.text_color, css_class="title"))
+    size = theme.font_size * 1.1
+    for line in wrap(text.subtitle, size, width - 2 * theme.margin):
+        y += size * 1.35
+        items.append(Text(theme.margin, y, line, size, fill=theme.muted_color,
+                          css_class="subtitle"))
+    return items, y + (14 if items else 0)
 
 
 def wrap(text: str, size: float, width: float) -> list[str]:
@@ -132,3 +185,17 @@ def wrap(text: str, size: float, width: float) -> list[str]:
         else:
             current = candidate
     return lines + ([current] if current else [])
+
+
+def fit_text(text: str, size: float, width: float, weight: str = "normal") -> str:
+    """`text`, cut short with an ellipsis where it would be wider than `width` px."""
+    if text_width(text, size, weight) <= width:
+        return text
+    low, high = 0, len(text)          # the longest prefix that fits with "…" after it
+    while low < high:
+        middle = (low + high + 1) // 2
+        if text_width(text[:middle].rstrip() + "…", size, weight) <= width:
+            low = middle
+        else:
+            high = middle - 1
+    return text[:low].rstrip() + "…" if low else ""

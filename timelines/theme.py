@@ -47,6 +47,7 @@ class Theme:
     text_color: str = "#1a1a1a"
     muted_color: str = "#666666"
     grid_color: str = "#e3e3e3"
+    grid_minor_color: str = "#f0f0f0"
     separator_color: str = "#bbbbbb"
     background: str | None = "#ffffff"
     bar_color: str = OKABE_ITO[0]
@@ -54,14 +55,31 @@ class Theme:
     fringe: str = "fade"             # encoding of the possible-but-not-certain parts
     fringe_far_opacity: float = 0.12  # how faint a fade gets at the far end of a window
     era: str = "bce"                 # year labels: bce (44 BCE), bc (44 BC), astronomical (-43)
+    band_color: str = "#7f7f7f"      # background bands (--bands), alternating two strengths
+    band_opacities: tuple[float, float] = (0.16, 0.09)
 
     def with_options(self, **changes) -> "Theme":
         changes = {k: v for k, v in changes.items() if v is not None}
         return replace(self, **changes)
 
+    def with_font_size(self, size: float) -> "Theme":
+        """Record labels at `size` px, and every other text and the rows that hold text
+        (lanes, bars, axis, legend) scaled with them, so the chart keeps its proportions."""
+        factor = size / self.font_size
+        return replace(self, **{name: getattr(self, name) * factor for name in _TEXT_SIZED})
+
+    def with_lane_height(self, height: float) -> "Theme":
+        """Lanes `height` px tall: less room between bars, the bars (which hold labels)
+        as tall as before while they fit."""
+        return replace(self, lane_height=height, bar_height=min(self.bar_height, height))
+
     def color_for(self, index: int) -> str:
         return self.palette[index % len(self.palette)]
 
+
+# The sizes that grow with the text: fonts, and the rows and pads made to hold a line of it.
+_TEXT_SIZED = ("font_size", "small_font_size", "title_size", "group_label_size", "lane_height",
+               "bar_height", "label_pad", "axis_height", "legend_row_height")
 
 DEFAULT_THEME = Theme()
 

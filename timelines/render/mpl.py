@@ -329,14 +329,15 @@ def _glyph_text_type():
 
     def laid_out(font, size, dpi, content) -> tuple[list[tuple[int, float]], float]:
         """(glyph index, x offset) per character and the line's width, in device px: hinted
-        advances plus pair kerning, FreeType's basic layout, each character's advance
-        measured once."""
+        advances plus pair kerning, each character's advance measured once."""
         offsets, pen, previous = [], 0.0, None
         for character in content:
             key = (font.fname, size, dpi, character)
             if key not in advances:
                 index = font.get_char_index(ord(character))
-                advances[key] = (index, font.load_glyph(index, get_hinting_flag()).horiAdvance / 64)
+                # the hinted advance, as matplotlib's Text and cairo set it: whole pixels
+                glyph = font.load_glyph(index, get_hinting_flag())
+                advances[key] = (index, glyph.horiAdvance / 64)
             index, advance = advances[key]
             if previous is not None:
                 pen += font.get_kerning(previous, index, Kerning.DEFAULT) / 64

@@ -1,0 +1,226 @@
+"""One record on its lane: the bar (or the point), its signs and its label, as a Group.
+
+`drawn_span` says where each part of a span is drawn on the axis; `draw_record` draws it with
+the encoders of `encodings` and notes in `used` which marks occurred (for the legend). A span
+that a --from/--to window cuts short gets a zigzag at the edge (`cut_sides`), and the signs
+whose dates lie beyond the window are left out.
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from . import encodings as marks
+from .calendar import iso_from_fixed
+from .encodings import EndWindow, LaneBox, MarkStyle
+from .layout import PlacedRecord
+from .model import Qualifier, Record, Span
+from .scale import TimeScale
+from .scene import Group, Primitive, Text
+from .theme import Theme, text_color_on
+
+
+@dataclass(frozen=True, slots=True)
+class DrawnSpan:
+    """A span's four drawn bounds in fixed days, clipped to the axis: the start window
+    `start_low..start_high`, the end window `end_low..end_high`; the core lies between
+    `start_high` and `end_low` when they are in order."""
+
+    start_low: float
+    start_high: float
+    end_low: float
+    end_high: float
+    open_start: bool
+    open_end: bool
+    has_core: bool      # the model's certain core is not empty
+
+
+def drawn_span(span: Span, domain: tuple[float, float]) -> DrawnSpan:
+    """Where each part of a span is drawn. Unbounded sides run to the axis edge; an unknown
+    start reaches to the end's earliest bound (and an unknown end back to the start's latest),
+    so the whole stretch reads as possible, none of it certain."""
+    low_edge, high_edge = domain
+    start, end = span.start, span.end
+    a = _first(start.earliest, low_edge)
+    d = _first(end.latest, high_edge)
+    b = _first(start.latest, end.earliest, d)
+    c = _first(end.earliest, start.latest, a)
+    if start.is_open:
+        a = b = low_edge
+    if end.is_open:
+        c = d = high_edge
+    # A span cannot end before it starts: an end window reaching back past the earliest start
+    # (562 BC to '6th century BC') is drawn from that start, and a start window no later
+    # than the latest end.
+    c, b = max(c, a), min(b, d)
+    clip = lambda day: min(max(day, low_edge), high_edge)  # noqa: E731 - one-line clamp
+    has_core = span.certain_core is not None and clip(b) <= clip(c)
+    return DrawnSpan(clip(a), clip(b), clip(c), clip(d), start.is_open, end.is_open, has_core)
+
+
+def _first(*values):
+    return next(v for v in values if v is not None)
+
+
+def draw_record(placed: PlacedRecord, scale: TimeScale, theme: Theme, box: LaneBox, color: str,
+                used: set[str]) -> Group:
+    record = placed.record
+    style = MarkStyle(color, theme.fringe_far_opacity, theme.text_color, theme.small_font_size)
+    geometry = drawn_span(record.span, (scale.start, scale.end))
+    if record.span.is_point and not geometry.open_start and not geometry.open_end:
+        parts = _point_marks(record.span, geometry, scale, box, style, used)
+    else:
+        parts = _bar_marks(record.span, geometry, scale, box, style, theme, used)
+    parts += _qualifier_marks(record.span, geometry, scale, box, style, used)
+    parts += _continues_marks(record.span, scale, box, style, used)
+    parts += _label(placed, geometry, scale, theme, box, color)
+    return Group(tuple(parts), css_class="record", title=tooltip(record))
+
+
+def cut_sides(span: Span, domain: tuple[float, float]) -> tuple[bool, bool]:
+    """Whether the axis cuts the span short at its start / its end: some bound of it lies
+    beyond that edge (only a --from/--to window does this; an open side has its arrow)."""
+    bounds = [day for end in (span.start, span.end) for day in (end.earliest, end.latest)
+              if day is not None]
+    if not bounds:
+        return False, False
+    return (not span.start.is_open and min(bounds) < domain[0],
+            not span.end.is_open and max(bounds) > domain[1])
+
+
+def _continues_marks(span, scale, box, style, used) -> list[Primitive]:
+    parts: list[Primitive] = []
+    for side, cut, edge in zip(("start", "end"), cut_sides(span, (scale.start, scale.end)),
+                               (scale.start, scale.end)):
+        if cut:
+            parts += marks.continues_mark(edge, side, scale, box, style)
+            used.add("continues")
+    return parts
+
+
+def _bar_marks(span, geometry: DrawnSpan, scale, box, style, theme, used) -> list[Primitive]:
+    fringe = marks.fringe_encoder(theme.fringe)
+    parts: list[Primitive] = []
+    if geometry.has_core:
+        parts += marks.core(geometry.start_high, geometry.end_low, scale, box, style)
+        used.add("core")
+    windows = ((EndWindow(geometry.start_low, geometry.start_high, "start"), span.start,
+                scale.start, geometry.open_start),
+               (EndWindow(geometry.end_low, geometry.end_high, "end"), span.end,
+                scale.end, geometry.open_end))
+    for window, endpoint, edge, is_open in windows:
+        if is_open:
+            parts += marks.open_arrow(edge, window.side, scale, box, style)
+            used.add("open")
+        elif endpoint.is_unknown:
+            parts += marks.unknown_stretch(window, scale, box, style)
+            used.add("unknown")
+        else:
+            drawn = fringe(window, scale, box, style)
+            parts += drawn
+            if drawn:
+                used.add(f"fringe:{theme.fringe}")
+    return parts
+
+
+def _point_marks(span, geometry: DrawnSpan, scale, box, style, used) -> list[Primitive]:
+    parts: list[Primitive] = []
+    endpoint = span.start
+    if geometry.start_high > geometry.start_low:
+        parts += marks.whisker(EndWindow(geometry.start_low, geometry.start_high, "end"),
+                               scale, box, style)
+        used.add("point window")
+    centre = _point_centre(endpoint, geometry)
+    if scale.start <= centre <= scale.end:      # a window may leave only the line showing
+        parts += marks.point_marker(centre, scale, box, style)
+        used.add("point")
+    return parts
+
+
+def _point_centre(endpoint, geometry: DrawnSpan) -> float:
+    """The likely day, else the middle of the window as written (not as clipped)."""
+    if endpoint.likely is not None:
+        return endpoint.likely
+    low = endpoint.earliest if endpoint.earliest is not None else geometry.start_low
+    high = endpoint.latest if endpoint.latest is not None else geometry.start_high
+    return (low + high) / 2
+
+
+def _qualifier_marks(span, geometry: DrawnSpan, scale, box, style, used) -> list[Primitive]:
+    parts: list[Primitive] = []
+    ends = (("start", span.start, geometry.start_low, geometry.start_high),
+            ("end", span.end, geometry.end_low, geometry.end_high))
+    if span.is_point:
+        ends = (("end", span.start, geometry.start_low, geometry.start_high),)
+    for side, endpoint, low, high in ends:
+        # A mark whose date a --from/--to window cuts off is left out: the cut is marked.
+        low = low if _on_axis(endpoint.earliest, scale) else None
+        high = high if _on_axis(endpoint.latest, scale) else None
+        if endpoint.likely is not None and not span.is_point and _on_axis(endpoint.likely,
+                                                                           scale):
+            parts += marks.likely_tick(endpoint.likely, scale, box, style)
+            used.add("likely")
+        parts += _bound_marks(endpoint, low, high, scale, box, style, used)
+        kind = qualifier_kind(endpoint.qualifiers)
+        at = low if side == "start" else high
+        if kind and at is not None:
+            parts += marks.qualifier_glyph(at, side, kind, scale, box, style)
+            used.add(kind)
+    return parts
+
+
+def _on_axis(day: int | None, scale: TimeScale) -> bool:
+    """Whether a bound is on the axis (an absent bound is drawn at the edge, so it is)."""
+    return day is None or scale.start <= day <= scale.end
+
+
+def _bound_marks(endpoint, low, high, scale, box, style, used) -> list[Primitive]:
+    parts: list[Primitive] = []
+    if endpoint.has(Qualifier.BEFORE) and high is not None:
+        parts += marks.bound_bracket(high, "before", scale, box, style)
+        used.add("before")
+    if endpoint.has(Qualifier.AFTER) and low is not None:
+        parts += marks.bound_bracket(low, "after", scale, box, style)
+        used.add("after")
+    return parts
+
+
+def qualifier_kind(qualifiers) -> str | None:
+    approximate = Qualifier.APPROXIMATE in qualifiers
+    uncertain = Qualifier.UNCERTAIN in qualifiers
+    if approximate and uncertain:
+        return "approximate uncertain"
+    return "approximate" if approximate else "uncertain" if uncertain else None
+
+
+def _label(placed: PlacedRecord, geometry: DrawnSpan, scale, theme, box, color) -> list[Primitive]:
+    if placed.label_side == "none" or not placed.record.label:
+        return []
+    baseline = box.middle + theme.font_size * 0.36
+    label = placed.record.label
+    if placed.label_side == "inside":
+        # layout puts a label inside only when it fits on the solid core
+        x = scale.x(geometry.start_high) + theme.label_pad
+        return [Text(x, baseline, label, theme.font_size, fill=text_color_on(color),
+                     css_class="label inside")]
+    if placed.label_side == "right":
+        return [Text(scale.x(placed.bar_end) + theme.label_pad, baseline, label, theme.font_size,
+                     fill=theme.text_color, css_class="label")]
+    return [Text(scale.x(placed.bar_start) - theme.label_pad, baseline, label, theme.font_size,
+                 anchor="end", fill=theme.text_color, css_class="label")]
+
+
+def tooltip(record: Record) -> str:
+    lines = [record.label or "(no label)"]
+    if record.date_text:
+        lines.append(f"written: {record.date_text}")
+    if record.span is not None:
+        lines.append(f"possible: {_bound(record.span.possible_extent[0])} to "
+                     f"{_bound(record.span.possible_extent[1])}")
+        core = record.span.certain_core
+        lines.append("certain: " + (f"{_bound(core[0])} to {_bound(core[1])}" if core else "none"))
+    lines.append(f"source: {record.provenance}")
+    return "\n".join(lines)
+
+
+def _bound(day: int | None) -> str:
+    return "open" if day is None else iso_from_fixed(day)

@@ -1,0 +1,93 @@
+"""The time window of `--from DATE --to DATE`: the part of time the axis shows.
+
+`--from` counts from the earliest day its date may mean and `--to` up to the latest, so
+`--from 1650 --to 1700` shows 1650-01-01 to 1700-12-31 whole. Either may be left out: that side
+of the axis then follows the records, as without a window.
+
+A record is *outside* when no part of it can lie in the window (its latest possible end is
+before the window, or its earliest possible start after it); outside records are not drawn but
+reported, never dropped in silence. A record reaching past an edge is drawn up to the edge and
+marked there as continuing (see `compose`).
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import Iterable
+
+from .dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
+from .errors import UsageError
+from .model import Record, Span
+
+
+@dataclass(frozen=True, slots=True)
+class TimeWindow:
+    """Fixed days `start..end` shown on the axis; None on a side left to the records."""
+
+    start: int | None = None
+    end: int | None = None
+    start_text: str = ""        # as the user wrote them, for messages
+    end_text: str = ""
+
+    def __post_init__(self) -> None:
+        if self.start is not None and self.end is not None and self.end <= self.start:
+            raise UsageError(f"the window --from {self.start_text!r} --to {self.end_text!r} "
+                             "is empty", hint="--to must be later than --from")
+
+    def may_hold(self, span: Span) -> bool:
+        """Whether some part of `span` may lie inside the window (unbounded sides reach on)."""
+        low, high = span.possible_extent
+        if self.start is not None and high is not None and high < self.start:
+            return False
+        return not (self.end is not None and low is not None and low > self.end)
+
+    def domain(self, low: float, high: float) -> tuple[float, float]:
+        """The axis domain: the window's sides, the records' `low`/`high` where it has none."""
+        return (float(self.start) if self.start is not None else low,
+                float(self.end) if self.end is not None else high)
+
+
+def parse_window(start_text: str | None, end_text: str | None,
+                 settings: DateSettings = DEFAULT_SETTINGS) -> TimeWindow | None:
+    """The window of `--from`/`--to` texts (None when neither is given)."""
+    if not start_text and not end_text:
+        return None
+    start = _window_bound(start_text, "--from", settings, earliest=True)
+    end = _window_bound(end_text, "--to", settings, earliest=False)
+    return TimeWindow(start, end, start_text or "", end_text or "")
+
+
+def _window_bound(text: str | None, option: str, settings: DateSettings, *,
+                  earliest: bool) -> int | None:
+    if not text:
+        return None
+    try:
+        endpoint = parse_endpoint(text, settings)
+    except DateError as error:
+        raise UsageError(f"{option}: cannot read {text!r}: {error.reason}",
+                         hint=error.hint or "give a date such as 1650, 1650-06 or 44 BC"
+                         ) from error
+    day = endpoint.earliest if earliest else endpoint.latest
+    if day is None:
+        side = "start" if earliest else "end"
+        raise UsageError(f"{option} {text!r} has no day to {side} the axis at",
+                         hint="give a bounded date such as 1650")
+    return day
+
+
+def split_by_window(records: Iterable[Record], window: TimeWindow | None
+                    ) -> tuple[list[Record], list[Record]]:
+    """(records kept, dated records wholly outside the window); undated records are kept,
+    to be listed under the chart as always."""
+    kept, outside = [], []
+    for record in records:
+        if window is None or record.span is None or window.may_hold(record.span):
+            kept.append(record)
+        else:
+            outside.append(record)
+    return kept, outside
+
+
+def outside_note(count: int) -> str:
+    """The one line that says how many records the window leaves out."""
+    records = "1 record lies" if count == 1 else f"{count} records lie"
+    return f"{records} outside --from/--to"

@@ -111,6 +111,35 @@ def test_the_comparison_notices_a_reversed_fade(tmp_path):
     assert mean.max() > 4 * MEAN_TOLERANCE and worst_block > 4 * BLOCK_TOLERANCE
 
 
+def demo_scene(**options) -> Scene:
+    from timelines.chart import ChartOptions, arrange, arranged_scene
+    demo = ROOT / "timelines" / "demo" / "fenwold-organ-builders.csv"
+    chosen = ChartOptions(**options)
+    return arranged_scene(arrange(demo, chosen), chosen)
+
+
+def svg_raster(svg: str, scene: Scene) -> numpy.ndarray:
+    png = cairosvg.svg2png(bytestring=svg.encode("utf-8"), output_width=round(scene.width * 1.5),
+                           output_height=round(scene.height * 1.5))
+    return numpy.asarray(Image.open(io.BytesIO(png)).convert("RGB")).astype(float)
+
+
+@pytest.mark.parametrize("options", [{}, {"facet": "category"}], ids=["plain", "facets"])
+def test_style_rules_draw_what_attributes_drew(options, monkeypatch):
+    # The same SVG with every text's presentation written on the element itself (the style
+    # sheet switched off) must rasterise to the same pixels: cairosvg applies the <style>
+    # rules exactly as the attributes.
+    from timelines.render import svg as svg_module
+
+    scene = demo_scene(**options)
+    compact = render_svg(scene)
+    assert "<style>" in compact
+    monkeypatch.setattr(svg_module, "_text_style_rules", lambda texts: [])
+    verbose = render_svg(scene)
+    assert "<style>" not in verbose and len(verbose) > len(compact)
+    assert numpy.array_equal(svg_raster(compact, scene), svg_raster(verbose, scene))
+
+
 def dejavu_is_installed() -> bool:
     """cairosvg draws text with the system's fonts; the text check needs DejaVu Sans there."""
     if shutil.which("fc-match") is None:

@@ -127,7 +127,8 @@ def test_rect_attributes_and_class():
              css_class="core certain"), background=None))
     (rect,) = drawn(root, "rect")
     assert rect.attrib == {
-        "x": "1.5", "y": "2", "width": "30.25", "height": "4", "fill": "#112233",
+        # the right edge 31.75 rounds to 31.8 (one decimal): width 30.3, not 30.25 rounded alone
+        "x": "1.5", "y": "2", "width": "30.3", "height": "4", "fill": "#112233",
         "stroke": "#445566", "stroke-width": "0.5", "opacity": "0.4", "class": "core certain",
     }
 
@@ -239,8 +240,32 @@ def test_numbers_are_compact():
                           Line(-0.001, 1e-9, 2.499, 7, stroke_width=1), background=None))
     (rect,), (line,) = drawn(root, "rect"), drawn(root, "line")
     assert (rect.get("x"), rect.get("y"), rect.get("height"), rect.get("opacity")) == (
-        "0.33", "2", "1", "0.123")
+        "0.3", "2", "1", "0.123")
     assert (line.get("x1"), line.get("y1"), line.get("x2")) == ("0", "0", "2.5")
+
+
+def test_rect_edges_are_rounded_so_abutting_shapes_still_meet():
+    # Three parts of one bar, touching at x = 10.26 and x = 30.34; each edge rounds to one
+    # decimal on its own, so a part's right edge is exactly the next part's left edge.
+    root = parse(scene_of(GradientRect(0.04, 0, 10.22, 5, "#0072B2", 0, 1),
+                          Rect(10.26, 0, 20.08, 5, fill="#0072B2"),
+                          GradientRect(30.34, 0, 4.43, 5, "#0072B2", 1, 0), background=None))
+    edges = [(float(r.get("x")), float(r.get("x")) + float(r.get("width")))
+             for r in drawn(root, "rect")]
+    assert [round(e, 6) for edge in edges for e in edge] == [0, 10.3, 10.3, 30.3, 30.3, 34.8]
+    for (low, high), exact in zip(edges, [(0.04, 10.26), (10.26, 30.34), (30.34, 34.77)]):
+        assert abs(low - exact[0]) <= 0.05 + 1e-9 and abs(high - exact[1]) <= 0.05 + 1e-9
+
+
+def test_a_sliver_narrower_than_the_rounding_is_kept():
+    root = parse(scene_of(Rect(10.01, 0, 0.03, 5, fill="#000000"), background=None))
+    (rect,) = drawn(root, "rect")
+    assert (rect.get("x"), rect.get("width")) == ("10.01", "0.03")
+
+
+def test_empty_elements_end_in_a_bare_slash():
+    output = render_svg(sample_scene())
+    assert " />" not in output and "/>" in output
 
 
 def test_non_finite_coordinates_are_refused():
@@ -254,6 +279,102 @@ def test_non_finite_coordinates_are_refused():
 def test_colours_that_are_not_colours_are_refused(colour):
     with pytest.raises(ValueError, match="not a colour"):
         render_svg(scene_of(Rect(0, 0, 10, 10, fill=colour)))
+
+
+# --- compaction: style rules and inherited fades ------------------------------------------
+
+def style_rules(root: ET.Element) -> dict[str, str]:
+    """selector -> declarations of the chart's <style> (none: empty), each selector scoped to
+    the root's id (checked here, then left off)."""
+    sheets = drawn(root, "style")
+    assert len(sheets) <= 1
+    text = sheets[0].text if sheets else ""
+    rules = re.findall(r"([^{}]+)\{([^{}]*)\}", text)
+    assert all(selector.startswith(f"#{root.get('id')} ") for selector, _ in rules)
+    return {selector.split(" ", 1)[1]: declarations for selector, declarations in rules}
+
+
+def labelled_scene(extra=()) -> Scene:
+    def record(y, text_class, fill):
+        return Group((Rect(10, y, 50, 12, fill="#0072B2", css_class="core"),
+                      Text(14, y + 10, f"Name {y}", size=12, fill=fill, css_class=text_class,
+                           weight="bold")),
+                     css_class="record", title=f"Name {y}\nwritten: c. 1650")
+    return scene_of(record(10, "label", "#1a1a1a"), record(30, "label inside", "#ffffff"),
+                    record(50, "label", "#1a1a1a"), *extra, background=None)
+
+
+def test_presentation_a_class_shares_is_one_style_rule_and_off_the_texts():
+    root = parse(labelled_scene())
+    # CSS 2.1 section 6.4.3: text.inside.label (two classes) outranks text.label (one).
+    assert style_rules(root) == {"text.label": "fill:#1a1a1a;font-weight:bold",
+                                 "text.inside.label": "fill:#ffffff;font-weight:bold"}
+    for text in drawn(root, "text"):
+        assert text.get("fill") is None and text.get("font-weight") is None
+        assert text.get("font-size") == "12"             # the size stays on every text
+    assert [t.get("class") for t in drawn(root, "text")] == ["label", "label inside", "label"]
+
+
+def test_style_rules_are_scoped_to_the_chart_by_an_id_made_from_them():
+    # An SVG inlined in HTML shares one style sheet with the page (HTML Living Standard, the
+    # style element): unscoped rules would restyle other charts on the same page.
+    first, again = parse(labelled_scene()), parse(labelled_scene())
+    dark = Text(0, 90, "x", fill="#222222", css_class="caption")
+    other = parse(labelled_scene((dark,)))
+    assert first.get("id") == again.get("id") != other.get("id")
+    assert re.fullmatch(r"timelines-chart-[0-9a-f]{12}", first.get("id"))
+    assert parse(scene_of(Text(0, 10, "plain"))).get("id") is None   # no rules, no id
+
+
+def test_no_rule_for_a_class_when_a_wider_class_would_pick_it_up_wrongly():
+    # "label note" texts differ in colour, so they get no rule of their own; a rule for
+    # "label" would then colour them too, so "label" keeps its attributes as well.
+    notes = (Text(0, 80, "a", fill="#123456", css_class="label note"),
+             Text(0, 90, "b", fill="#654321", css_class="label note"))
+    root = parse(labelled_scene(notes))
+    assert style_rules(root) == {"text.inside.label": "fill:#ffffff;font-weight:bold"}
+    assert [t.get("fill") for t in drawn(root, "text")] == [
+        "#1a1a1a", None, "#1a1a1a", "#123456", "#654321"]
+
+
+def test_a_class_where_one_text_keeps_the_initial_value_gets_no_rule():
+    root = parse(scene_of(Text(0, 10, "a", fill="#1a1a1a", css_class="tick"),
+                          Text(0, 20, "b", css_class="tick")))
+    assert style_rules(root) == {}
+    assert [t.get("fill") for t in drawn(root, "text")] == ["#1a1a1a", None]
+
+
+@pytest.mark.parametrize("css_class", [
+    "label x}text{fill:url(http://example.invalid/a)", "</style><script>alert(1)</script>",
+    "label\u00e9", "1st",
+])
+def test_class_names_unsafe_in_a_selector_get_no_rule(css_class):
+    output = render_svg(scene_of(Text(0, 10, "a", fill="#1a1a1a", css_class=css_class),
+                                 Text(0, 20, "b", fill="#1a1a1a", css_class=css_class)))
+    assert "<style" not in output and "<script" not in output
+    assert [t.get("fill") for t in drawn(ET.fromstring(output), "text")] == ["#1a1a1a"] * 2
+
+
+def test_text_as_paths_writes_no_style_rules():
+    output = render_svg(labelled_scene(), text="paths")
+    assert "<style" not in output
+    assert {p.get("fill") for p in drawn(ET.fromstring(output), "path")} == {"#1a1a1a", "#ffffff"}
+
+
+def bar(y, fill="#0072B2"):
+    return (GradientRect(0, y, 5, 12, fill, 0.1, 1, css_class="fringe"),
+            Rect(5, y, 40, 12, fill=fill, css_class="core"),
+            GradientRect(45, y, 5, 12, fill, 1, 0.1, css_class="fringe"))
+
+
+def test_no_fill_is_inherited_from_a_group_so_a_stripped_style_sheet_degrades_to_black():
+    # Sanitisers in content systems often strip <style>; a text left without its rule must
+    # then fall back to SVG's initial black, never inherit a fade from an enclosing <g>.
+    block = Group((Group(bar(10), css_class="record", title="a"),
+                   Group(bar(30), css_class="record", title="b")), css_class="group group-a")
+    root = parse(scene_of(block, background=None))
+    assert all(g.get("fill") is None for g in drawn(root, "g"))
+    assert all(r.get("fill") for r in drawn(root, "rect"))
 
 
 # --- determinism --------------------------------------------------------------------------
@@ -351,3 +472,16 @@ def test_a_long_label_is_kept_whole(tmp_path):
     write_svg(hostile_scene("x" * 5000), tmp_path / "long.svg")
     root = ET.parse(tmp_path / "long.svg").getroot()
     assert drawn(root, "text")[0].text == "x" * 5000
+
+
+SAFE_SHEET = re.compile(r"(#timelines-chart-[0-9a-f]{12} text(\.[-_a-zA-Z][-_a-zA-Z0-9]*)+"
+                        r"\{[-a-z]+:[#0-9a-zA-Z]+(;[-a-z]+:[#0-9a-zA-Z]+)*\})+")
+
+
+@pytest.mark.parametrize("text", HOSTILE, ids=range(len(HOSTILE)))
+def test_the_style_sheet_holds_only_class_names_and_checked_values(text):
+    hostile = (Text(0, 80, text, fill="#1a1a1a", css_class=text),
+               Text(0, 90, text, fill="#1a1a1a", css_class=f"label {text}"))
+    root = parse(labelled_scene(hostile))
+    (sheet,) = drawn(root, "style")
+    assert SAFE_SHEET.fullmatch(sheet.text), sheet.text

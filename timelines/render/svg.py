@@ -1,13 +1,17 @@
 """Scene -> SVG with svgwrite: small, deterministic, accessible, safe to embed.
 
-One `_draw_<kind>` per primitive, chosen from a dispatch table. Numbers are written with at most
-two decimals (three for opacities) so the same scene always gives the same bytes and files stay
-small. Every user string is escaped by ElementTree (through svgwrite) and cleaned of characters
-XML 1.0 forbids; colours are checked, so a scene can never smuggle in script, event handlers or
-an external reference. This module never imports matplotlib: the SVG path must start fast.
+One `_draw_<kind>` per primitive, chosen from a dispatch table. Coordinates are written with one
+decimal, sizes of strokes and fonts with two, opacities with three, so the same scene always gives
+the same bytes. To keep large charts small, presentation every text of a class shares becomes one
+<style> rule scoped to the chart, and the fade most shapes of a top-level <g> share is set once on
+that <g>; every element keeps its class. Every user string is escaped by ElementTree (through
+svgwrite) and cleaned of characters XML 1.0 forbids; colours are checked, so a scene can never
+smuggle in script, event handlers or an external reference. This module never imports
+matplotlib: the SVG path must start fast.
 """
 from __future__ import annotations
 
+import hashlib
 import math
 import re
 from dataclasses import dataclass, field
@@ -20,7 +24,8 @@ from timelines.scene import TEXT_MODES, GradientRect, Group, Line, Polygon, Rect
 
 TITLE_ID = "timelines-title"
 DESC_ID = "timelines-desc"
-GRADIENT_ID_PREFIX = "timelines-fade-"
+ROOT_ID_PREFIX = "timelines-chart-"     # the root's id, when it has a style sheet to scope
+GRADIENT_ID_PREFIX = "fade-"            # scene ids are group-N and panel-N: no clash
 # Metric-compatible fallbacks after the scene's font, so text measured for DejaVu Sans fits.
 FONT_FALLBACKS = ("DejaVu Sans", "Bitstream Vera Sans", "sans-serif")
 XML_DECLARATION = '<?xml version="1.0" encoding="utf-8"?>\n'
@@ -33,6 +38,15 @@ _XML_WHITESPACE = re.compile("[\t\n\r ]+")
 # Hex colours and CSS colour keywords only: nothing that could be url(...) or a script.
 _COLOUR = re.compile(r"#[0-9a-fA-F]{3}(?:[0-9a-fA-F]{3})?|[a-zA-Z]{1,40}")
 _FONT_NAME_UNSAFE = re.compile(r"[^\w \-]")
+# Class names that may go into a CSS selector as they are (no escaping needed).
+_CSS_IDENT = re.compile(r"-?[_a-zA-Z][_a-zA-Z0-9-]*")
+# Coordinates: one decimal puts every edge within 0.05 px of the scene's, a twentieth of a pixel
+# at 1:1 and 0.013 mm on paper at 96 px/in, finer than a 600 dpi printer dot (0.042 mm); the
+# raster comparison in tests/test_render_agree.py checks that the picture does not change.
+COORDINATE_DECIMALS = 1
+# Text presentation moved into <style> rules when a class agrees on it. The font size stays on
+# each text: scripts and editors read a label's size from its attribute.
+_TEXT_STYLES = ("fill", "font-weight", "font-style", "text-anchor")
 
 
 def render_svg(scene: Scene, *, text: str = "text") -> str:
@@ -45,7 +59,14 @@ def render_svg(scene: Scene, *, text: str = "text") -> str:
         _draw_into(context.drawing, item, context)
     if not context.gradients:
         context.drawing.elements.remove(context.drawing.defs)
-    return XML_DECLARATION + context.drawing.tostring() + "\n"
+    rules = _text_style_rules(context.texts)
+    if rules:
+        context.drawing["id"], sheet = _style_sheet(rules)
+        heading = sum(isinstance(e, Title) for e in context.drawing.elements[:3])
+        context.drawing.elements.insert(heading, _StyleSheet(sheet))
+    # ElementTree writes empty elements as "<x />"; "/>" is the same XML. Text and attribute
+    # values have ">" escaped, so the replacement can only meet the ends of tags.
+    return XML_DECLARATION + context.drawing.tostring().replace(" />", "/>") + "\n"
 
 
 def write_svg(scene: Scene, path: str | Path, *, text: str = "text") -> None:
@@ -60,6 +81,7 @@ class _Context:
     drawing: svgwrite.Drawing
     gradients: dict[tuple[str, int, int], str] = field(default_factory=dict)
     outlines: bool = False          # draw text as glyph outlines
+    texts: list = field(default_factory=list)       # the <text> elements, for _text_style_rules
 
 
 def _new_drawing(scene: Scene) -> svgwrite.Drawing:
@@ -100,6 +122,60 @@ class _MetadataText(Title):
     elementname = "metadata"
 
 
+class _StyleSheet(Title):
+    """<style> with CSS rules only this module writes (classes and checked values)."""
+
+    elementname = "style"
+
+
+def _style_sheet(rules: list[tuple[str, str]]) -> tuple[str, str]:
+    """(root id, CSS) with every rule scoped to this chart: a <style> in an SVG inlined in an
+    HTML page applies to the whole page, so an unscoped `text.label` rule would restyle the
+    other charts there. The id comes from the rules, so charts whose rules differ never share
+    one, and the same chart always gets the same id."""
+    text = "".join(f"{selector}{{{declarations}}}" for selector, declarations in rules)
+    root_id = f"{ROOT_ID_PREFIX}{hashlib.sha256(text.encode()).hexdigest()[:12]}"
+    return root_id, "".join(f"#{root_id} {selector}{{{declarations}}}"
+                            for selector, declarations in rules)
+
+
+def _text_style_rules(texts: list) -> list[tuple[str, str]]:
+    """(selector `text.a.b`, declarations `prop:value;...`) for the presentation every text of
+    class "a b" shares, with those attributes taken off the texts. A rule for classes T also
+    matches texts whose classes include T; those must then have their own, more specific rule
+    for that property (CSS 2.1 section 6.4.3: more classes win), else the rule is dropped."""
+    rules = _shared_text_styles(texts)
+    classes = {_class_set(text) for text in texts}
+    while dropped := {(cls, prop) for cls, prop in rules if any(
+            cls < other and (other, prop) not in rules for other in classes)}:
+        rules = {key: value for key, value in rules.items() if key not in dropped}
+    for text in texts:
+        for prop in _TEXT_STYLES:
+            if (_class_set(text), prop) in rules:
+                del text.attribs[prop]
+    declarations: dict[frozenset, list[str]] = {}
+    for (classes, prop), value in sorted(rules.items(), key=lambda rule: rule[0][1]):
+        declarations.setdefault(classes, []).append(f"{prop}:{value}")
+    return [(f"text.{'.'.join(sorted(classes))}", ";".join(declarations[classes]))
+            for classes in sorted(declarations, key=lambda c: (len(c), sorted(c)))]
+
+
+def _shared_text_styles(texts: list) -> dict[tuple[frozenset, str], str]:
+    """(classes, property) -> value, where every text of those classes sets that value."""
+    values: dict[tuple[frozenset, str], set] = {}
+    for text in texts:
+        classes = _class_set(text)
+        if classes and all(_CSS_IDENT.fullmatch(name) for name in classes):
+            for prop in _TEXT_STYLES:
+                values.setdefault((classes, prop), set()).add(text.attribs.get(prop))
+    return {key: found.pop() for key, found in values.items()
+            if len(found) == 1 and None not in found}
+
+
+def _class_set(element) -> frozenset:
+    return frozenset(element.attribs.get("class", "").split())
+
+
 def _draw_into(parent, item, context: _Context) -> None:
     element = _DRAW[type(item)](item, context)
     if element is not None:
@@ -109,9 +185,9 @@ def _draw_into(parent, item, context: _Context) -> None:
 def _draw_rect(rect: Rect, context: _Context):
     if rect.width <= 0 or rect.height <= 0:
         return None  # SVG draws nothing for a zero size and rejects a negative one
+    (x, width), (y, height) = _extent(rect.x, rect.width), _extent(rect.y, rect.height)
     element = context.drawing.rect(
-        insert=(_number(rect.x), _number(rect.y)),
-        size=(_number(rect.width), _number(rect.height)),
+        insert=(x, y), size=(width, height),
         fill=_paint(rect.fill),
     )
     _set_stroke(element, rect.stroke, rect.stroke_width)
@@ -122,9 +198,9 @@ def _draw_rect(rect: Rect, context: _Context):
 def _draw_gradient_rect(rect: GradientRect, context: _Context):
     if rect.width <= 0 or rect.height <= 0:
         return None  # a bounding-box gradient on a zero-width box is an error in SVG
+    (x, width), (y, height) = _extent(rect.x, rect.width), _extent(rect.y, rect.height)
     element = context.drawing.rect(
-        insert=(_number(rect.x), _number(rect.y)),
-        size=(_number(rect.width), _number(rect.height)),
+        insert=(x, y), size=(width, height),
         fill=f"url(#{_gradient_id(rect, context)})",
     )
     _set_common(element, 1.0, rect.css_class)
@@ -147,7 +223,8 @@ def _gradient_id(rect: GradientRect, context: _Context) -> str:
 
 def _draw_line(line: Line, context: _Context):
     element = context.drawing.line(
-        start=(_number(line.x1), _number(line.y1)), end=(_number(line.x2), _number(line.y2)),
+        start=(_coordinate(line.x1), _coordinate(line.y1)),
+        end=(_coordinate(line.x2), _coordinate(line.y2)),
     )
     _set_stroke(element, line.stroke, line.stroke_width)
     if line.dash:
@@ -159,7 +236,7 @@ def _draw_line(line: Line, context: _Context):
 def _draw_polygon(polygon: Polygon, context: _Context):
     if not polygon.points:
         return None
-    points = [(_number(x), _number(y)) for x, y in polygon.points]
+    points = [(_coordinate(x), _coordinate(y)) for x, y in polygon.points]
     if polygon.closed:
         element = context.drawing.polygon(points, fill=_paint(polygon.fill))
     else:
@@ -176,7 +253,7 @@ def _draw_text(text: Text, context: _Context):
     if context.outlines:
         return _draw_text_outline(text, content, context)
     element = context.drawing.text(
-        content, insert=(_number(text.x), _number(text.y)), font_size=_number(text.size),
+        content, insert=(_coordinate(text.x), _coordinate(text.y)), font_size=_number(text.size),
     )
     # Defaults are left out (SVG's own initial values) to keep large charts small.
     if text.anchor != "start":
@@ -188,6 +265,7 @@ def _draw_text(text: Text, context: _Context):
     if text.fill.lower() not in ("#000000", "#000", "black"):
         element["fill"] = _colour(text.fill)
     _set_common(element, 1.0, text.css_class)
+    context.texts.append(element)
     return element
 
 
@@ -277,6 +355,19 @@ def _choice(value: str, allowed: tuple[str, ...]) -> str:
 
 def _per_mille(opacity: float) -> int:
     return round(min(max(opacity, 0.0), 1.0) * 1000)
+
+
+def _extent(start: float, size: float) -> tuple[str, str]:
+    """(start, size) with both edges rounded to COORDINATE_DECIMALS, so abutting shapes still
+    meet; a size that would round away keeps two decimals and is not lost."""
+    low, high = round(start, COORDINATE_DECIMALS), round(start + size, COORDINATE_DECIMALS)
+    if high - low <= 0:
+        return _number(start, 2), _number(size, 2)
+    return _coordinate(low), _coordinate(high - low)
+
+
+def _coordinate(value: float) -> str:
+    return _number(value, COORDINATE_DECIMALS)
 
 
 def _number(value: float, decimals: int = 2) -> str:

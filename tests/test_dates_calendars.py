@@ -14,6 +14,7 @@ from hypothesis import given, strategies as st
 
 from timelines.calendar import JD_OFFSET, iso_from_fixed
 from timelines.dates import DateError, DateSettings, parse_date, parse_span
+from timelines.dates.windows import month_bounds, year_bounds
 from timelines.model import Qualifier
 
 C = Qualifier.CONVENTION_DEPENDENT
@@ -203,3 +204,16 @@ def test_julian_days_agree_with_convertdate(day):
     text = f"{number} {datetime.date(2001, month, 1):%B} {year}"
     endpoint = parse_date(text, DateSettings(calendar="julian"))
     assert endpoint.earliest == day.toordinal()
+
+
+# Oracles: convertdate.julian for Julian days, datetime.date for proleptic Gregorian ones. The
+# remembered bounds are worked out without a second calendar conversion (windows.py).
+@given(st.integers(1, 9998), st.integers(1, 12))
+def test_year_and_month_bounds_agree_with_the_oracles(year, month):
+    next_year, next_month = (year + 1, 1) if month == 12 else (year, month + 1)
+    assert year_bounds(year, "julian") == (_julian(year, 1, 1), _julian(year + 1, 1, 1) - 1)
+    assert month_bounds(year, month, "julian") == (_julian(year, month, 1),
+                                                   _julian(next_year, next_month, 1) - 1)
+    assert year_bounds(year, "gregorian") == (_gregorian(year, 1, 1), _gregorian(year, 12, 31))
+    assert month_bounds(year, month, "gregorian") == (_gregorian(year, month, 1),
+                                                      _gregorian(next_year, next_month, 1) - 1)

@@ -39,9 +39,20 @@ _QUICK_SHAPES = st.one_of(
               st.integers(10, 999).map(lambda n: f"{n * 10}s")),
     st.builds("{} {} {}".format, st.sampled_from(["c.", "ca.", "circa", "about"]), _YEARS,
               st.sampled_from(["BC", "BCE"])),
-    st.builds("{}{}".format, _YEARS, st.sampled_from(["?", "~"])),
+    st.builds("{}{}".format, _YEARS, st.sampled_from(["?", "~", "%"])),
     st.builds("{}{}{}{}{}".format, _DAYS, st.sampled_from(["/", "-"]), _DAYS,
               st.sampled_from(["/", "-"]), st.integers(1000, 9999)),
+    st.builds("{} {} {} {}".format, st.sampled_from(["between", "Between", "BETWEEN"]),
+              st.integers(1000, 9999), st.sampled_from(["and", "AND"]), st.integers(1000, 9999)),
+    st.builds("{}–{} {}".format, st.sampled_from(_MONTHS), st.sampled_from(_MONTHS), _YEARS),
+    st.builds("{} {}".format, st.sampled_from(["c.", "ca.", "circa", "about", "C.", "About"]),
+              st.integers(10, 999).map(lambda n: f"{n * 10}s")),
+    st.builds("{} ± {}".format, _YEARS, st.integers(0, 9999)),
+    st.builds("{:,} ± {} BP".format, st.integers(1000, 999_999), st.integers(0, 9999)),
+    st.builds("{}.{} {}".format, st.integers(0, 999), st.integers(0, 9),
+              st.sampled_from(["Ma", "ma", "MA"])),
+    st.builds("{} {} {}/{}".format, _DAYS, st.sampled_from(_MONTHS + ["January", "March", "Mar"]),
+              st.integers(1000, 1800), st.integers(0, 99).map("{:02d}".format)),
 )
 
 
@@ -52,7 +63,7 @@ def _general(text, settings):
         return error.reason
 
 
-@hypothesis_settings(max_examples=3000)
+@hypothesis_settings(max_examples=5000)
 @given(_QUICK_SHAPES, st.sampled_from(_SETTINGS))
 def test_quick_lane_agrees_with_the_general_reader(text, settings):
     quick = quick_span(text, settings)
@@ -62,12 +73,27 @@ def test_quick_lane_agrees_with_the_general_reader(text, settings):
 
 @pytest.mark.parametrize("text", ["1650", "1985-04-12", "12 April 1650", "12-Apr-1650",
                                   "April 12, 1650", "April 1650", "1650s", "c. 1650",
-                                  "before 1700", "44 BC", "1650–1660", "1650 to 1660"])
+                                  "before 1700", "44 BC", "1650–1660", "1650 to 1660", "1650%",
+                                  "between 1650 and 1660", "March–May 1650", "c. 1650s",
+                                  "1650 ± 10", "12,500 ± 150 BP", "65.5 Ma",
+                                  "12 February 1701/02"])
 def test_the_common_shapes_take_the_quick_lane(text):
     assert QUICK.fullmatch(text) and quick_span(text, DateSettings()) is not None
 
 
 @pytest.mark.parametrize("text", ["2001-02-29", "31 April 1650", "10 October 1582",
-                                  "1660–1650"])
+                                  "1660–1650", "0000-01-01", "1985-13-01",
+                                  "between 1660 and 1650", "May–March 1650",
+                                  "12 April 1701/02", "12 February 1701/03"])
 def test_doubtful_cells_go_to_the_general_reader(text):
     assert quick_span(text, DateSettings()) is None
+
+
+# Unicode case folding matches 'ſ' (long s) to s, 'ı' (dotless i) to i and the Kelvin sign to
+# k; the month names are ASCII, and such a cell must get the general reader's DateError.
+@pytest.mark.parametrize("text", ["12 \u017fept 1650", "Ju\u0131y 12, 1650", "12 Ju\u0131y 1650",
+                                  "\u017fept 1650", "Ma\u0131\u2013June 1650"])
+def test_look_alike_letters_give_a_date_error(text):
+    assert quick_span(text, DateSettings()) is None
+    with pytest.raises(DateError):
+        general_span(text, DateSettings())

@@ -16,7 +16,8 @@ from typing import Callable, Iterable, Sequence
 
 from ..calendar import fixed_from_gregorian
 from ..errors import DateError
-from ..model import Endpoint, Precision, Span
+from ..model import Endpoint, Span
+from .built import days as day_endpoints
 from .cells import endpoint_from_cell, span_from_cell
 from .settings import DEFAULT_SETTINGS, DateSettings
 
@@ -93,5 +94,5 @@ def _shared_days(days) -> list[Endpoint]:
     distinct = numpy.flatnonzero(present)
     # A table over the days from the first to the last, holding each distinct day's Endpoint.
     table = numpy.empty(len(present), dtype=object)
-    table[distinct] = [Endpoint(day, day, Precision.DAY) for day in (distinct + low).tolist()]
+    table[distinct] = day_endpoints((distinct + low).tolist())
     return table[offsets].tolist()

@@ -20,6 +20,7 @@ A year may be a dual year (`12 February 1701/02`): see oldstyle.py.
 from __future__ import annotations
 
 import re
+from functools import lru_cache
 
 from ..calendar import JULIAN, weekday_from_fixed
 from ..model import Endpoint, Precision, Qualifier
@@ -238,10 +239,16 @@ def misspelt_month(text: str) -> tuple[str, str] | None:
     for word in re.findall(r"[a-z]{3,}", text, re.IGNORECASE | re.ASCII):
         if word.lower() in MONTHS:
             continue
-        close = closest_word(word, _MONTH_NAMES)
+        close = _nearest_month(word.lower())
         if close:
             return word, f"did you mean {close.capitalize()}?"
     return None
+
+
+@lru_cache(maxsize=1 << 12)
+def _nearest_month(word: str) -> str | None:
+    # A column's notes repeat their words; the string comparison is the cost of an error.
+    return closest_word(word, _MONTH_NAMES)
 
 
 MONTH_FORMS = (

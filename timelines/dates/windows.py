@@ -11,9 +11,9 @@ from functools import lru_cache
 from typing import Iterable
 
 from ..calendar import (
-    GREGORIAN, GREGORIAN_REFORM, HISTORICAL, JULIAN, days_in_month, fixed_from_calendar,
-    fixed_from_gregorian, fixed_from_julian, gregorian_from_fixed, gregorian_year_from_fixed,
-    julian_from_fixed, month_range, year_range,
+    GREGORIAN, GREGORIAN_REFORM, HISTORICAL, JULIAN, fixed_from_calendar, fixed_from_gregorian,
+    fixed_from_julian, gregorian_from_fixed, gregorian_year_from_fixed, is_gregorian_leap_year,
+    is_julian_leap_year, julian_from_fixed, month_range, year_range,
 )
 from ..errors import DateError
 from ..model import Endpoint, Precision, Qualifier, Span
@@ -27,6 +27,8 @@ from .settings import DateSettings
 MAX_YEAR_DIGITS = 12
 PRESENT_YEAR = 1950  # "before present" (BP, ka, Ma) counts back from 1950 (radiocarbon usage)
 
+# Days in each month of a common year; February gains the leap day.
+_MONTH_DAYS = (31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31)
 _PRECISION_ORDER = {precision: rank for rank, precision in enumerate(Precision)}
 _APPROXIMATE_MARKS = frozenset({Qualifier.APPROXIMATE, Qualifier.CONVENTION_DEPENDENT})
 
@@ -57,9 +59,11 @@ def year_bounds(year: int, calendar: str) -> tuple[int, int]:
             return year_range(year, calendar)   # Julian January, Gregorian December
         calendar = GREGORIAN if year > 1582 else JULIAN
     if calendar == GREGORIAN:
-        return fixed_from_gregorian(year, 1, 1), fixed_from_gregorian(year + 1, 1, 1) - 1
+        first = fixed_from_gregorian(year, 1, 1)
+        return first, first + 364 + is_gregorian_leap_year(year)
     if calendar == JULIAN:
-        return fixed_from_julian(year, 1, 1), fixed_from_julian(year + 1, 1, 1) - 1
+        first = fixed_from_julian(year, 1, 1)
+        return first, first + 364 + is_julian_leap_year(year)
     return year_range(year, calendar)           # an unknown calendar: its error
 
 
@@ -71,9 +75,11 @@ def month_bounds(year: int, month_number: int, calendar: str) -> tuple[int, int]
         calendar = _reckoning(year, month_number, calendar)
     if not 1 <= month_number <= 12 or calendar not in (GREGORIAN, JULIAN):
         return month_range(year, month_number, calendar)   # its errors, or the 1582 reform
-    to_fixed = fixed_from_gregorian if calendar == GREGORIAN else fixed_from_julian
-    first = to_fixed(year, month_number, 1)
-    return first, first + days_in_month(year, month_number, calendar) - 1
+    if calendar == GREGORIAN:
+        first, leap = fixed_from_gregorian(year, month_number, 1), is_gregorian_leap_year(year)
+    else:
+        first, leap = fixed_from_julian(year, month_number, 1), is_julian_leap_year(year)
+    return first, first + _MONTH_DAYS[month_number - 1] - 1 + (month_number == 2 and leap)
 
 
 def day_fixed(year: int, month_number: int, day_number: int, calendar: str) -> int:

@@ -187,7 +187,7 @@ def test_parse_column_reads_each_distinct_value_once():
     assert results[0] is results[4]                         # shared, not re-read
     assert results[1] == parse_date("c. 1650")
     assert results[2] is None and results[3] is None
-    assert isinstance(results[5], DateError) and results[5].reason == "not a date form I know"
+    assert isinstance(results[5], DateError) and results[5].reason == "not a date form timelines reads"
     assert results[6] == results[7] == endpoint_from_cell(1650)
 
 

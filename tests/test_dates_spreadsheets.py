@@ -92,11 +92,11 @@ FAILURES = [
     ("03/04/1790", "03/04/1790 could be 3 April or March 4"),
     ("31 Sept 1790", "day 31 does not exist in month 9 (it has 30 days)"),
     ("29 Feb 1790", "1790 is not a leap year in the gregorian calendar"),
-    ("c. 18th", "not a date form I know"),
+    ("c. 18th", "not a date form timelines reads"),
     ("1790/80", "1790/80 is not a dual year: a dual year names a year and the next one"),
     ("0 BC", "BC/AD counting has no year zero"),
     ("1985-13-01", "month 13 does not exist"),
-    ("Aprl 1790", "not a date form I know"),
+    ("Aprl 1790", "not a date form timelines reads"),
 ]
 
 

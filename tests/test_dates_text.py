@@ -311,8 +311,8 @@ TEXT_ERRORS = [
     ("10 October 1582", "1582-10-05..14 do not exist in the historical reckoning "
                         "(Julian 4 October was followed by Gregorian 15 October)"),
     ("c. 1984~", "approximate twice (both c. and ~); write one of them"),
-    ("hello", "not a date form I know"),
-    ("Aprl 1650", "not a date form I know"),
+    ("hello", "not a date form timelines reads"),
+    ("Aprl 1650", "not a date form timelines reads"),
     ("", "there is no date here"),
     ("1650–1640", "the end comes before the start"),
     ("AD 100 – 200 BC", "the end comes before the start"),
@@ -321,7 +321,7 @@ TEXT_ERRORS = [
     ("–1660", "the range has no start"),
     ("1650 – 1660 – 1670", "a range has one start and one end"),
     ("1650-04-12-1660", "more than one hyphen could end the start here"),
-    ("1650–16y0", "the end '16y0' is not a date form I know"),
+    ("1650–16y0", "the end '16y0' is not a date form timelines reads"),
     ("1650–2001-02-29", "the end '2001-02-29': 2001 is not a leap year"),
 ]
 

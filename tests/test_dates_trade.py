@@ -333,7 +333,7 @@ TRADE_ERRORS = [
     ("12st April 1650", "write 12th, not 12st"),
     ("xyz century", "'xyz' is not an ordinal number such as seventeenth"),
     ("C0", "there is no 0th century"),
-    ("c. before 1650 before", "not a date form I know"),
+    ("c. before 1650 before", "not a date form timelines reads"),
     ("before after 1650", "one date cannot have two bounds"),
     ("early late 1650s", "one part of a unit at a time"),
     ("c. c. 1650", "approximate twice (both c. and ~); write one of them"),
@@ -343,8 +343,8 @@ TRADE_ERRORS = [
     ("between 1660 and 1650", "the second date comes before the first"),
     ("spring 1650/51", "only a winter is written with two years (winter 1650/51)"),
     ("1650s–1640s", "the end comes before the start"),
-    ("12 Aprl 1650", "not a date form I know"),
-    ("c. 18th", "not a date form I know"),
+    ("12 Aprl 1650", "not a date form timelines reads"),
+    ("c. 18th", "not a date form timelines reads"),
 ]
 
 

@@ -268,7 +268,7 @@ def test_founders_report_lines_are_exact():
         "harrowmere-founders.csv:7: [H6] no date: the 'born' and 'died' cells are empty",
         "harrowmere-founders.csv:8:died: [H7] the end ('1690') lies wholly before "
         "the start ('1720')",
-        "harrowmere-founders.csv:9:born: [H8] cannot read 'c. 18th': not a date form I know "
+        "harrowmere-founders.csv:9:born: [H8] cannot read 'c. 18th': not a date form timelines reads "
         "(expected a date such as 1650, c. 1650, 1650s, 17th century, 1650-04-12, 44 BC)",
         "harrowmere-founders.csv:9:died: [H8] cannot read '2001-02-29': 2001 is not a leap year",
     ]

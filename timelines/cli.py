@@ -4,9 +4,10 @@ reporter.
 Exit codes: 0 success, 1 the input had errors or rows were left out (the chart is still
 written unless --strict), 2 usage errors.
 
-The options themselves are defined in `options`. Settings: `render`, `check` and `lanes` read `--config FILE` (TOML, keys are the long option
-names); an option on the command line wins over the file, the file over the default, and
-`--print-config` shows each effective setting and where it came from (see `config`).
+The options themselves are defined in `options`. Settings: `render`, `check` and `lanes`
+read `--config FILE` (TOML, keys are the long option names); an option on the command line wins
+over the file, the file over the default, and `--print-config` shows each effective setting and
+where it came from (see `config`).
 """
 from __future__ import annotations
 

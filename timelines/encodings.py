@@ -68,7 +68,8 @@ def fade(window: EndWindow, scale: TimeScale, lane: LaneBox, style: MarkStyle) -
                          css_class="fringe")]
 
 
-def whisker(window: EndWindow, scale: TimeScale, lane: LaneBox, style: MarkStyle) -> list[Primitive]:
+def whisker(window: EndWindow, scale: TimeScale, lane: LaneBox,
+            style: MarkStyle) -> list[Primitive]:
     """A thin line across the window with a short cap at the far bound."""
     x_low, x_high = scale.x(window.low), scale.x(window.high)
     if x_high - x_low <= 0:
@@ -160,7 +161,8 @@ def unknown_stretch(window: EndWindow, scale: TimeScale, lane: LaneBox,
     ]
 
 
-def core(low: float, high: float, scale: TimeScale, lane: LaneBox, style: MarkStyle) -> list[Primitive]:
+def core(low: float, high: float, scale: TimeScale, lane: LaneBox,
+         style: MarkStyle) -> list[Primitive]:
     """The certain part: a solid bar."""
     x_low, x_high = scale.x(low), scale.x(high)
     return [Rect(x_low, lane.y, max(x_high - x_low, 1.0), lane.height, style.color,

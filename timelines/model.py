@@ -156,5 +156,6 @@ class Record:
     @property
     def date_text(self) -> str:
         if self.end_text and self.end_text != self.start_text:
-            return f"{self.start_text} – {self.end_text}" if self.start_text else f"? – {self.end_text}"
+            start = self.start_text or "?"
+            return f"{start} – {self.end_text}"
         return self.start_text

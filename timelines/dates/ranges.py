@@ -177,6 +177,6 @@ def _range_side(part: str, side: str, text: str, settings: DateSettings) -> Endp
         raise DateError(text, f"the {side} {part!r}: {reason}", hint=getattr(error, "hint", None),
                         position=locate(text, getattr(error, "fragment", None) or part)) from error
     if endpoint is None:
-        raise DateError(text, f"the {side} {part!r} is not a date form I know", hint=DATE_HINT,
-                        position=locate(text, part))
+        raise DateError(text, f"the {side} {part!r} is not a date form timelines reads",
+                        hint=DATE_HINT, position=locate(text, part))
     return endpoint

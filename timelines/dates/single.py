@@ -28,6 +28,8 @@ from .sets import read_set
 from .settings import DEFAULT_SETTINGS, DateSettings
 from .windows import after, before, normalise, spanning
 
+NOT_READ = "not a date form timelines reads"
+
 BETWEEN = re.compile(r"""
     (?:between|betw\.?|bet\.?|btw\.?) \s+ (?P<first>.+?) \s+ (?:and|&) \s+ (?P<second>.+)
 """, FLAGS)
@@ -123,5 +125,5 @@ def not_a_date(text: str, cleaned: str) -> DateError:
     misspelt = misspelt_month(cleaned)
     if misspelt:
         word, hint = misspelt
-        return DateError(text, "not a date form I know", position=locate(text, word), hint=hint)
-    return DateError(text, "not a date form I know", hint=DATE_HINT)
+        return DateError(text, NOT_READ, position=locate(text, word), hint=hint)
+    return DateError(text, NOT_READ, hint=DATE_HINT)

@@ -8,6 +8,7 @@ from pathlib import Path
 
 from timelines.chart import ChartOptions, render
 from timelines.sources import ColumnMap
+from timelines.theme import DEFAULT_THEME
 
 HERE = Path(__file__).parent
 TABLE = HERE / "marrable.csv"
@@ -15,6 +16,7 @@ TABLE = HERE / "marrable.csv"
 
 def make(out: Path = HERE) -> list[Path]:
     options = ChartOptions(columns=ColumnMap(group="generation"),
+                           theme=DEFAULT_THEME.with_options(width=1100),  # room for long names
                            title="The Marrable family of Cressing, four generations (invented)")
     return [render(TABLE, out / f"family{suffix}", options).written
             for suffix in (".svg", ".png")]

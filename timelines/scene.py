@@ -6,10 +6,16 @@ downward, as on a page. Colours are `#rrggbb` strings; opacity is a separate num
 """
 from __future__ import annotations
 
+import re
 from dataclasses import dataclass, field
 from typing import Union
 
 PX_PER_INCH = 96.0
+# XML 1.0 (section 2.2) forbids C0 controls other than tab/LF/CR, surrogates, U+FFFE/U+FFFF;
+# DEL and the C1 controls are allowed but never meant as text, so they go too. No renderer
+# draws them; SVG collapses XML whitespace, so every renderer does (one clean-up for all).
+_NOT_TEXT = re.compile("[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f\ud800-\udfff\ufffe\uffff]")
+_WHITESPACE = re.compile("[\t\n\r ]+")
 # How a vector renderer writes text: as text (selectable, restylable) or as glyph outlines.
 TEXT_MODES = ("text", "paths")
 PX_PER_MM = PX_PER_INCH / 25.4
@@ -120,3 +126,14 @@ def walk(items: tuple[Primitive, ...]):
 def find(scene: Scene, css_class: str) -> list[Primitive]:
     """Primitives whose class list holds `css_class`; a test helper as much as an API."""
     return [p for p in walk(scene.children) if css_class in p.css_class.split()]
+
+
+def clean_text(text: str) -> str:
+    """`text` without the characters XML 1.0 cannot carry (so an SVG stays well-formed)."""
+    return _NOT_TEXT.sub("", str(text))
+
+
+def drawable_text(text: str) -> str:
+    """Text as it is drawn: cleaned, XML whitespace collapsed, ends trimmed. Every renderer
+    draws this same string, so SVG, PNG and PDF show identical text."""
+    return _WHITESPACE.sub(" ", clean_text(text)).strip()

@@ -19,7 +19,10 @@ from pathlib import Path
 
 import numpy
 
-from timelines.scene import PX_PER_INCH, GradientRect, Group, Line, Polygon, Rect, Scene, Text
+from timelines.scene import (
+    PX_PER_INCH, GradientRect, Group, Line, Polygon, Rect, Scene, Text, clean_text,
+    drawable_text,
+)
 
 POINTS_PER_PX = 72.0 / PX_PER_INCH
 # A fade in a PDF is one row of 256 samples: as fine as 8-bit alpha resolves, so no steps show.
@@ -37,10 +40,6 @@ _SETTINGS = {
     "savefig.bbox": "standard",       # never crop: the page is the scene's size
     "savefig.transparent": False,
 }
-# The same text clean-up the SVG renderer does (XML-forbidden and C1 controls out, XML
-# whitespace collapsed), so both routes draw identical strings.
-_NOT_TEXT = re.compile("[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f\ud800-\udfff\ufffe\uffff]")
-_WHITESPACE = re.compile("[\t\n\r ]+")
 # PNG 11.3.4.3: a keyword is 1-79 Latin-1 characters without leading or trailing spaces; we
 # accept the printable ASCII part of that.
 _PNG_KEYWORD = re.compile(r"[!-~](?:[ -~]{0,77}[!-~])?")
@@ -248,7 +247,7 @@ def _draw_polygon(polygon: Polygon, page: _Page):
 def _draw_text(text: Text, page: _Page):
     from matplotlib.text import Text as TextArtist
 
-    content = _WHITESPACE.sub(" ", _NOT_TEXT.sub("", text.text)).strip()
+    content = drawable_text(text.text)   # the string the SVG draws, too
     if not content:
         return None
     if text.anchor not in HORIZONTAL_ALIGNMENT:
@@ -380,17 +379,13 @@ def _opacity(opacity: float) -> float | None:
     return None if opacity >= 1 else max(opacity, 0.0)
 
 
-def _clean(text: str) -> str:
-    return _NOT_TEXT.sub("", str(text))
-
-
 def _png_metadata(scene: Scene) -> dict[str, str | None]:
     """PNG text chunks: title, description and the scene's metadata; no software stamp."""
     metadata: dict[str, str | None] = {"Software": None}
     items = [("Title", scene.title), ("Description", scene.desc), *scene.metadata]
     for key, value in items:
         if value and _PNG_KEYWORD.fullmatch(key):
-            metadata[key] = _clean(value)
+            metadata[key] = clean_text(value)
     return metadata
 
 
@@ -399,9 +394,9 @@ def _pdf_metadata(scene: Scene) -> dict[str, str | None]:
     metadata: dict[str, str | None] = {"CreationDate": None, "Producer": None, "Creator": None}
     for key, value in scene.metadata:
         if key.lower() in _PDF_INFO_KEYS and value:
-            metadata[_PDF_INFO_KEYS[key.lower()]] = _clean(value)
+            metadata[_PDF_INFO_KEYS[key.lower()]] = clean_text(value)
     if scene.title:
-        metadata["Title"] = _clean(scene.title)
+        metadata["Title"] = clean_text(scene.title)
     if scene.desc:
-        metadata["Subject"] = _clean(scene.desc)
+        metadata["Subject"] = clean_text(scene.desc)
     return metadata

@@ -20,7 +20,10 @@ from pathlib import Path
 import svgwrite
 from svgwrite.base import Desc, Title
 
-from timelines.scene import TEXT_MODES, GradientRect, Group, Line, Polygon, Rect, Scene, Text
+from timelines.scene import (
+    TEXT_MODES, GradientRect, Group, Line, Polygon, Rect, Scene, Text, clean_text,
+    drawable_text,
+)
 
 TITLE_ID = "timelines-title"
 DESC_ID = "timelines-desc"
@@ -30,11 +33,6 @@ GRADIENT_ID_PREFIX = "fade-"            # scene ids are group-N and panel-N: no 
 FONT_FALLBACKS = ("DejaVu Sans", "Bitstream Vera Sans", "sans-serif")
 XML_DECLARATION = '<?xml version="1.0" encoding="utf-8"?>\n'
 
-# XML 1.0 (section 2.2) forbids C0 controls other than tab/LF/CR, surrogates, U+FFFE/U+FFFF;
-# DEL and the C1 controls are allowed but discouraged and never meant as text, so they go too.
-_NOT_XML_TEXT = re.compile("[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f\ud800-\udfff\ufffe\uffff]")
-# SVG collapses XML whitespace in text; doing it here keeps SVG and PNG/PDF text identical.
-_XML_WHITESPACE = re.compile("[\t\n\r ]+")
 # Hex colours and CSS colour keywords only: nothing that could be url(...) or a script.
 _COLOUR = re.compile(r"#[0-9a-fA-F]{3}(?:[0-9a-fA-F]{3})?|[a-zA-Z]{1,40}")
 _FONT_NAME_UNSAFE = re.compile(r"[^\w \-]")
@@ -317,16 +315,6 @@ def _set_common(element, opacity: float, css_class: str) -> None:
         element["opacity"] = _number(max(opacity, 0.0), 3)
     if css_class:
         element["class"] = clean_text(css_class)
-
-
-def clean_text(text: str) -> str:
-    """`text` without the characters XML 1.0 cannot carry (so the file stays well-formed)."""
-    return _NOT_XML_TEXT.sub("", str(text))
-
-
-def drawable_text(text: str) -> str:
-    """Text as SVG displays it: cleaned, XML whitespace collapsed, ends trimmed."""
-    return _XML_WHITESPACE.sub(" ", clean_text(text)).strip()
 
 
 def font_family_list(font_family: str) -> str:

@@ -114,6 +114,16 @@ def test_background_is_a_full_page_rect_or_absent():
     assert not drawn(parse(scene_of(background=None)), "rect")
 
 
+def test_root_declares_only_what_the_document_uses():
+    # No element uses an xlink or xml-events name (no href, no handlers: see the hostile-text
+    # tests), and baseProfile is optional metadata, absent meaning "none" (SVG 1.1 Second
+    # Edition, the 'svg' element; MDN's baseProfile page), so none of them is written.
+    output = render_svg(sample_scene())
+    root_tag = output[output.index("<svg"):output.index(">", output.index("<svg")) + 1]
+    assert 'xmlns="http://www.w3.org/2000/svg"' in root_tag and 'version="1.1"' in root_tag
+    assert not re.search(r"xmlns:|baseProfile", output)
+
+
 def test_metadata_is_written_as_text():
     root = parse(scene_of(metadata=(("generator", "timelines 0.1.0"), ("source", "guild.csv"))))
     assert drawn(root, "metadata")[0].text == "generator: timelines 0.1.0\nsource: guild.csv"
@@ -173,6 +183,30 @@ def test_gradient_ids_do_not_depend_on_drawing_order():
     forward = {g.get("id") for g in drawn(parse(scene_of(first, second)), "linearGradient")}
     backward = {g.get("id") for g in drawn(parse(scene_of(second, first)), "linearGradient")}
     assert forward == backward
+
+
+def decoded_gradient_id(gradient_id: str) -> tuple[str, float, float]:
+    """(colour, left opacity, right opacity) read back from a gradient id."""
+    assert gradient_id.startswith("f")
+    colour = gradient_id[1:-4].lstrip("-") if "-" in gradient_id else "#" + gradient_id[1:-4]
+    left, right = (int(digits, 36) / 1000 for digits in (gradient_id[-4:-2], gradient_id[-2:]))
+    return colour, left, right
+
+
+def test_a_gradient_id_is_short_and_spells_out_its_fade():
+    # The id is a function of the fade alone, so it can be decoded back into its stops: two
+    # charts inlined in one HTML page that both define an id define the same fade.
+    opacities = [0.0, 0.001, 0.035, 0.036, 0.12, 0.5, 0.999, 1.0]
+    kinds = [(c, a, b) for c in ("#0072B2", "#abc", "teal") for a in opacities for b in opacities]
+    fades = [GradientRect(0, 10 * i, 10, 5, *kind) for i, kind in enumerate(kinds)]
+    root = parse(scene_of(*fades))
+    gradients = drawn(root, "linearGradient")
+    assert len(gradients) == len(fades)
+    for gradient in gradients:
+        colour, left, right = decoded_gradient_id(gradient.get("id"))
+        stops = [(s.get("stop-color").lower(), float(s.get("stop-opacity"))) for s in gradient]
+        assert stops == [(colour, left), (colour, right)]
+    assert len(gradients[0].get("id")) <= 11     # a hex colour's id: f + 6 + 4 characters
 
 
 def test_zero_width_gradient_rect_is_skipped_with_no_defs_left_over():

@@ -16,6 +16,7 @@ import math
 import re
 from dataclasses import dataclass, field
 from pathlib import Path
+from xml.etree import ElementTree
 
 import svgwrite
 from svgwrite.base import Desc, Title
@@ -28,7 +29,13 @@ from timelines.scene import (
 TITLE_ID = "timelines-title"
 DESC_ID = "timelines-desc"
 ROOT_ID_PREFIX = "timelines-chart-"     # the root's id, when it has a style sheet to scope
-GRADIENT_ID_PREFIX = "fade-"            # scene ids are group-N and panel-N: no clash
+GRADIENT_ID_PREFIX = "f"                # scene ids are group-N and panel-N: no clash
+# Root attributes svgwrite always writes and nothing here needs: no element uses a name in the
+# xlink or xml-events namespace (no href, no handlers), and baseProfile is metadata without any
+# processing restriction, absent meaning "none" (SVG 1.1 Second Edition, the 'svg' element;
+# SVG 2 drops it; MDN's baseProfile page).
+_UNUSED_ROOT_ATTRIBUTES = ("xmlns:xlink", "xmlns:ev", "baseProfile")
+_BASE36 = "0123456789abcdefghijklmnopqrstuvwxyz"
 # Metric-compatible fallbacks after the scene's font, so text measured for DejaVu Sans fits.
 FONT_FALLBACKS = ("DejaVu Sans", "Bitstream Vera Sans", "sans-serif")
 XML_DECLARATION = '<?xml version="1.0" encoding="utf-8"?>\n'
@@ -62,9 +69,17 @@ def render_svg(scene: Scene, *, text: str = "text") -> str:
         context.drawing["id"], sheet = _style_sheet(rules)
         heading = sum(isinstance(e, Title) for e in context.drawing.elements[:3])
         context.drawing.elements.insert(heading, _StyleSheet(sheet))
+    return XML_DECLARATION + _serialise(context.drawing) + "\n"
+
+
+def _serialise(drawing: svgwrite.Drawing) -> str:
+    """The drawing's XML as svgwrite builds it, less the root attributes nothing uses."""
+    root = drawing.get_xml()
+    for name in _UNUSED_ROOT_ATTRIBUTES:
+        root.attrib.pop(name, None)
     # ElementTree writes empty elements as "<x />"; "/>" is the same XML. Text and attribute
     # values have ">" escaped, so the replacement can only meet the ends of tags.
-    return XML_DECLARATION + context.drawing.tostring().replace(" />", "/>") + "\n"
+    return ElementTree.tostring(root, encoding="unicode").replace(" />", "/>")
 
 
 def write_svg(scene: Scene, path: str | Path, *, text: str = "text") -> None:
@@ -210,13 +225,23 @@ def _gradient_id(rect: GradientRect, context: _Context) -> str:
     colour = _colour(rect.fill)
     key = (colour.lower(), _per_mille(rect.opacity_left), _per_mille(rect.opacity_right))
     if key not in context.gradients:
-        gradient_id = f"{GRADIENT_ID_PREFIX}{key[0].lstrip('#')}-{key[1]}-{key[2]}"
+        gradient_id = _gradient_name(*key)
         gradient = context.drawing.linearGradient(start=(0, 0), end=(1, 0), id=gradient_id)
         gradient.add_stop_color(0, colour, _number(key[1] / 1000, 3))
         gradient.add_stop_color(1, colour, _number(key[2] / 1000, 3))
         context.drawing.defs.add(gradient)
         context.gradients[key] = gradient_id
     return context.gradients[key]
+
+
+def _gradient_name(colour: str, left: int, right: int) -> str:
+    """A short id that still spells out its fade: the colour's hex digits (a CSS name after a
+    '-', which no hex digit is), then each per-mille opacity as two base-36 digits (1000 < 36²).
+    Fringes repeat the id on every bar, so its length counts; and as it is one id per content,
+    two charts inlined in one HTML page that both define it define the same fade."""
+    name = colour[1:] if colour.startswith("#") else f"-{colour}"
+    return GRADIENT_ID_PREFIX + name + "".join(
+        _BASE36[digit] for value in (left, right) for digit in divmod(value, 36))
 
 
 def _draw_line(line: Line, context: _Context):

@@ -8,10 +8,7 @@ like the same value made the ordinary way (tests/test_dates_built.py checks it).
 """
 from __future__ import annotations
 
-import gc
-from collections import deque
-from itertools import repeat
-
+from ..bulk import many
 from ..model import Endpoint, Precision, Span
 
 _NEW = object.__new__
@@ -25,7 +22,6 @@ _LIKELY = Endpoint.likely.__set__
 _START = Span.start.__set__
 _END = Span.end.__set__
 _DAY = Precision.DAY
-_CONSUME = deque(maxlen=0).extend   # runs a map for its effects, keeping nothing
 
 
 def checked_window(earliest: int | None, latest: int | None, precision: Precision,
@@ -72,16 +68,4 @@ def checked_span(start: Endpoint, end: Endpoint) -> Span:
 
 def days(fixed: list[int]) -> list[Endpoint]:
     """[Endpoint.day(day) for day in fixed], each slot set for all at once (a whole column)."""
-    # Endpoints hold no cycles, and a column's million strings are alive meanwhile: the cyclic
-    # collector, set off by the allocations, would walk them all again and again for nothing.
-    paused = gc.isenabled()
-    gc.disable()
-    try:
-        endpoints = list(map(_NEW, repeat(Endpoint, len(fixed))))
-        for setter, values in ((_EARLIEST, fixed), (_LATEST, fixed), (_PRECISION, repeat(_DAY)),
-                               (_QUALIFIERS, repeat(_NO_QUALIFIERS)), (_LIKELY, repeat(None))):
-            _CONSUME(map(setter, endpoints, values))
-    finally:
-        if paused:
-            gc.enable()
-    return endpoints
+    return many(Endpoint, len(fixed), earliest=fixed, latest=fixed)

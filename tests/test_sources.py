@@ -15,7 +15,8 @@ import pandas as pd
 import pytest
 from hypothesis import given, settings as hypothesis_settings, strategies as st
 
-import timelines.sources.records as source_records
+# the column reader load_records hands each distinct date cell to
+import timelines.dates.column as column_reader
 from timelines.check import check
 from timelines.errors import SourceError, UsageError
 from timelines.model import Qualifier
@@ -409,13 +410,13 @@ def test_xlsx_records_from_typed_cells(tmp_path):
 
 def test_spreadsheet_values_reach_the_parser_with_their_types(tmp_path, monkeypatch):
     seen = []
-    real = source_records.endpoint_from_cell
+    real = column_reader.endpoint_from_cell
 
     def recording(value, settings):
         seen.append(value)
         return real(value, settings)
 
-    monkeypatch.setattr(source_records, "endpoint_from_cell", recording)
+    monkeypatch.setattr(column_reader, "endpoint_from_cell", recording)
     load(write_workbook(tmp_path / "founders.xlsx"), sheet="People")
     assert datetime(1901, 3, 4) in seen and type(seen[0]) is datetime
     assert any(type(value) is int and value == 1950 for value in seen)
@@ -437,13 +438,13 @@ def test_ods_records(tmp_path):
 
 def test_each_distinct_cell_is_parsed_once(monkeypatch):
     calls = []
-    real = source_records.endpoint_from_cell
+    real = column_reader.endpoint_from_cell
 
     def counting(value, settings):
         calls.append(value)
         return real(value, settings)
 
-    monkeypatch.setattr(source_records, "endpoint_from_cell", counting)
+    monkeypatch.setattr(column_reader, "endpoint_from_cell", counting)
     rows = tuple((str(1650 + n % 3), "1700" if n % 2 else "bad") for n in range(300))
     result = load_records(Table("t.csv", ("born", "died"), rows),
                           ColumnMap(start="born", end="died"))

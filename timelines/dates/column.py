@@ -26,16 +26,28 @@ Result = Endpoint | Span | DateError | None
 # numpy counts datetime64[D] days from 1970-01-01; R.D. counts from 0001-01-01 = 1.
 _UNIX_EPOCH = fixed_from_gregorian(1970, 1, 1)
 _ISO_DAY_LENGTH = 10
+OPEN_CELL = ".."   # ISO 8601-2's sign for the open end of an interval
 
 
-def parse_column(values: Iterable[object],
-                 settings: DateSettings = DEFAULT_SETTINGS) -> list[Endpoint | DateError | None]:
-    """The endpoint (or None, or the DateError) of each cell of a start or end column."""
+def parse_column(values: Iterable[object], settings: DateSettings = DEFAULT_SETTINGS, *,
+                 open_cell: Endpoint | None = None) -> list[Endpoint | DateError | None]:
+    """The endpoint (or None, or the DateError) of each cell of a start or end column.
+
+    `open_cell`: what a cell holding only ISO 8601-2's open-end sign `..` gives. Only the
+    column says which side is open, so the caller decides; without it `..` is not a date."""
     values = values if isinstance(values, list) else list(values)
     days = _iso_days(values)
     if days is not None:
         return days
-    return _each_distinct_once(values, endpoint_from_cell, settings)
+    if open_cell is None:
+        return _each_distinct_once(values, endpoint_from_cell, settings)
+
+    def endpoint_or_open(value: object, settings: DateSettings) -> Endpoint | None:
+        if type(value) is str and value.strip() == OPEN_CELL:
+            return open_cell
+        return endpoint_from_cell(value, settings)
+
+    return _each_distinct_once(values, endpoint_or_open, settings)
 
 
 def parse_span_column(values: Iterable[object],

@@ -2,11 +2,15 @@
 reported with its row, column, text and reason. Each distinct cell value is parsed once."""
 from __future__ import annotations
 
+from collections.abc import Callable, Iterable
 from dataclasses import dataclass
+from itertools import repeat
 from pathlib import Path
-from typing import Callable
 
-from ..dates import DateError, endpoint_from_cell, span_from_cell
+from ..bulk import many
+from ..dates import DateError, parse_column, parse_span_column
+from ..dates.built import checked_span
+from ..dates.column import OPEN_CELL
 from ..dates.settings import DEFAULT_SETTINGS, DateSettings
 from ..errors import UsageError
 from ..model import Endpoint, Provenance, Qualifier, Record, Span
@@ -17,12 +21,8 @@ _UNKNOWN_START = Endpoint.open(Qualifier.UNKNOWN_START)
 _UNKNOWN_END = Endpoint.open(Qualifier.UNKNOWN_END)
 _OPEN_START = Endpoint.open(Qualifier.OPEN_START)
 _OPEN_END = Endpoint.open(Qualifier.OPEN_END)
-# ISO 8601-2 writes an open end of an interval as "..". Alone in a start or end cell it means
-# the same; only the column says which side is open, so it is read here, not by the parser.
-OPEN_CELL = ".."
-_OPEN = object()  # the cached reading of an OPEN_CELL, made into a side by the row reader
-
-
+# ISO 8601-2 writes an open end of an interval as "..". Alone in a start or end cell (OPEN_CELL)
+# it means the same; only the column says which side is open, so this module tells the parser.
 
 PROBLEM_KINDS = ("error", "undated", "contradiction")
 
@@ -114,22 +114,26 @@ def load_records(table: Table, columns: ColumnMap,
                  settings: DateSettings = DEFAULT_SETTINGS) -> LoadResult:
     """Every non-blank row of `table` as a Record or a Problem, using `columns` as given.
 
-    Each distinct cell value is parsed once: real columns repeat a lot."""
+    The table is read column by column: each distinct cell value of a date column is parsed
+    once (real columns repeat a lot), and the Records are made from whole columns at once."""
     layout = _Layout.of(table.header, columns)
-    read_row = _row_reader(table.source, layout, settings)
-    records: list[Record] = []
-    problems: list[Problem] = []
-    rows_read = 0
-    width = len(table.header)
-    for offset, row in enumerate(table.rows):
-        if row.count("") == width:
-            continue  # a wholly blank row holds no record; spreadsheets trail many
-        rows_read += 1
-        record, row_problems = read_row(row, offset + 2)
-        if record is not None:
-            records.append(record)
-        problems.extend(row_problems)
-    return LoadResult(tuple(records), tuple(problems), rows_read)
+    offsets = _filled_rows(table.rows, len(table.header))
+    rows = table.rows if len(offsets) == len(table.rows) else [table.rows[i] for i in offsets]
+    cells = [list(column) for column in zip(*rows)] or [[] for _ in table.header]
+    numbers = [offset + 2 for offset in offsets]
+    if layout.when is None:
+        outcomes = _start_end_outcomes(cells, layout, settings)
+    else:
+        outcomes = _when_outcomes(cells[layout.when], layout.when, settings)
+    texts = _Texts(cells, layout)
+    records = _records(table.source, layout, texts, numbers, outcomes)
+    problems = _problems(table.source, layout, texts, numbers, outcomes)
+    return LoadResult(tuple(records), tuple(problems), len(rows))
+
+
+def _filled_rows(rows: tuple[tuple[object, ...], ...], width: int) -> list[int]:
+    """Offsets of the rows holding anything: spreadsheets trail many wholly blank rows."""
+    return [offset for offset, row in enumerate(rows) if row.count("") != width]
 
 
 def read_records(path: str | Path, columns: ColumnMap = ColumnMap(),
@@ -140,155 +144,162 @@ def read_records(path: str | Path, columns: ColumnMap = ColumnMap(),
     return load_records(table, detect_columns(table.header, columns), settings)
 
 
-RowReader = Callable[[tuple[object, ...], int], tuple[Record | None, list[Problem]]]
 DateOutcome = Span | None | list[tuple[int, DateError | None]]  # span, undated, or failures
-_CONTRADICTION = "contradiction"
 
 
-def _row_reader(source: str, layout: _Layout, settings: DateSettings) -> RowReader:
-    """A function reading one row, holding the per-load caches of parsed cells and spans."""
-    if layout.when is None:
-        read_dates = _start_end_reader(layout, settings)
-    else:
-        read_dates = _when_reader(layout, settings)
-    make_record = _record_maker(source, layout)
-
-    def read_row(row: tuple[object, ...], number: int) -> tuple[Record | None, list[Problem]]:
-        outcome = read_dates(row)
-        if type(outcome) is list:
-            return None, [_failure(source, number, layout, row, place, error)
-                          for place, error in outcome]
-        record = make_record(row, number, outcome)
-        if outcome is None:
-            return record, [_undated(source, number, layout, record.id)]
-        return record, []
-
-    return read_row
+def _start_end_outcomes(cells: list[list[object]], layout: _Layout,
+                        settings: DateSettings) -> list[DateOutcome]:
+    starts = _side(cells, layout.start, _OPEN_START, settings)
+    ends = _side(cells, layout.end, _OPEN_END, settings)
+    # Parsed cells are shared objects, one per distinct value, kept alive by the two lists:
+    # identity names them, so each distinct pair is made into a span once.
+    pairs = list(zip(map(id, starts), map(id, ends)))
+    found = {pair: _outcome(starts[row], ends[row], layout)
+             for pair, row in dict(zip(pairs, range(len(pairs)))).items()}
+    return list(map(found.__getitem__, pairs))
 
 
-def _cached(parse: Callable[[object, DateSettings], object],
-            settings: DateSettings) -> Callable[[object], object]:
-    """`parse` with a memory: the result, or the DateError, for each distinct cell value."""
-    results: dict[object, object] = {}
-
-    def read(value: object) -> object:
-        # 1650, 1650.0 and True are equal dict keys; keep cells of different types apart.
-        key = value if type(value) is str else (type(value), value)
-        try:
-            return results[key]
-        except KeyError:
-            pass
-        try:
-            result = parse(value, settings)
-        except DateError as error:
-            result = error
-        results[key] = result
-        return result
-
-    return read
+def _side(cells: list[list[object]], place: int | None, open_side: Endpoint,
+          settings: DateSettings) -> list[Endpoint | DateError | None]:
+    if place is None:
+        return [None] * len(cells[0])
+    return parse_column(cells[place], settings, open_cell=open_side)
 
 
-def _endpoint_or_open(value: object, settings: DateSettings) -> object:
-    if type(value) is str and value.strip() == OPEN_CELL:
-        return _OPEN
-    return endpoint_from_cell(value, settings)
-
-
-def _start_end_reader(layout: _Layout, settings: DateSettings) -> Callable[[tuple], DateOutcome]:
-    read_endpoint = _cached(_endpoint_or_open, settings)
-    start_place, end_place = layout.start, layout.end
-    spans: dict[tuple[int, int], Span | str] = {}
-
-    def read_dates(row: tuple[object, ...]) -> DateOutcome:
-        start = read_endpoint(row[start_place]) if start_place is not None else None
-        end = read_endpoint(row[end_place]) if end_place is not None else None
-        if start is _OPEN:
-            start = _OPEN_START
-        if end is _OPEN:
-            end = _OPEN_END
-        if isinstance(start, DateError) or isinstance(end, DateError):
-            return [(place, error) for place, error in ((start_place, start), (end_place, end))
-                    if isinstance(error, DateError)]
-        if start is None and end is None:
-            return None
-        key = (id(start), id(end))  # cached results are shared objects: identity names them
-        span = spans.get(key)
-        if span is None:
-            span = spans[key] = _span_or_contradiction(start, end)  # type: ignore[arg-type]
-        if span is _CONTRADICTION:
-            return [(end_place, None)]  # type: ignore[list-item]
-        return span  # type: ignore[return-value]
-
-    return read_dates
-
-
-def _when_reader(layout: _Layout, settings: DateSettings) -> Callable[[tuple], DateOutcome]:
-    read_span = _cached(span_from_cell, settings)
-    place = layout.when
-
-    def read_dates(row: tuple[object, ...]) -> DateOutcome:
-        span = read_span(row[place])
-        if isinstance(span, DateError):
-            return [(place, span)]  # type: ignore[list-item]
-        return span  # type: ignore[return-value]
-
-    return read_dates
-
-
-def _span_or_contradiction(start: Endpoint | None, end: Endpoint | None) -> Span | str:
+def _outcome(start: Endpoint | DateError | None, end: Endpoint | DateError | None,
+             layout: _Layout) -> DateOutcome:
+    if isinstance(start, DateError) or isinstance(end, DateError):
+        return [(place, error) for place, error in ((layout.start, start), (layout.end, end))
+                if isinstance(error, DateError)]
+    if start is None and end is None:
+        return None
     start = start or _UNKNOWN_START
     end = end or _UNKNOWN_END
     if end.latest is not None and start.earliest is not None and end.latest < start.earliest:
-        return _CONTRADICTION
-    return Span(start, end)
+        return [(layout.end, None)]   # a contradiction: the end wholly before the start
+    return checked_span(start, end)   # in order: checked just above
 
 
-def _record_maker(source: str, layout: _Layout) -> Callable[[tuple, int, Span | None], Record]:
-    """A function making the Record of a row whose dates were read."""
-    columns = layout.columns.used()
-    # Index -1 is the "" appended to each row's texts: the text of a part not in use.
-    at = {part: -1 if place is None else place for part, place in (
-        ("label", layout.label), ("id", layout.id), ("group", layout.group),
-        ("color", layout.color), ("start", layout.start), ("end", layout.end))}
-    if layout.when is not None:
-        at["start"], at["end"] = layout.when, -1
-    label_at, id_at, group_at, color_at, start_at, end_at = at.values()
-    other = layout.other
+def _when_outcomes(cells: list[object], place: int,
+                   settings: DateSettings) -> list[DateOutcome]:
+    failures: dict[int, DateOutcome] = {}
 
-    def make_record(row: tuple[object, ...], number: int, span: Span | None) -> Record:
-        # One pass over the row, str cells stripped in place: this runs a million times.
-        texts = [value.strip() if type(value) is str else cell_text(value) for value in row]
-        texts.append("")
-        identifier = texts[id_at] or None
-        return Record(
-            label=texts[label_at] or identifier or f"row {number}", span=span,
-            provenance=Provenance(source, number, columns),
-            start_text=texts[start_at], end_text=texts[end_at], id=identifier,
-            group=texts[group_at] or None, color=texts[color_at] or None,
-            fields=tuple([(name, texts[place]) for place, name in other]),
-        )
+    def outcome(span: Span | DateError | None) -> DateOutcome:
+        if isinstance(span, DateError):
+            return failures.setdefault(id(span), [(place, span)])
+        return span
 
-    return make_record
+    return list(map(outcome, parse_span_column(cells, settings)))
 
 
-def _text_of(place: int | None) -> Callable[[tuple], str]:
-    if place is None:
-        return lambda row: ""
-    return lambda row: cell_text(row[place])
+def _texts(cells: list[object]) -> list[str]:
+    if set(map(type, cells)) <= {str}:
+        return list(map(str.strip, cells))   # a text file's cells: the common case
+    return [value.strip() if type(value) is str else cell_text(value) for value in cells]
 
 
-def _failure(source: str, number: int, layout: _Layout, row: tuple[object, ...],
+class _Texts:
+    """The text of each used column's cells as a user reads them, made once per column."""
+
+    def __init__(self, cells: list[list[object]], layout: _Layout) -> None:
+        self._cells = cells
+        self._made: dict[int, list[str]] = {}
+        self.count = len(cells[0]) if cells else 0
+        self.layout = layout
+
+    def of(self, place: int | None) -> list[str] | None:
+        """The texts of column `place`; None for a part not in use."""
+        if place is None:
+            return None
+        if place not in self._made:
+            self._made[place] = _texts(self._cells[place])
+        return self._made[place]
+
+    def at(self, place: int | None, index: int) -> str:
+        """The text of one cell; "" for a part not in use."""
+        found = self.of(place)
+        return "" if found is None else found[index]
+
+    def or_empty(self, place: int | None) -> Iterable[str]:
+        found = self.of(place)
+        return repeat("", self.count) if found is None else found
+
+    def or_none(self, place: int | None) -> Iterable[str | None]:
+        found = self.of(place)
+        return repeat(None, self.count) if found is None else [text or None for text in found]
+
+
+def _records(source: str, layout: _Layout, texts: _Texts, numbers: list[int],
+             outcomes: list[DateOutcome]) -> list[Record]:
+    """The Records of the rows whose dates were read (dated or undated), from whole columns."""
+    kept = [index for index, outcome in enumerate(outcomes) if type(outcome) is not list]
+    pick = _picker(kept, len(outcomes))
+    ids = pick(texts.or_none(layout.id))
+    rows = pick(numbers)
+    labels = [label or identifier or f"row {row}" for label, identifier, row
+              in zip(pick(texts.or_empty(layout.label)), ids, rows)]
+    if layout.when is None:
+        start_texts, end_texts = texts.or_empty(layout.start), texts.or_empty(layout.end)
+    else:
+        start_texts, end_texts = texts.or_empty(layout.when), texts.or_empty(None)
+    count = len(kept)
+    provenances = many(Provenance, count, source=repeat(source), row=rows,
+                       columns=repeat(layout.columns.used()))
+    return many(Record, count, label=labels, span=pick(outcomes), provenance=provenances,
+                start_text=pick(start_texts), end_text=pick(end_texts), id=ids,
+                group=pick(texts.or_none(layout.group)), color=pick(texts.or_none(layout.color)),
+                fields=pick(_fields(texts, layout.other)))
+
+
+def _picker(kept: list[int], count: int) -> Callable[[Iterable], list]:
+    """Selects the kept rows' values from a column (all of it when every row is kept)."""
+
+    def pick(column: Iterable) -> list:
+        values = column if isinstance(column, list) else list(column)
+        return values if len(kept) == count else [values[index] for index in kept]
+
+    return pick
+
+
+def _fields(texts: _Texts, other: tuple[tuple[int, str], ...]) -> Iterable[tuple]:
+    """Each row's (name, text) pairs of the columns kept as fields; equal rows share them."""
+    if not other:
+        return repeat((), texts.count)
+    names = [name for _, name in other]
+    values = list(zip(*(texts.of(place) for place, _ in other)))
+    shared = {row: tuple(zip(names, row)) for row in set(values)}
+    return list(map(shared.__getitem__, values))
+
+
+def _problems(source: str, layout: _Layout, texts: _Texts, numbers: list[int],
+              outcomes: list[DateOutcome]) -> list[Problem]:
+    """The problems of the rows, in row order: unreadable cells, contradictions, no date."""
+    problems: list[Problem] = []
+    for index, outcome in enumerate(outcomes):
+        if outcome is None:
+            problems.append(_undated(source, numbers[index], layout, _identifier(texts, index)))
+        elif type(outcome) is list:
+            problems.extend(_failure(source, numbers[index], layout, texts, index, place, error)
+                            for place, error in outcome)
+    return problems
+
+
+def _failure(source: str, number: int, layout: _Layout, texts: _Texts, index: int,
              place: int, error: DateError | None) -> Problem:
     """The Problem of a cell that cannot be read (error) or of an end before its start (None)."""
-    identifier = _text_of(layout.id)(row) or None
-    text = cell_text(row[place])
+    identifier = _identifier(texts, index)
+    text = texts.at(place, index)
     if error is not None:
         return Problem(source, number, layout.header[place], identifier, text, error.reason,
                        "error", error.hint)
-    start = _text_of(layout.start)(row)
+    start = texts.at(layout.start, index)
     reason = f"the end ({text!r}) lies wholly before the start ({start!r})"
     return Problem(source, number, layout.header[place], identifier, text, reason,
                    "contradiction")
+
+
+def _identifier(texts: "_Texts", index: int) -> str | None:
+    return texts.at(texts.layout.id, index) or None
 
 
 def _undated(source: str, number: int, layout: _Layout, identifier: str | None) -> Problem:

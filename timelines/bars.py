@@ -40,25 +40,27 @@ def drawn_span(span: Span, domain: tuple[float, float]) -> DrawnSpan:
     so the whole stretch reads as possible, none of it certain."""
     low_edge, high_edge = domain
     start, end = span.start, span.end
-    a = _first(start.earliest, low_edge)
-    d = _first(end.latest, high_edge)
-    b = _first(start.latest, end.earliest, d)
-    c = _first(end.earliest, start.latest, a)
-    if start.is_open:
+    # The first bound known, in the order each drawn bound falls back on (written out, not
+    # a loop: a table's every distinct span passes here).
+    a = low_edge if start.earliest is None else start.earliest
+    d = high_edge if end.latest is None else end.latest
+    b = start.latest if start.latest is not None else (
+        end.earliest if end.earliest is not None else d)
+    c = end.earliest if end.earliest is not None else (
+        start.latest if start.latest is not None else a)
+    open_start, open_end = start.is_open, end.is_open
+    if open_start:
         a = b = low_edge
-    if end.is_open:
+    if open_end:
         c = d = high_edge
     # A span cannot end before it starts: an end window reaching back past the earliest start
     # (562 BC to '6th century BC') is drawn from that start, and a start window no later
     # than the latest end.
     c, b = max(c, a), min(b, d)
-    clip = lambda day: min(max(day, low_edge), high_edge)  # noqa: E731 - one-line clamp
-    has_core = span.certain_core is not None and clip(b) <= clip(c)
-    return DrawnSpan(clip(a), clip(b), clip(c), clip(d), start.is_open, end.is_open, has_core)
-
-
-def _first(*values):
-    return next(v for v in values if v is not None)
+    a, b, c, d = (low_edge if day < low_edge else high_edge if day > high_edge else day
+                  for day in (a, b, c, d))
+    has_core = b <= c and span.certain_core is not None
+    return DrawnSpan(a, b, c, d, open_start, open_end, has_core)
 
 
 def draw_record(placed: PlacedRecord, scale: TimeScale, theme: Theme, box: LaneBox, color: str,

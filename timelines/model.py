@@ -40,6 +40,10 @@ class Qualifier(StrEnum):
     CONVENTION_DEPENDENT = "convention_dependent"  # a documented setting decided the bounds
 
 
+_OPEN_SIDES = frozenset({Qualifier.OPEN_START, Qualifier.OPEN_END})
+_UNKNOWN_SIDES = frozenset({Qualifier.UNKNOWN_START, Qualifier.UNKNOWN_END})
+
+
 @dataclass(frozen=True, slots=True)
 class Endpoint:
     earliest: int | None
@@ -71,11 +75,11 @@ class Endpoint:
 
     @property
     def is_open(self) -> bool:
-        return bool(self.qualifiers & {Qualifier.OPEN_START, Qualifier.OPEN_END})
+        return not self.qualifiers.isdisjoint(_OPEN_SIDES)
 
     @property
     def is_unknown(self) -> bool:
-        return bool(self.qualifiers & {Qualifier.UNKNOWN_START, Qualifier.UNKNOWN_END})
+        return not self.qualifiers.isdisjoint(_UNKNOWN_SIDES)
 
     def has(self, qualifier: Qualifier) -> bool:
         return qualifier in self.qualifiers

@@ -15,6 +15,10 @@ alone, the most compact chart with labels), "none" (every label left out).
 from __future__ import annotations
 
 import math
+from collections.abc import Sequence
+from dataclasses import dataclass
+
+import numpy as np
 
 LABEL_SIDES = ("inside", "right", "left", "none")
 LABEL_MODES = ("beside", "inside", "none")
@@ -25,19 +29,58 @@ LabelBox = tuple[float, float, str]   # box start, box end, label side
 def label_box(label: str, bar: tuple[float, float], width: float, domain: tuple[float, float],
               pad: float, room: tuple[float, float] | None, clearance: float = 0.0,
               mode: str = "beside") -> LabelBox:
-    bar_start, bar_end = bar
-    if not (math.isfinite(bar_start) and math.isfinite(bar_end)) or bar_end < bar_start:
-        raise ValueError(f"drawn extent {bar} of {label!r} must be finite, start <= end")
-    if not (math.isfinite(width) and width >= 0):
-        raise ValueError(f"label width {width} of {label!r} must be finite and >= 0")
+    """The box and label side of one record (see `label_boxes`)."""
+    rooms = np.array([room if room is not None else _NO_ROOM], dtype=float)
+    found = label_boxes([label], np.array([bar], dtype=float), np.array([width], dtype=float),
+                        domain, pad, rooms, clearance, mode)
+    return float(found.start[0]), float(found.end[0]), LABEL_SIDES[found.side[0]]
+
+
+@dataclass(frozen=True, slots=True)
+class LabelBoxes:
+    """Box starts and ends (days) and label sides (indexes into LABEL_SIDES) of many records."""
+
+    start: np.ndarray
+    end: np.ndarray
+    side: np.ndarray
+
+
+_NO_ROOM = (math.nan, math.nan)     # a record with no room for its label inside
+_INSIDE, _RIGHT, _LEFT, _NONE = range(len(LABEL_SIDES))
+
+
+def label_boxes(labels: Sequence[str], bars: np.ndarray, widths: np.ndarray,
+                domain: tuple[float, float], pad: float, rooms: np.ndarray,
+                clearance: float = 0.0, mode: str = "beside") -> LabelBoxes:
+    """Each record's box and label side, from its drawn bar (`bars`, n x 2, in days), its
+    label's width and its room inside (`rooms`, n x 2; NaN where there is none)."""
+    bar_start, bar_end = bars[:, 0], bars[:, 1]
+    _check(labels, bar_start, bar_end, widths)
+    side = np.full(len(labels), _NONE)
+    start, end = bar_start.copy(), bar_end.copy()
     if mode == "none":
-        return bar_start, bar_end, "none"
-    if room is not None and width + 2 * pad <= room[1] - room[0]:
-        return bar_start, bar_end, "inside"
+        return LabelBoxes(start, end, side)
+    inside = (widths + 2 * pad) <= (rooms[:, 1] - rooms[:, 0])     # NaN rooms compare False
+    side[inside] = _INSIDE
     if mode == "inside":
-        return bar_start, bar_end, "none"
-    if bar_end + pad + width <= domain[1]:
-        return bar_start, bar_end + pad + width + clearance, "right"
-    if bar_start - pad - width >= domain[0]:
-        return bar_start - pad - width - clearance, bar_end, "left"
-    return bar_start, bar_end, "none"
+        return LabelBoxes(start, end, side)
+    right = ~inside & ((bar_end + pad) + widths <= domain[1])
+    left = ~inside & ~right & ((bar_start - pad) - widths >= domain[0])
+    side[right], side[left] = _RIGHT, _LEFT
+    end[right] = (((bar_end + pad) + widths) + clearance)[right]
+    start[left] = (((bar_start - pad) - widths) - clearance)[left]
+    return LabelBoxes(start, end, side)
+
+
+def _check(labels: Sequence[str], bar_start: np.ndarray, bar_end: np.ndarray,
+           widths: np.ndarray) -> None:
+    bad_bar = ~(np.isfinite(bar_start) & np.isfinite(bar_end) & (bar_start <= bar_end))
+    if bad_bar.any():
+        at = int(np.flatnonzero(bad_bar)[0])
+        raise ValueError(f"drawn extent {(float(bar_start[at]), float(bar_end[at]))} of "
+                         f"{labels[at]!r} must be finite, start <= end")
+    bad_width = ~(np.isfinite(widths) & (widths >= 0))
+    if bad_width.any():
+        at = int(np.flatnonzero(bad_width)[0])
+        raise ValueError(f"label width {float(widths[at])} of {labels[at]!r} must be finite "
+                         f"and >= 0")

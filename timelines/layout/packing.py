@@ -158,14 +158,18 @@ def most_that_fit(boxes: Sequence[Box], gap: float, lanes: int) -> list[bool]:
 
 
 def _checked_boxes(boxes: Sequence[Box], gap: float) -> tuple[np.ndarray, np.ndarray]:
-    """Starts and `end + gap` as float arrays, after checking every box and the gap."""
+    """Starts and `end + gap` as float arrays, after checking every box and the gap.
+    `boxes` is a sequence of (start, end) pairs or an n x 2 array."""
     check_distance("gap", gap)
-    flat = np.fromiter(chain.from_iterable(boxes), dtype=float, count=2 * len(boxes))
-    starts, ends = flat[0::2], flat[1::2]
+    if isinstance(boxes, np.ndarray):                     # an n x 2 array of boxes
+        starts, ends = boxes[:, 0].astype(float), boxes[:, 1].astype(float)
+    else:
+        flat = np.fromiter(chain.from_iterable(boxes), dtype=float, count=2 * len(boxes))
+        starts, ends = flat[0::2], flat[1::2]
     bad = ~(np.isfinite(starts) & np.isfinite(ends) & (starts <= ends))
     if bad.any():
         position = int(np.flatnonzero(bad)[0])
-        _check_box(position, *boxes[position])
+        _check_box(position, float(starts[position]), float(ends[position]))
     return starts, ends + gap
 
 

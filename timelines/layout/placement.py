@@ -27,15 +27,19 @@ picture and listed in `Placement.notes` (kind "left out") and in its group's `le
 from __future__ import annotations
 
 import math
-from collections.abc import Callable, Iterable, Iterator
+from collections.abc import Callable, Iterable, Iterator, Sequence
 from dataclasses import dataclass, field
+from itertools import chain
 
+import numpy as np
+
+from ..bulk import many
 from ..model import Record
 from .grouping import (
     GROUP_ORDERS, GroupKey, GroupOrder, check_listed_names, collect_groups, merge_small_groups,
     natural_key, order_groups,
 )
-from .labels import LABEL_MODES, label_box
+from .labels import LABEL_MODES, LABEL_SIDES, label_boxes
 from .packing import (
     LEFT_OUT, check_distance, first_fit, max_overlap_depth, most_that_fit, pack_lanes,
 )
@@ -190,6 +194,21 @@ def _ordered_level(records: list[Record], key: GroupKey, order: GroupOrder, min_
 
 
 @dataclass(frozen=True, slots=True)
+class _Boxes:
+    """The boxes of a group's records, as arrays: where each box and bar lie (days) and the
+    side of each label (an index into LABEL_SIDES)."""
+
+    box_start: np.ndarray
+    box_end: np.ndarray
+    bar_start: np.ndarray
+    bar_end: np.ndarray
+    side: np.ndarray
+
+    def box(self, index: int) -> tuple[float, float]:
+        return float(self.box_start[index]), float(self.box_end[index])
+
+
+@dataclass(frozen=True, slots=True)
 class _Measure:
     domain: tuple[float, float]
     drawn_extent: Callable[[Record], tuple[float, float]]
@@ -199,12 +218,22 @@ class _Measure:
     clearance: float
     mode: str
 
-    def __call__(self, record: Record) -> tuple[float, float, float, float, str]:
-        bar = self.drawn_extent(record)
-        box_start, box_end, side = label_box(record.label, bar, self.label_width(record),
-                                             self.domain, self.label_pad, self.room(record),
-                                             self.clearance, self.mode)
-        return box_start, box_end, bar[0], bar[1], side
+    def boxes(self, records: Sequence[Record]) -> _Boxes:
+        bars = _pairs(map(self.drawn_extent, records), len(records))
+        rooms = _pairs((_NO_ROOM if room is None else room for room in map(self.room, records)),
+                       len(records))
+        widths = np.fromiter(map(self.label_width, records), dtype=float, count=len(records))
+        labels = label_boxes([record.label for record in records], bars, widths, self.domain,
+                             self.label_pad, rooms, self.clearance, self.mode)
+        return _Boxes(labels.start, labels.end, bars[:, 0], bars[:, 1], labels.side)
+
+
+_NO_ROOM = (math.nan, math.nan)
+
+
+def _pairs(pairs: Iterable[tuple[float, float]], count: int) -> np.ndarray:
+    """An n x 2 float array of number pairs."""
+    return np.fromiter(chain.from_iterable(pairs), dtype=float, count=2 * count).reshape(count, 2)
 
 
 def place(records: Iterable[Record], *, domain: tuple[float, float],
@@ -255,70 +284,103 @@ def _place_node(node: GroupNode, path: tuple[str, ...], measure: _Measure, gap: 
         return GroupPlacement(node.name, sum(sub.lanes for sub in subgroups), (), subgroups,
                               node.merged)
     records = node.records
-    boxes = [measure(record) for record in records]
+    boxes = measure.boxes(records)
     order = _sorted_indices(records, boxes, rules)
     pins = _pins(records, boxes, order, gap, rules, path, notes)
     lanes = _lanes(boxes, order, pins, gap, rules)
-    placed = tuple(PlacedRecord(record, lane, *box) for record, box, lane
-                   in zip(records, boxes, lanes) if lane != LEFT_OUT)
-    left_out = tuple(record for record, lane in zip(records, lanes) if lane == LEFT_OUT)
+    kept = [index for index, lane in enumerate(lanes) if lane != LEFT_OUT]
+    placed = _placed(records, boxes, lanes, kept)
     where = f" in {_path_text(path)}" if any(path) else ""
-    for record, box, lane in zip(records, boxes, lanes):
+    left_out = []
+    for index, lane in enumerate(lanes):
         if lane == LEFT_OUT:
-            notes.append(LayoutNote(record, path, "left out",
+            left_out.append(records[index])
+            notes.append(LayoutNote(records[index], path, "left out",
                                     f"no room within the {rules.max_lanes} lanes allowed{where}",
-                                    (box[0], box[1])))
-    return GroupPlacement(node.name, max(lanes, default=-1) + 1, placed, (), node.merged,
-                          left_out)
+                                    boxes.box(index)))
+    return GroupPlacement(node.name, max(lanes, default=-1) + 1, tuple(placed), (), node.merged,
+                          tuple(left_out))
+
+
+def _placed(records: tuple[Record, ...], boxes: _Boxes, lanes: list[int],
+            kept: list[int]) -> list[PlacedRecord]:
+    """The PlacedRecords of the kept records, made column by column (a group may be large)."""
+    def column(values) -> list:
+        values = values.tolist() if isinstance(values, np.ndarray) else values
+        return values if len(kept) == len(records) else [values[index] for index in kept]
+
+    sides = [LABEL_SIDES[side] for side in boxes.side.tolist()]
+    return many(PlacedRecord, len(kept), record=column(records), lane=column(lanes),
+                box_start=column(boxes.box_start), box_end=column(boxes.box_end),
+                bar_start=column(boxes.bar_start), bar_end=column(boxes.bar_end),
+                label_side=column(sides))
 
 
 def _path_text(path: tuple[str, ...]) -> str:
     return " / ".join(repr(name) if name else "(none)" for name in path)
 
 
-def _sorted_indices(records: tuple[Record, ...], boxes, rules: LaneRules) -> list[int]:
+def _sorted_indices(records: tuple[Record, ...], boxes: _Boxes, rules: LaneRules) -> list[int]:
     """Indices of `records` in sort order; ties by source row, then input position."""
-    places = [(record.provenance.source, record.provenance.row) for record in records]
-    by_row = sorted(range(len(records)), key=places.__getitem__)
+    by_row = _row_order(records)
     sort = rules.sort
-    if callable(sort):
-        keys = [natural_key(sort(record)) for record in records]
-    elif sort == "label":
-        keys = [natural_key(record.label) for record in records]
-    elif sort == "duration":
-        keys = [box[3] - box[2] for box in boxes]      # of the drawn bar
+    if callable(sort) or sort == "label":
+        cell = sort if callable(sort) else (lambda record: record.label)
+        keys = [natural_key(cell(record)) for record in records]
+        # reverse=True keeps sort stability: equal keys stay in row order.
+        return sorted(by_row.tolist(), key=keys.__getitem__, reverse=rules.descending)
+    if sort == "duration":
+        values = boxes.bar_end - boxes.bar_start      # of the drawn bar
     else:
-        keys = [box[3 if sort == "end" else 2] for box in boxes]
-    # reverse=True keeps sort stability: equal keys stay in row order.
-    return sorted(by_row, key=keys.__getitem__, reverse=rules.descending)
+        values = boxes.bar_end if sort == "end" else boxes.bar_start
+    values = values[by_row]
+    # A stable sort of the negated keys puts equal keys in row order, as a descending sort
+    # should (the same as Python's sorted(..., reverse=True)).
+    order = np.argsort(-values if rules.descending else values, kind="stable")
+    return by_row[order].tolist()
 
 
-def _lanes(boxes, order: list[int], pins: dict[int, int], gap: float,
+def _row_order(records: tuple[Record, ...]) -> np.ndarray:
+    """Indices of `records` by source and row, ties in input order."""
+    rows = np.fromiter((record.provenance.row for record in records), dtype=np.int64,
+                       count=len(records))
+    sources = {record.provenance.source for record in records}
+    if len(sources) <= 1:
+        return np.argsort(rows, kind="stable")
+    places = [(record.provenance.source, record.provenance.row) for record in records]
+    return np.array(sorted(range(len(records)), key=places.__getitem__), dtype=np.int64)
+
+
+def _lanes(boxes: _Boxes, order: list[int], pins: dict[int, int], gap: float,
            rules: LaneRules) -> list[int]:
+    count = len(boxes.box_start)
     if rules.pack == "single":
-        return _single_lanes(len(boxes), order, pins, rules.max_lanes)
-    free = [index for index in order if index not in pins]
+        return _single_lanes(count, order, pins, rules.max_lanes)
+    free = np.array([index for index in order if index not in pins] if pins else order,
+                    dtype=np.int64)
     if rules.pack == "compact":
-        free.sort(key=lambda index: boxes[index][0])   # stable: ties stay in sort order
+        # stable: ties stay in sort order
+        free = free[np.argsort(boxes.box_start[free], kind="stable")]
         if not pins:
             return _compact_lanes(boxes, free, gap, rules.max_lanes)
-    taken = [((boxes[index][0], boxes[index][1]), lane) for index, lane in pins.items()]
-    found = first_fit([(boxes[index][0], boxes[index][1]) for index in free], gap,
-                      taken=taken, max_lanes=rules.max_lanes)
-    lanes = [LEFT_OUT] * len(boxes)
-    for index, lane in [*zip(free, found), *pins.items()]:
+    free_list = free.tolist()
+    taken = [(boxes.box(index), lane) for index, lane in pins.items()]
+    found = first_fit([boxes.box(index) for index in free_list], gap, taken=taken,
+                      max_lanes=rules.max_lanes)
+    lanes = [LEFT_OUT] * count
+    for index, lane in [*zip(free_list, found), *pins.items()]:
         lanes[index] = lane
     return lanes
 
 
-def _compact_lanes(boxes, ordered: list[int], gap: float, max_lanes: int | None) -> list[int]:
-    spans = [(boxes[index][0], boxes[index][1]) for index in ordered]
+def _compact_lanes(boxes: _Boxes, ordered: np.ndarray, gap: float,
+                   max_lanes: int | None) -> list[int]:
+    spans = np.column_stack((boxes.box_start[ordered], boxes.box_end[ordered]))
     if max_lanes is not None and max_overlap_depth(spans, gap) > max_lanes:
-        keep = most_that_fit(spans, gap, max_lanes)
-        ordered = [index for index, kept in zip(ordered, keep) if kept]
-        spans = [span for span, kept in zip(spans, keep) if kept]
-    lanes = [LEFT_OUT] * len(boxes)
-    for index, lane in zip(ordered, pack_lanes(spans, gap)):
+        keep = np.array(most_that_fit(spans, gap, max_lanes), dtype=bool)
+        ordered, spans = ordered[keep], spans[keep]
+    lanes = [LEFT_OUT] * len(boxes.box_start)
+    for index, lane in zip(ordered.tolist(), pack_lanes(spans, gap)):
         lanes[index] = lane
     return lanes
 
@@ -354,14 +416,14 @@ def _pins(records, boxes, order: list[int], gap: float, rules: LaneRules,
         if not text:
             continue
         lane = _lane_number(text)
-        box = (boxes[index][0], boxes[index][1])
+        box = boxes.box(index)
         if lane is None:
             reason = f"lane {text!r} is not a lane number (1, 2, ...)"
         elif rules.max_lanes is not None and lane > rules.max_lanes:
             reason = f"lane {lane} lies beyond the {rules.max_lanes} lanes allowed"
         else:
             holder = next((other for other in holders.get(lane, [])
-                           if rules.pack == "single" or _overlap(box, boxes[other], gap)), None)
+                           if rules.pack == "single" or _overlap(box, boxes.box(other), gap)), None)
             if holder is None:
                 pins[index] = lane - 1
                 holders.setdefault(lane, []).append(index)

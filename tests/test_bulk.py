@@ -2,11 +2,12 @@
 from __future__ import annotations
 
 import dataclasses
+import gc
 from itertools import repeat
 
 import pytest
 
-from timelines.bulk import many
+from timelines.bulk import collection_paused, many
 from timelines.model import Endpoint, Provenance, Record, Span
 
 
@@ -43,3 +44,17 @@ def test_wrong_columns_are_refused():
 
 def test_no_objects():
     assert many(Provenance, 0, source=[], row=[]) == []
+
+
+def test_the_collector_is_paused_meanwhile_and_restored():
+    assert gc.isenabled()
+    with collection_paused():
+        assert not gc.isenabled()
+    assert gc.isenabled()
+    gc.disable()
+    try:
+        with collection_paused():
+            pass
+        assert not gc.isenabled()         # it was off before: it stays off
+    finally:
+        gc.enable()

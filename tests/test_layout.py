@@ -33,10 +33,10 @@ def record(label: str, start: int | None, end: int | None = None, group: str | N
     return Record(label, Span(first, last), provenance, group=group)
 
 
-def extent(r: Record) -> tuple[float, float]:
+def extent(span: Span) -> tuple[float, float]:
     # Bar of a day-precision span: from the start of its first day to the end of its last.
-    start = r.span.start.earliest
-    return (float(start) if start is not None else 0.0), float(r.span.end.latest + 1)
+    start = span.start.earliest
+    return (float(start) if start is not None else 0.0), float(span.end.latest + 1)
 
 
 def lanes_are_disjoint(boxes, lanes, gap) -> bool:
@@ -321,7 +321,7 @@ def test_label_boxes_take_part_in_packing():
     # Two bars that do not overlap, but the first one's label (placed right) reaches the second.
     first, second = record("first", 0, 9), record("second", 12, 19)
     placement = place([first, second], domain=(0, 100), drawn_extent=extent,
-                      label_width=lambda r: 15 if r is first else 1)
+                      label_width=lambda label: 15 if label == "first" else 1)
     placed = {p.record.label: p for p in placement.groups[0].records}
     assert placed["first"].label_side == "right" and placed["first"].box_end == 25
     assert placed["second"].label_side == "inside"
@@ -333,7 +333,7 @@ def test_place_separates_undated_and_packs_each_group():
         record("a", 0, 9, "A"), record("b", 5, 14, "B"), record("lost", None, group="A"),
         record("a2", 5, 14, "A"), record("a3", 20, 29, "A"),
     ]
-    placement = place(records, domain=(0, 100), drawn_extent=extent, label_width=lambda r: 1,
+    placement = place(records, domain=(0, 100), drawn_extent=extent, label_width=lambda label: 1,
                       group_key=lambda r: r.group)
     assert isinstance(placement, Placement)
     assert [r.label for r in placement.undated] == ["lost"]
@@ -349,14 +349,14 @@ def test_place_separates_undated_and_packs_each_group():
 
 def test_place_without_group_key_makes_one_unnamed_group():
     records = [record("a", 0, 9, "A"), record("b", 5, 14, "B")]
-    placement = place(records, domain=(0, 100), drawn_extent=extent, label_width=lambda r: 1)
+    placement = place(records, domain=(0, 100), drawn_extent=extent, label_width=lambda label: 1)
     assert [g.name for g in placement.groups] == [NO_GROUP]
     assert placement.groups[0].lanes == 2
 
 
 def test_place_with_only_undated_records():
     placement = place([record("x", None)], domain=(0, 1), drawn_extent=extent,
-                      label_width=lambda r: 1)
+                      label_width=lambda label: 1)
     assert placement.groups == () and len(placement.undated) == 1
 
 
@@ -369,7 +369,7 @@ def test_place_properties(rows, gap, pad):
 
     def run() -> Placement:
         return place(records, domain=(0, 100), drawn_extent=extent,
-                     label_width=lambda r: widths[r.label], group_key=lambda r: r.group,
+                     label_width=lambda label: widths[label], group_key=lambda r: r.group,
                      gap=gap, label_pad=pad)
 
     placement = run()

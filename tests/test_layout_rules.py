@@ -26,11 +26,11 @@ def record(label: str, start: int, end: int, group: str | None = None, row: int 
                   Provenance("test.csv", row), group=group, fields=tuple(fields.items()))
 
 
-def extent(r: Record) -> tuple[float, float]:
-    return float(r.span.start.earliest), float(r.span.end.latest + 1)
+def extent(span: Span) -> tuple[float, float]:
+    return float(span.start.earliest), float(span.end.latest + 1)
 
 
-def arrange(records, rules=LaneRules(), gap=0.0, width=lambda r: 0.0, group=True) -> Placement:
+def arrange(records, rules=LaneRules(), gap=0.0, width=lambda label: 0.0, group=True) -> Placement:
     return place(records, domain=(0, 1000), drawn_extent=extent, label_width=width,
                  group_key=(lambda r: r.group) if group else None, gap=gap, rules=rules)
 
@@ -219,13 +219,14 @@ random_rules = st.builds(
 
 
 def records_from(rows) -> list[Record]:
-    return [record(f"r{i}", start, start + length, group, row=i + 2, lane=pin,
-                   kind="even" if start % 2 else "odd", width=str(width))
+    # Each label carries its own width, as "r<i>w<width>": place() measures label texts.
+    return [record(f"r{i}w{width}", start, start + length, group, row=i + 2, lane=pin,
+                   kind="even" if start % 2 else "odd")
             for i, (start, length, width, group, pin) in enumerate(rows)]
 
 
-def label_width(r: Record) -> float:
-    return float(dict(r.fields)["width"])
+def label_width(label: str) -> float:
+    return float(label.split("w")[1])
 
 
 @settings(max_examples=200)
@@ -276,5 +277,5 @@ def test_a_large_group_places_quickly():
     records = [record(f"r{i}", s, s + rng.randint(0, 400), rng.choice("ABCD"), row=i + 2)
                for i, s in enumerate(rng.randint(0, 100_000) for _ in range(20_000))]
     placement = place(records, domain=(0, 101_000), drawn_extent=extent,
-                      label_width=lambda r: 30.0, group_key=lambda r: r.group)
+                      label_width=lambda label: 30.0, group_key=lambda r: r.group)
     assert sum(len(g.records) for g in placement.groups) == 20_000

@@ -56,9 +56,12 @@ def drawn_span(span: Span, domain: tuple[float, float]) -> DrawnSpan:
     # A span cannot end before it starts: an end window reaching back past the earliest start
     # (562 BC to '6th century BC') is drawn from that start, and a start window no later
     # than the latest end.
-    c, b = max(c, a), min(b, d)
-    a, b, c, d = (low_edge if day < low_edge else high_edge if day > high_edge else day
-                  for day in (a, b, c, d))
+    c, b = (c if c > a else a), (b if b < d else d)
+    # clipped to the axis
+    a = low_edge if a < low_edge else high_edge if a > high_edge else a
+    b = low_edge if b < low_edge else high_edge if b > high_edge else b
+    c = low_edge if c < low_edge else high_edge if c > high_edge else c
+    d = low_edge if d < low_edge else high_edge if d > high_edge else d
     has_core = b <= c and span.certain_core is not None
     return DrawnSpan(a, b, c, d, open_start, open_end, has_core)
 

@@ -291,9 +291,11 @@ def chart_scale(dated: list[Record], theme: Theme,
                 window: TimeWindow | None = None) -> TimeScale:
     """The time axis over every bound of the dated records (or the --from/--to window),
     right of the group names."""
-    bounds = [day for r in dated for day in (r.span.start.earliest, r.span.start.latest,
-                                             r.span.end.earliest, r.span.end.latest)
-              if day is not None]
+    spans = [r.span for r in dated]
+    # Records read from one table share Span objects: each distinct one is looked at once.
+    bounds = [day for span in dict(zip(map(id, spans), spans)).values()
+              for day in (span.start.earliest, span.start.latest, span.end.earliest,
+                          span.end.latest) if day is not None]
     low, high = nice_domain(min(bounds), max(bounds), era=theme.era)
     if window is not None:
         low, high = window.domain(low, high)
@@ -344,12 +346,12 @@ def lay_out(records: list[Record], scale: TimeScale, theme: Theme,
     measured = _drawn_measure(scale, theme, days_per_px)
     try:
         return place(records, domain=(scale.start, scale.end),
-                     drawn_extent=lambda r: measured(r.span)[0],
-                     label_width=lambda r: (text_width(r.label, theme.font_size)
-                                            * RENDERED_WIDTH_ALLOWANCE * days_per_px),
+                     drawn_extent=lambda span: measured(span)[0],
+                     label_width=lambda label: (text_width(label, theme.font_size)
+                                                * RENDERED_WIDTH_ALLOWANCE * days_per_px),
                      group_key=lambda r: r.group, gap=gap.days(days_per_px),
                      label_pad=theme.label_pad * days_per_px,
-                     inside_room=lambda r: measured(r.span)[1],
+                     inside_room=lambda span: measured(span)[1],
                      label_clearance=LABEL_CLEARANCE * theme.label_pad * days_per_px,
                      labels=labels, rules=rules, tree=tree)
     except UnknownGroup as error:
@@ -363,13 +365,11 @@ def _drawn_measure(scale: TimeScale, theme: Theme, days_per_px: float):
     mark_room = (text_width("~?", theme.small_font_size, "bold") + 3) * days_per_px
     marker = theme.bar_height * 0.6 * days_per_px
     domain = (scale.start, scale.end)
-    known: dict[int, tuple] = {}
+    last: list = [None, None]   # place() asks for the extent and the room of a span in turn
 
     def measure(span):
-        # Records read from one table share Span objects for equal cells: measure each once.
-        found = known.get(id(span))
-        if found is not None and found[2] is span:
-            return found
+        if last[0] is span:
+            return last[1]
         drawn = drawn_span(span, domain)
         before = mark_room if _has_glyph(span.start) and not span.is_point else 0.0
         after = mark_room if _has_glyph(span.end) else 0.0
@@ -378,8 +378,8 @@ def _drawn_measure(scale: TimeScale, theme: Theme, days_per_px: float):
         else:
             extent = (drawn.start_low - before, drawn.end_high + after)
         core = (drawn.start_high, drawn.end_low) if drawn.has_core else None
-        known[id(span)] = found = (extent, core, span)
-        return found
+        last[:] = span, (extent, core)
+        return last[1]
 
     return measure
 

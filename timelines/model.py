@@ -103,7 +103,7 @@ class Span:
 
     @property
     def is_point(self) -> bool:
-        return self.start == self.end
+        return self.start is self.end or self.start == self.end
 
     @property
     def possible_extent(self) -> tuple[int | None, int | None]:

@@ -29,12 +29,12 @@ from __future__ import annotations
 import math
 from collections.abc import Callable, Iterable, Iterator, Sequence
 from dataclasses import dataclass, field
-from itertools import chain
+from operator import attrgetter
 
 import numpy as np
 
-from ..bulk import many
-from ..model import Record
+from ..bulk import collection_paused, many
+from ..model import Record, Span
 from .grouping import (
     GROUP_ORDERS, GroupKey, GroupOrder, check_listed_names, collect_groups, merge_small_groups,
     natural_key, order_groups,
@@ -210,47 +210,75 @@ class _Boxes:
 
 @dataclass(frozen=True, slots=True)
 class _Measure:
+    """The caller's measures, each taken once per distinct span object or label text."""
+
     domain: tuple[float, float]
-    drawn_extent: Callable[[Record], tuple[float, float]]
-    label_width: Callable[[Record], float]
+    drawn_extent: Callable[[Span], tuple[float, float]]
+    label_width: Callable[[str], float]
     label_pad: float
-    room: Callable[[Record], tuple[float, float] | None]
+    room: Callable[[Span], tuple[float, float] | None]
     clearance: float
     mode: str
+    # Records of one table share Span objects for equal cells: id names them (the records,
+    # alive for the whole placement, keep them alive). Each holds (bar start, bar end, room
+    # start, room end); NaN room: none.
+    spans: dict[int, tuple[float, float, float, float]] = field(default_factory=dict)
+    widths: dict[str, float] = field(default_factory=dict)
 
     def boxes(self, records: Sequence[Record]) -> _Boxes:
-        bars = _pairs(map(self.drawn_extent, records), len(records))
-        rooms = _pairs((_NO_ROOM if room is None else room for room in map(self.room, records)),
-                       len(records))
-        widths = np.fromiter(map(self.label_width, records), dtype=float, count=len(records))
-        labels = label_boxes([record.label for record in records], bars, widths, self.domain,
-                             self.label_pad, rooms, self.clearance, self.mode)
-        return _Boxes(labels.start, labels.end, bars[:, 0], bars[:, 1], labels.side)
+        spans = list(map(_SPAN, records))
+        labels = list(map(_LABEL, records))
+        keys = list(map(id, spans))
+        by_key = dict(zip(keys, spans))
+        measured = np.array([self._span(key, span) for key, span in by_key.items()],
+                            dtype=float).reshape(-1, 4)
+        widths = np.array([self._width(label) for label in dict.fromkeys(labels)], dtype=float)
+        # each record's row in the tables of its group's distinct spans and labels
+        span_rows = _codes(keys, by_key)
+        label_rows = _codes(labels, dict.fromkeys(labels))
+        bars, rooms = measured[span_rows, :2], measured[span_rows, 2:]
+        found = label_boxes(labels, bars, widths[label_rows], self.domain, self.label_pad,
+                            rooms, self.clearance, self.mode)
+        return _Boxes(found.start, found.end, bars[:, 0], bars[:, 1], found.side)
+
+    def _span(self, key: int, span: Span) -> tuple[float, float, float, float]:
+        if key not in self.spans:
+            room = self.room(span)
+            self.spans[key] = (*self.drawn_extent(span), *(_NO_ROOM if room is None else room))
+        return self.spans[key]
+
+    def _width(self, label: str) -> float:
+        if label not in self.widths:
+            self.widths[label] = self.label_width(label)
+        return self.widths[label]
+
+
+def _codes(values: list, distinct: dict) -> np.ndarray:
+    """The place of each value in `distinct` (in its order)."""
+    place = dict(zip(distinct, range(len(distinct))))
+    return np.fromiter(map(place.__getitem__, values), dtype=np.intp, count=len(values))
 
 
 _NO_ROOM = (math.nan, math.nan)
-
-
-def _pairs(pairs: Iterable[tuple[float, float]], count: int) -> np.ndarray:
-    """An n x 2 float array of number pairs."""
-    return np.fromiter(chain.from_iterable(pairs), dtype=float, count=2 * count).reshape(count, 2)
+_SPAN, _LABEL, _PROVENANCE = attrgetter("span"), attrgetter("label"), attrgetter("provenance")
 
 
 def place(records: Iterable[Record], *, domain: tuple[float, float],
-          drawn_extent: Callable[[Record], tuple[float, float]],
-          label_width: Callable[[Record], float], group_key: GroupKey | None = None,
+          drawn_extent: Callable[[Span], tuple[float, float]],
+          label_width: Callable[[str], float], group_key: GroupKey | None = None,
           gap: float = 0.0, label_pad: float = 0.0,
-          inside_room: Callable[[Record], tuple[float, float] | None] | None = None,
+          inside_room: Callable[[Span], tuple[float, float] | None] | None = None,
           label_clearance: float = 0.0, labels: str = "beside",
           rules: LaneRules = LaneRules(), tree: tuple[GroupNode, ...] | None = None
           ) -> Placement:
     """Group dated records, place each label, pack each group's boxes into lanes.
 
-    `drawn_extent` gives a record's bar in days (the caller decides how open or unknown ends
-    are drawn); `label_width` its label's width in days; `label_pad` the space in days between
-    a label and the bar's edge (on both sides for a label inside); `inside_room` the part of
-    the bar a label may sit on (for example only the solid core, where text stays legible;
-    None from it: no room inside), the whole bar when not given; `label_clearance` the room
+    `drawn_extent` gives a span's bar in days (the caller decides how open or unknown ends
+    are drawn); `label_width` a label's width in days; each is asked once per distinct span
+    object or label text. `label_pad` is the space in days between a label and the bar's edge
+    (on both sides for a label inside); `inside_room` the part of a span's bar a label may sit
+    on (for example only the solid core, where text stays legible; None from it: no room
+    inside), the whole bar when not given; `label_clearance` the room
     kept free on the far side of a label beside its bar; `labels` the label mode ("beside",
     "inside" or "none", see `labels`); `gap` the least distance in days between boxes in one
     lane; `tree` the dated records' groups as `group_tree(records, group_key, rules)` made
@@ -271,7 +299,8 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
     measure = _Measure((low, high), drawn_extent, label_width, label_pad,
                        inside_room or drawn_extent, label_clearance, labels)
     notes: list[LayoutNote] = []
-    groups = tuple(_place_node(node, (), measure, gap, rules, notes) for node in tree)
+    with collection_paused():
+        groups = tuple(_place_node(node, (), measure, gap, rules, notes) for node in tree)
     return Placement(groups, undated, (low, high), tuple(notes), gap)
 
 
@@ -342,10 +371,9 @@ def _sorted_indices(records: tuple[Record, ...], boxes: _Boxes, rules: LaneRules
 
 def _row_order(records: tuple[Record, ...]) -> np.ndarray:
     """Indices of `records` by source and row, ties in input order."""
-    rows = np.fromiter((record.provenance.row for record in records), dtype=np.int64,
-                       count=len(records))
-    sources = {record.provenance.source for record in records}
-    if len(sources) <= 1:
+    provenances = list(map(_PROVENANCE, records))
+    rows = np.fromiter(map(attrgetter("row"), provenances), dtype=np.int64, count=len(records))
+    if len(set(map(attrgetter("source"), provenances))) <= 1:
         return np.argsort(rows, kind="stable")
     places = [(record.provenance.source, record.provenance.row) for record in records]
     return np.array(sorted(range(len(records)), key=places.__getitem__), dtype=np.int64)

@@ -7,7 +7,7 @@ from dataclasses import dataclass
 from itertools import repeat
 from pathlib import Path
 
-from ..bulk import many
+from ..bulk import collection_paused, many
 from ..dates import DateError, parse_column, parse_span_column
 from ..dates.built import checked_span
 from ..dates.column import OPEN_CELL
@@ -117,6 +117,11 @@ def load_records(table: Table, columns: ColumnMap,
     The table is read column by column: each distinct cell value of a date column is parsed
     once (real columns repeat a lot), and the Records are made from whole columns at once."""
     layout = _Layout.of(table.header, columns)
+    with collection_paused():
+        return _load(table, layout, settings)
+
+
+def _load(table: Table, layout: _Layout, settings: DateSettings) -> LoadResult:
     offsets = _filled_rows(table.rows, len(table.header))
     rows = table.rows if len(offsets) == len(table.rows) else [table.rows[i] for i in offsets]
     cells = [list(column) for column in zip(*rows)] or [[] for _ in table.header]

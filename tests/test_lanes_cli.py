@@ -9,8 +9,11 @@ import sys
 import xml.etree.ElementTree as ET
 from pathlib import Path
 
+import numpy as np
 import pytest
+from hypothesis import given, settings as hypothesis_settings, strategies as st
 
+from timelines import lanes as lanes_report
 from timelines.cli import main
 
 FIXTURES = Path(__file__).parent / "fixtures"
@@ -224,3 +227,13 @@ def test_the_register_generator_is_deterministic(tmp_path):
         subprocess.run([sys.executable, str(REGISTER_SCRIPT), "--rows", "50", "-o", str(path)],
                        check=True)
     assert first.read_bytes() == second.read_bytes()
+
+
+# The CSV writes box bounds with a fast formatter; it must print what the number would.
+@hypothesis_settings(max_examples=2000)
+@given(st.one_of(st.floats(min_value=-4e11, max_value=4e11, allow_nan=False),
+                 st.integers(min_value=-10**9, max_value=10**9).map(lambda n: n / 1000),
+                 st.integers(min_value=-10**6, max_value=10**6).map(lambda n: n + 0.0005)))
+def test_day_text_prints_the_rounded_day_number(day):
+    days = np.array([day, -day])
+    assert lanes_report.day_texts(days) == list(map(str, lanes_report.day_numbers(days)))

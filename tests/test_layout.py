@@ -15,7 +15,7 @@ from hypothesis import strategies as st
 
 from timelines.layout import (
     LEFT_OUT, NO_GROUP, GroupPlacement, Placement, PlacedRecord, densest_moment, first_fit,
-    group_records, max_overlap_depth, most_that_fit, pack_lanes, place,
+    each_span, group_records, max_overlap_depth, most_that_fit, pack_lanes, place,
 )
 from timelines.model import Endpoint, Provenance, Qualifier, Record, Span
 
@@ -286,7 +286,7 @@ DOMAIN = (0.0, 100.0)
 
 def place_one(start: float, end: float, width: float, pad: float = 0.0) -> PlacedRecord:
     r = record("r", 0, 1)
-    placement = place([r], domain=DOMAIN, drawn_extent=lambda _: (start, end),
+    placement = place([r], domain=DOMAIN, measure_spans=each_span(lambda _: (start, end)),
                       label_width=lambda _: width, label_pad=pad)
     return placement.groups[0].records[0]
 
@@ -320,7 +320,7 @@ def test_label_side(bar, width, pad, side, box):
 def test_label_boxes_take_part_in_packing():
     # Two bars that do not overlap, but the first one's label (placed right) reaches the second.
     first, second = record("first", 0, 9), record("second", 12, 19)
-    placement = place([first, second], domain=(0, 100), drawn_extent=extent,
+    placement = place([first, second], domain=(0, 100), measure_spans=each_span(extent),
                       label_width=lambda label: 15 if label == "first" else 1)
     placed = {p.record.label: p for p in placement.groups[0].records}
     assert placed["first"].label_side == "right" and placed["first"].box_end == 25
@@ -333,7 +333,7 @@ def test_place_separates_undated_and_packs_each_group():
         record("a", 0, 9, "A"), record("b", 5, 14, "B"), record("lost", None, group="A"),
         record("a2", 5, 14, "A"), record("a3", 20, 29, "A"),
     ]
-    placement = place(records, domain=(0, 100), drawn_extent=extent, label_width=lambda label: 1,
+    placement = place(records, domain=(0, 100), measure_spans=each_span(extent), label_width=lambda label: 1,
                       group_key=lambda r: r.group)
     assert isinstance(placement, Placement)
     assert [r.label for r in placement.undated] == ["lost"]
@@ -349,13 +349,13 @@ def test_place_separates_undated_and_packs_each_group():
 
 def test_place_without_group_key_makes_one_unnamed_group():
     records = [record("a", 0, 9, "A"), record("b", 5, 14, "B")]
-    placement = place(records, domain=(0, 100), drawn_extent=extent, label_width=lambda label: 1)
+    placement = place(records, domain=(0, 100), measure_spans=each_span(extent), label_width=lambda label: 1)
     assert [g.name for g in placement.groups] == [NO_GROUP]
     assert placement.groups[0].lanes == 2
 
 
 def test_place_with_only_undated_records():
-    placement = place([record("x", None)], domain=(0, 1), drawn_extent=extent,
+    placement = place([record("x", None)], domain=(0, 1), measure_spans=each_span(extent),
                       label_width=lambda label: 1)
     assert placement.groups == () and len(placement.undated) == 1
 
@@ -368,7 +368,7 @@ def test_place_properties(rows, gap, pad):
     widths = {f"r{i}": float(w) for i, (_, _, w, _) in enumerate(rows)}
 
     def run() -> Placement:
-        return place(records, domain=(0, 100), drawn_extent=extent,
+        return place(records, domain=(0, 100), measure_spans=each_span(extent),
                      label_width=lambda label: widths[label], group_key=lambda r: r.group,
                      gap=gap, label_pad=pad)
 
@@ -393,12 +393,13 @@ def test_place_properties(rows, gap, pad):
 @pytest.mark.parametrize("kwargs", [
     {"domain": (10, 10)},
     {"label_pad": -1.0},
-    {"drawn_extent": lambda r: (5.0, 1.0)},
-    {"label_width": lambda r: -1.0},
+    {"measure_spans": each_span(lambda span: (5.0, 1.0))},
+    {"label_width": lambda label: -1.0},
     {"gap": -0.5},
 ])
 def test_place_rejects_invalid_arguments(kwargs):
-    arguments = {"domain": (0, 100), "drawn_extent": extent, "label_width": lambda r: 1.0}
+    arguments = {"domain": (0, 100), "measure_spans": each_span(extent),
+                 "label_width": lambda label: 1.0}
     arguments.update(kwargs)
     with pytest.raises(ValueError):
         place([record("a", 0, 9)], **arguments)

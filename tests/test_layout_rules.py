@@ -15,7 +15,8 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from timelines.layout import (
-    LaneRules, Placement, UnknownGroup, group_tree, max_overlap_depth, natural_key, place,
+    LaneRules, Placement, UnknownGroup, each_span, group_tree, max_overlap_depth, natural_key,
+    place,
 )
 from timelines.model import Endpoint, Provenance, Record, Span
 
@@ -31,7 +32,7 @@ def extent(span: Span) -> tuple[float, float]:
 
 
 def arrange(records, rules=LaneRules(), gap=0.0, width=lambda label: 0.0, group=True) -> Placement:
-    return place(records, domain=(0, 1000), drawn_extent=extent, label_width=width,
+    return place(records, domain=(0, 1000), measure_spans=each_span(extent), label_width=width,
                  group_key=(lambda r: r.group) if group else None, gap=gap, rules=rules)
 
 
@@ -276,6 +277,6 @@ def test_a_large_group_places_quickly():
     rng = random.Random(3)
     records = [record(f"r{i}", s, s + rng.randint(0, 400), rng.choice("ABCD"), row=i + 2)
                for i, s in enumerate(rng.randint(0, 100_000) for _ in range(20_000))]
-    placement = place(records, domain=(0, 101_000), drawn_extent=extent,
+    placement = place(records, domain=(0, 101_000), measure_spans=each_span(extent),
                       label_width=lambda label: 30.0, group_key=lambda r: r.group)
     assert sum(len(g.records) for g in placement.groups) == 20_000

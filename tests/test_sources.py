@@ -314,7 +314,7 @@ def test_empty_start_or_end_is_an_unknown_end():
 
 def test_two_dots_in_a_start_or_end_cell_leave_that_side_open():
     # ISO 8601-2:2019 (EDTF level 1): ".." is an open start or end of an interval; from memory.
-    table = Table("t.csv", ("name", "from", "until"),
+    table = Table.from_rows("t.csv", ("name", "from", "until"),
                   (("Ashgrove", "1679", " .. "), ("Lantern Lane", "..", "1661")))
     running, before = (r.span for r in load_records(table, detect_columns(table.header)).records)
     assert running.end.qualifiers == {Qualifier.OPEN_END} and running.end.is_open
@@ -329,7 +329,7 @@ def test_label_falls_back_to_the_id_then_the_row_number():
 
 
 def test_every_cell_error_of_every_row_is_collected():
-    table = Table("bad.csv", ("born", "died"), (("x1", "x2"), ("1650", "x3"), ("x1", "1700")))
+    table = Table.from_rows("bad.csv", ("born", "died"), (("x1", "x2"), ("1650", "x3"), ("x1", "1700")))
     result = load_records(table, ColumnMap(start="born", end="died"))
     assert [(p.row, p.column, p.text) for p in result.problems] == [
         (2, "born", "x1"), (2, "died", "x2"), (3, "died", "x3"), (4, "born", "x1")]
@@ -337,7 +337,7 @@ def test_every_cell_error_of_every_row_is_collected():
 
 
 def test_start_only_map_leaves_the_ends_unknown():
-    table = Table("t.csv", ("name", "born"), (("Odile", "1650"), ("Tamsin", ""), ("", "")))
+    table = Table.from_rows("t.csv", ("name", "born"), (("Odile", "1650"), ("Tamsin", ""), ("", "")))
     result = load_records(table, ColumnMap(start="born", label="name"))
     assert result.rows_read == 2                      # a wholly blank row is no record
     dated, undated = result.records
@@ -347,7 +347,7 @@ def test_start_only_map_leaves_the_ends_unknown():
 
 
 def test_group_color_and_other_fields():
-    table = Table("t.csv", ("name", "born", "died", "guild", "hue", "note"),
+    table = Table.from_rows("t.csv", ("name", "born", "died", "guild", "hue", "note"),
                   (("Odile", "1650", "1702", "Founders", "blue", "see file 3"),
                    ("Tamsin", "1655", "1710", "", "", "")))
     columns = detect_columns(table.header, ColumnMap(group="guild", color="hue"))
@@ -358,7 +358,7 @@ def test_group_color_and_other_fields():
 
 
 def test_load_records_checks_the_names_it_is_given():
-    table = Table("t.csv", ("name", "born"), (("Odile", "1650"),))
+    table = Table.from_rows("t.csv", ("name", "born"), (("Odile", "1650"),))
     with pytest.raises(UsageError, match="did you mean|no column 'brn'"):
         load_records(table, ColumnMap(start="brn"))
     with pytest.raises(UsageError, match="no date column"):
@@ -446,7 +446,7 @@ def test_each_distinct_cell_is_parsed_once(monkeypatch):
 
     monkeypatch.setattr(column_reader, "endpoint_from_cell", counting)
     rows = tuple((str(1650 + n % 3), "1700" if n % 2 else "bad") for n in range(300))
-    result = load_records(Table("t.csv", ("born", "died"), rows),
+    result = load_records(Table.from_rows("t.csv", ("born", "died"), rows),
                           ColumnMap(start="born", end="died"))
     assert sorted(calls) == ["1650", "1651", "1652", "1700", "bad"]
     assert len(result.records) == 150 and len(result.problems) == 150
@@ -467,7 +467,7 @@ CELLS = st.sampled_from(["", " ", "1650", "c. 1650", "1650s", "44 BC", "1985-13-
 @hypothesis_settings(max_examples=200, deadline=None)
 @given(st.lists(st.tuples(st.sampled_from(["", "P1", "P2"]), CELLS, CELLS), max_size=12))
 def test_every_row_is_drawn_listed_or_reported(rows):
-    table = Table("random.csv", ("id", "start", "end"), tuple(rows))
+    table = Table.from_rows("random.csv", ("id", "start", "end"), tuple(rows))
     result = load_records(table, ColumnMap(start="start", end="end", id="id"))
     assert_no_row_lost(result)
     assert result.rows_read == sum(1 for row in rows if row != ("", "", ""))

@@ -1,13 +1,19 @@
 """One record on its lane: the bar (or the point), its signs and its label, as a Group.
 
-`drawn_span` says where each part of a span is drawn on the axis; `draw_record` draws it with
-the encoders of `encodings` and notes in `used` which marks occurred (for the legend). A span
+`drawn_spans` says where each part of each span is drawn on the axis (`drawn_span` for one);
+`draw_record` draws a record with the encoders of `encodings` and notes in `used` which marks
+occurred (for the legend). A span
 that a --from/--to window cuts short gets a zigzag at the edge (`cut_sides`), and the signs
 whose dates lie beyond the window are left out.
 """
 from __future__ import annotations
 
+import math
+from collections.abc import Sequence
 from dataclasses import dataclass
+from operator import attrgetter
+
+import numpy as np
 
 from . import encodings as marks
 from .calendar import iso_from_fixed
@@ -34,43 +40,78 @@ class DrawnSpan:
     has_core: bool      # the model's certain core is not empty
 
 
+@dataclass(frozen=True, slots=True)
+class DrawnSpans:
+    """The drawn bounds of many spans, as arrays (fields as in DrawnSpan)."""
+
+    start_low: np.ndarray
+    start_high: np.ndarray
+    end_low: np.ndarray
+    end_high: np.ndarray
+    open_start: np.ndarray
+    open_end: np.ndarray
+    has_core: np.ndarray
+
+    def each(self) -> list[DrawnSpan]:
+        return list(map(DrawnSpan, *(getattr(self, name).tolist() for name in _DRAWN_FIELDS)))
+
+
+_DRAWN_FIELDS = ("start_low", "start_high", "end_low", "end_high", "open_start", "open_end",
+                 "has_core")
+
+
 def drawn_span(span: Span, domain: tuple[float, float]) -> DrawnSpan:
-    """Where each part of a span is drawn. Unbounded sides run to the axis edge; an unknown
-    start reaches to the end's earliest bound (and an unknown end back to the start's latest),
-    so the whole stretch reads as possible, none of it certain."""
+    """Where each part of one span is drawn (see drawn_spans)."""
+    return drawn_spans([span], domain).each()[0]
+
+
+def drawn_spans(spans: Sequence[Span], domain: tuple[float, float]) -> DrawnSpans:
+    """Where each part of each span is drawn. Unbounded sides run to the axis edge; an
+    unknown start reaches to the end's earliest bound (and an unknown end back to the start's
+    latest), so the whole stretch reads as possible, none of it certain."""
     low_edge, high_edge = domain
-    start, end = span.start, span.end
-    # The first bound known, in the order each drawn bound falls back on (written out, not
-    # a loop: a table's every distinct span passes here).
-    a = low_edge if start.earliest is None else start.earliest
-    d = high_edge if end.latest is None else end.latest
-    b = start.latest if start.latest is not None else (
-        end.earliest if end.earliest is not None else d)
-    c = end.earliest if end.earliest is not None else (
-        start.latest if start.latest is not None else a)
-    open_start, open_end = start.is_open, end.is_open
-    if open_start:
-        a = b = low_edge
-    if open_end:
-        c = d = high_edge
+    starts, ends = list(map(_START, spans)), list(map(_END, spans))
+    start_earliest, start_latest = _bounds(starts, _EARLIEST), _bounds(starts, _LATEST)
+    end_earliest, end_latest = _bounds(ends, _EARLIEST), _bounds(ends, _LATEST)
+    # Each drawn bound is the first one known of those it falls back on.
+    a = _first_known(start_earliest, low_edge)
+    d = _first_known(end_latest, high_edge)
+    b = _first_known(start_latest, _first_known(end_earliest, d))
+    c = _first_known(end_earliest, _first_known(start_latest, a))
+    open_start = np.fromiter(map(_IS_OPEN, starts), dtype=bool, count=len(spans))
+    open_end = np.fromiter(map(_IS_OPEN, ends), dtype=bool, count=len(spans))
+    a, b = np.where(open_start, low_edge, a), np.where(open_start, low_edge, b)
+    c, d = np.where(open_end, high_edge, c), np.where(open_end, high_edge, d)
     # A span cannot end before it starts: an end window reaching back past the earliest start
     # (562 BC to '6th century BC') is drawn from that start, and a start window no later
     # than the latest end.
-    c, b = (c if c > a else a), (b if b < d else d)
-    # clipped to the axis
-    a = low_edge if a < low_edge else high_edge if a > high_edge else a
-    b = low_edge if b < low_edge else high_edge if b > high_edge else b
-    c = low_edge if c < low_edge else high_edge if c > high_edge else c
-    d = low_edge if d < low_edge else high_edge if d > high_edge else d
-    has_core = b <= c and span.certain_core is not None
-    return DrawnSpan(a, b, c, d, open_start, open_end, has_core)
+    c, b = np.maximum(c, a), np.minimum(b, d)
+    a, b, c, d = (np.clip(day, low_edge, high_edge) for day in (a, b, c, d))
+    certain = np.fromiter((span.certain_core is not None for span in spans), dtype=bool,
+                          count=len(spans))
+    return DrawnSpans(a, b, c, d, open_start, open_end, (b <= c) & certain)
+
+
+_START, _END = attrgetter("start"), attrgetter("end")
+_EARLIEST, _LATEST, _IS_OPEN = attrgetter("earliest"), attrgetter("latest"), attrgetter("is_open")
+
+
+def _bounds(endpoints: list, bound: attrgetter) -> np.ndarray:
+    """One bound of each endpoint in fixed days; NaN where it has none."""
+    return np.array([math.nan if day is None else day for day in map(bound, endpoints)],
+                    dtype=float)
+
+
+def _first_known(days: np.ndarray, otherwise) -> np.ndarray:
+    return np.where(np.isnan(days), otherwise, days)
 
 
 def draw_record(placed: PlacedRecord, scale: TimeScale, theme: Theme, box: LaneBox, color: str,
-                used: set[str]) -> Group:
+                used: set[str], geometry: DrawnSpan | None = None) -> Group:
+    """The record's marks; `geometry` is its drawn_span when the caller has it already."""
     record = placed.record
     style = MarkStyle(color, theme.fringe_far_opacity, theme.text_color, theme.small_font_size)
-    geometry = drawn_span(record.span, (scale.start, scale.end))
+    geometry = geometry or drawn_span(record.span, (scale.start, scale.end))
     if record.span.is_point and not geometry.open_start and not geometry.open_end:
         parts = _point_marks(record.span, geometry, scale, box, style, used)
     else:

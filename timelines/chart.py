@@ -13,9 +13,11 @@ from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import Callable, Iterable
 
+import numpy as np
+
 from .bands import on_axis
 from .check import Report, check
-from .bars import drawn_span, qualifier_kind
+from .bars import drawn_spans, qualifier_kind
 from .compose import SUBGROUP_INDENT, ChartText, compose, title_height
 from .facets import Panel, compose_facets, panel_width
 from .config import Distance, parse_distance
@@ -343,15 +345,13 @@ def lay_out(records: list[Record], scale: TimeScale, theme: Theme,
     """Pack on what is drawn: each bar with its fringes, open ends and the signs beside it,
     labels measured in the renderers' font. `tree`: the groups, when already made."""
     days_per_px = (scale.end - scale.start) / (scale.x1 - scale.x0)
-    measured = _drawn_measure(scale, theme, days_per_px)
     try:
         return place(records, domain=(scale.start, scale.end),
-                     drawn_extent=lambda span: measured(span)[0],
+                     measure_spans=_drawn_measure(scale, theme, days_per_px),
                      label_width=lambda label: (text_width(label, theme.font_size)
                                                 * RENDERED_WIDTH_ALLOWANCE * days_per_px),
                      group_key=lambda r: r.group, gap=gap.days(days_per_px),
                      label_pad=theme.label_pad * days_per_px,
-                     inside_room=lambda span: measured(span)[1],
                      label_clearance=LABEL_CLEARANCE * theme.label_pad * days_per_px,
                      labels=labels, rules=rules, tree=tree)
     except UnknownGroup as error:
@@ -359,33 +359,36 @@ def lay_out(records: list[Record], scale: TimeScale, theme: Theme,
 
 
 def _drawn_measure(scale: TimeScale, theme: Theme, days_per_px: float):
-    """A function giving a span's drawn extent and the room for a label inside it (its solid
-    core, where the label's contrast is known, or None), in days."""
+    """A `measure_spans` for place(): each span's drawn extent, signs beside it included, and
+    the room for a label on it (its solid core, where the label's contrast is known), in
+    days."""
     # the widest qualifier sign, '~?', sits beside a bar end
     mark_room = (text_width("~?", theme.small_font_size, "bold") + 3) * days_per_px
     marker = theme.bar_height * 0.6 * days_per_px
     domain = (scale.start, scale.end)
-    last: list = [None, None]   # place() asks for the extent and the room of a span in turn
+    sign_room: dict[frozenset, float] = {}   # by an endpoint's qualifiers: few distinct sets
 
-    def measure(span):
-        if last[0] is span:
-            return last[1]
-        drawn = drawn_span(span, domain)
-        before = mark_room if _has_glyph(span.start) and not span.is_point else 0.0
-        after = mark_room if _has_glyph(span.end) else 0.0
-        if span.is_point:   # a diamond is wider than its day; its sign stands on the right
-            extent = (drawn.start_low - marker, drawn.end_high + marker + after)
-        else:
-            extent = (drawn.start_low - before, drawn.end_high + after)
-        core = (drawn.start_high, drawn.end_low) if drawn.has_core else None
-        last[:] = span, (extent, core)
-        return last[1]
+    def room_for_sign(endpoint) -> float:
+        found = sign_room.get(endpoint.qualifiers)
+        if found is None:
+            has_sign = qualifier_kind(endpoint.qualifiers) is not None
+            found = sign_room[endpoint.qualifiers] = mark_room if has_sign else 0.0
+        return found
 
-    return measure
+    def measure_spans(spans: list) -> np.ndarray:
+        drawn = drawn_spans(spans, domain)
+        count = len(spans)
+        before = np.fromiter((room_for_sign(span.start) for span in spans), float, count)
+        after = np.fromiter((room_for_sign(span.end) for span in spans), float, count)
+        point = np.fromiter((span.is_point for span in spans), bool, count)
+        # a diamond is wider than its day; its sign stands on the right
+        low = np.where(point, drawn.start_low - marker, drawn.start_low - before)
+        high = np.where(point, drawn.end_high + marker + after, drawn.end_high + after)
+        room_low = np.where(drawn.has_core, drawn.start_high, np.nan)
+        room_high = np.where(drawn.has_core, drawn.end_low, np.nan)
+        return np.column_stack((low, high, room_low, room_high))
 
-
-def _has_glyph(endpoint) -> bool:
-    return qualifier_kind(endpoint.qualifiers) is not None
+    return measure_spans
 
 
 def color_key(records: list[Record], theme: Theme) -> tuple[tuple[str, str], ...]:

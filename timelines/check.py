@@ -21,10 +21,11 @@ The rules, few on purpose:
 """
 from __future__ import annotations
 
+from collections import Counter
 from dataclasses import asdict, dataclass, is_dataclass
 from typing import Iterable, Protocol, Sequence
 
-from .model import Precision, Record
+from .model import Precision, Record, Span
 
 DAYS_PER_YEAR = 365.2425  # the mean Gregorian year (97 leap days in 400 years)
 _LONG_BY_NATURE = frozenset({Precision.MILLENNIUM, Precision.DEEP_TIME})
@@ -177,10 +178,15 @@ def _counts(records: tuple[Record, ...], errors: tuple[Reportable, ...],
 def _duplicate_ids(records: tuple[Record, ...], errors: tuple[Reportable, ...]
                    ) -> list[Finding]:
     """A Finding on each later row that repeats an id, naming the row that had it first."""
+    ids = Counter(record.id for record in records if record.id)
+    ids.update(error.id for error in errors if error.id)
+    repeated = {identifier for identifier, count in ids.items() if count > 1}
+    if not repeated:
+        return []   # the usual case, found without sorting every row
     rows = {(record.provenance.source, record.provenance.row): record.id for record in records
-            if record.id}
+            if record.id in repeated}
     for error in errors:
-        if error.id:
+        if error.id in repeated:
             rows.setdefault((error.source, error.row), error.id)
     first_row: dict[str, int] = {}
     findings = []
@@ -197,19 +203,22 @@ def _duplicate_ids(records: tuple[Record, ...], errors: tuple[Reportable, ...]
 def _long_spans(records: tuple[Record, ...], limits: CheckLimits) -> list[Finding]:
     if limits.max_extent_years is None:
         return []
-    findings = []
-    for record in records:
-        days = _extent_days(record)
-        # Whole years, as the message says them: 1001-01-01..2000-12-31 is 1000, not 1000.0015.
-        if days is not None and round(days / DAYS_PER_YEAR) > limits.max_extent_years:
-            findings.append(_long_span(record, days, limits.max_extent_years))
-    return findings
+    # Records read from one table share Span objects: each distinct one is measured once.
+    spans = {id(record.span): record.span for record in records}
+    long_days = {key: days for key, days in ((key, _extent_days(span))
+                                             for key, span in spans.items())
+                 # Whole years, as the message says them: 1001-01-01..2000-12-31 is 1000.
+                 if days is not None and round(days / DAYS_PER_YEAR) > limits.max_extent_years}
+    if not long_days:
+        return []
+    return [_long_span(record, long_days[id(record.span)], limits.max_extent_years)
+            for record in records if id(record.span) in long_days]
 
 
-def _extent_days(record: Record) -> int | None:
+def _extent_days(span: Span | None) -> int | None:
     """Days of the possible extent; None when unbounded, undated or long by nature."""
-    span = record.span
-    if span is None or {span.start.precision, span.end.precision} & _LONG_BY_NATURE:
+    if span is None or span.start.precision in _LONG_BY_NATURE or (
+            span.end.precision in _LONG_BY_NATURE):
         return None
     earliest, latest = span.possible_extent
     if earliest is None or latest is None:

@@ -16,7 +16,7 @@ from .encodings import LaneBox
 from .layout import GroupPlacement, Placement
 from .axis import draw_axis
 from .bands import draw_bands, place_bands, strip_height
-from .bars import draw_record
+from .bars import draw_record, drawn_spans
 from .legend import fit_text, heading, legend_and_notes
 from .model import Record
 from .scale import TimeScale, year_text
@@ -143,10 +143,13 @@ def _lanes(group: GroupPlacement, scale, theme, y, color_of, used, caption: str,
         label = _caption(theme.margin + indent, y, caption, theme,
                          "bold" if caption_class == "group-label" else "normal", caption_class)
         children.append(_with_title(label, group))
-    for placed in group.records:
+    drawn = drawn_spans([placed.record.span for placed in group.records],
+                        (scale.start, scale.end)).each()
+    for placed, geometry in zip(group.records, drawn):
         lane_top = y + placed.lane * theme.lane_height
         box = LaneBox(lane_top + (theme.lane_height - theme.bar_height) / 2, theme.bar_height)
-        children.append(draw_record(placed, scale, theme, box, color_of(placed.record), used))
+        children.append(draw_record(placed, scale, theme, box, color_of(placed.record), used,
+                                    geometry))
     y += max(group.lanes, 1) * theme.lane_height
     if group.left_out:
         children.append(_left_out_row(group.left_out, scale, theme, y))

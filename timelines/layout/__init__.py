@@ -7,7 +7,7 @@ deterministic; imports only the model.
 - `labels`: inside, beside or left out: where a label goes and the box it makes;
 - `placement`: `place()`, the whole step from records to a `Placement`.
 
-What a record occupies in its lane is its box: the bar as drawn (the caller's `drawn_extent`,
+What a record occupies in its lane is its box: the bar as drawn (the caller's `measure_spans`,
 fringes, open ends and marks beside it included) plus the room of a label beside it; with a
 gap `g`, the box `[start, end]` holds `[start, end + g]`, and boxes in one lane never share a
 point. Under this rule compact packing uses exactly the maximum overlap depth in lanes.
@@ -22,13 +22,13 @@ from .packing import (
 )
 from .placement import (
     PACKINGS, SORT_KEYS, GroupNode, GroupPlacement, LaneRules, LayoutNote, Placement,
-    PlacedRecord, group_tree, place,
+    PlacedRecord, SpanMeasure, each_span, group_tree, place,
 )
 
 __all__ = [
     "Density", "GROUP_ORDERS", "GroupKey", "GroupNode", "GroupOrder", "GroupPlacement",
     "LABEL_MODES", "LABEL_SIDES", "LEFT_OUT", "LaneRules", "LayoutNote", "NO_GROUP", "PACKINGS",
-    "Placement",
+    "Placement", "SpanMeasure", "each_span",
     "PlacedRecord", "SORT_KEYS", "UnknownGroup", "collect_groups", "densest_moment",
     "first_fit", "group_records", "group_tree", "label_box", "max_overlap_depth",
     "merge_small_groups", "most_that_fit", "natural_key", "order_groups", "pack_lanes", "place",

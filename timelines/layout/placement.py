@@ -208,49 +208,59 @@ class _Boxes:
         return float(self.box_start[index]), float(self.box_end[index])
 
 
-@dataclass(frozen=True, slots=True)
-class _Measure:
-    """The caller's measures, each taken once per distinct span object or label text."""
+SpanMeasure = Callable[[list[Span]], np.ndarray]
 
-    domain: tuple[float, float]
-    drawn_extent: Callable[[Span], tuple[float, float]]
-    label_width: Callable[[str], float]
-    label_pad: float
-    room: Callable[[Span], tuple[float, float] | None]
-    clearance: float
-    mode: str
-    # Records of one table share Span objects for equal cells: id names them (the records,
-    # alive for the whole placement, keep them alive). Each holds (bar start, bar end, room
-    # start, room end); NaN room: none.
-    spans: dict[int, tuple[float, float, float, float]] = field(default_factory=dict)
-    widths: dict[str, float] = field(default_factory=dict)
+
+class _Measure:
+    """The caller's measures: every distinct span of a placement at once, each label text
+    once, then each group's boxes from them."""
+
+    __slots__ = ("domain", "label_width", "label_pad", "clearance", "mode", "widths",
+                 "measured", "rows")
+
+    def __init__(self, domain: tuple[float, float], measure_spans: SpanMeasure,
+                 label_width: Callable[[str], float], label_pad: float, clearance: float,
+                 mode: str, records: Iterable[Record]) -> None:
+        self.domain, self.label_pad, self.clearance, self.mode = domain, label_pad, clearance, mode
+        self.label_width = label_width
+        self.widths: dict[str, float] = {}
+        # Records of one table share Span objects for equal cells: id names them (the
+        # records keep them alive), and each distinct one is measured once.
+        spans = list(map(_SPAN, records))
+        by_key = dict(zip(map(id, spans), spans))
+        self.measured = np.asarray(measure_spans(list(by_key.values())),
+                                   dtype=float).reshape(-1, 4)
+        self.rows = dict(zip(by_key, range(len(by_key))))   # of each span's measures
 
     def boxes(self, records: Sequence[Record]) -> _Boxes:
-        spans = list(map(_SPAN, records))
         labels = list(map(_LABEL, records))
-        keys = list(map(id, spans))
-        by_key = dict(zip(keys, spans))
-        measured = np.array([self._span(key, span) for key, span in by_key.items()],
-                            dtype=float).reshape(-1, 4)
-        widths = np.array([self._width(label) for label in dict.fromkeys(labels)], dtype=float)
-        # each record's row in the tables of its group's distinct spans and labels
-        span_rows = _codes(keys, by_key)
-        label_rows = _codes(labels, dict.fromkeys(labels))
-        bars, rooms = measured[span_rows, :2], measured[span_rows, 2:]
-        found = label_boxes(labels, bars, widths[label_rows], self.domain, self.label_pad,
-                            rooms, self.clearance, self.mode)
+        span_rows = np.fromiter(map(self.rows.__getitem__, map(id, map(_SPAN, records))),
+                                dtype=np.intp, count=len(records))
+        bars, rooms = self.measured[span_rows, :2], self.measured[span_rows, 2:]
+        distinct_labels = dict.fromkeys(labels)
+        widths = np.array([self._width(label) for label in distinct_labels], dtype=float)
+        found = label_boxes(labels, bars, widths[_codes(labels, distinct_labels)], self.domain,
+                            self.label_pad, rooms, self.clearance, self.mode)
         return _Boxes(found.start, found.end, bars[:, 0], bars[:, 1], found.side)
-
-    def _span(self, key: int, span: Span) -> tuple[float, float, float, float]:
-        if key not in self.spans:
-            room = self.room(span)
-            self.spans[key] = (*self.drawn_extent(span), *(_NO_ROOM if room is None else room))
-        return self.spans[key]
 
     def _width(self, label: str) -> float:
         if label not in self.widths:
             self.widths[label] = self.label_width(label)
         return self.widths[label]
+
+
+def each_span(drawn_extent: Callable[[Span], tuple[float, float]],
+              inside_room: Callable[[Span], tuple[float, float] | None] | None = None
+              ) -> SpanMeasure:
+    """A `measure_spans` for `place` from functions of one span: its bar (start, end) in
+    days, and the part of it a label may sit on (None: no room), the whole bar by default."""
+    room = inside_room or drawn_extent
+
+    def measure_spans(spans: list[Span]) -> np.ndarray:
+        return np.array([(*drawn_extent(span), *(room(span) or _NO_ROOM)) for span in spans],
+                        dtype=float).reshape(-1, 4)
+
+    return measure_spans
 
 
 def _codes(values: list, distinct: dict) -> np.ndarray:
@@ -264,22 +274,21 @@ _SPAN, _LABEL, _PROVENANCE = attrgetter("span"), attrgetter("label"), attrgetter
 
 
 def place(records: Iterable[Record], *, domain: tuple[float, float],
-          drawn_extent: Callable[[Span], tuple[float, float]],
-          label_width: Callable[[str], float], group_key: GroupKey | None = None,
-          gap: float = 0.0, label_pad: float = 0.0,
-          inside_room: Callable[[Span], tuple[float, float] | None] | None = None,
+          measure_spans: SpanMeasure, label_width: Callable[[str], float],
+          group_key: GroupKey | None = None, gap: float = 0.0, label_pad: float = 0.0,
           label_clearance: float = 0.0, labels: str = "beside",
           rules: LaneRules = LaneRules(), tree: tuple[GroupNode, ...] | None = None
           ) -> Placement:
     """Group dated records, place each label, pack each group's boxes into lanes.
 
-    `drawn_extent` gives a span's bar in days (the caller decides how open or unknown ends
-    are drawn); `label_width` a label's width in days; each is asked once per distinct span
-    object or label text. `label_pad` is the space in days between a label and the bar's edge
-    (on both sides for a label inside); `inside_room` the part of a span's bar a label may sit
-    on (for example only the solid core, where text stays legible; None from it: no room
-    inside), the whole bar when not given; `label_clearance` the room
-    kept free on the far side of a label beside its bar; `labels` the label mode ("beside",
+    `measure_spans` gives, for a list of spans (each distinct span object once),
+    an n x 4 array: each one's drawn bar (start, end) in days (the caller decides how open or
+    unknown ends are drawn) and the part of it a label may sit on (start, end; NaN where there
+    is none; for example only the solid core, where text stays legible); `each_span` makes
+    one from functions of one span. `label_width` gives a label's width in days, asked once
+    per distinct text. `label_pad` is the space in days between a label and the bar's edge
+    (on both sides for a label inside); `label_clearance` the room kept free on the far side
+    of a label beside its bar; `labels` the label mode ("beside",
     "inside" or "none", see `labels`); `gap` the least distance in days between boxes in one
     lane; `tree` the dated records' groups as `group_tree(records, group_key, rules)` made
     them, when the caller has them already."""
@@ -296,12 +305,18 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
     if tree is None:
         tree = group_tree((record for record in records if record.span is not None),
                           group_key, rules)
-    measure = _Measure((low, high), drawn_extent, label_width, label_pad,
-                       inside_room or drawn_extent, label_clearance, labels)
     notes: list[LayoutNote] = []
     with collection_paused():
+        measure = _Measure((low, high), measure_spans, label_width, label_pad, label_clearance,
+                           labels, _tree_records(tree))
         groups = tuple(_place_node(node, (), measure, gap, rules, notes) for node in tree)
     return Placement(groups, undated, (low, high), tuple(notes), gap)
+
+
+def _tree_records(tree: tuple[GroupNode, ...]) -> Iterator[Record]:
+    for node in tree:
+        yield from node.records
+        yield from _tree_records(node.subgroups)
 
 
 def _place_node(node: GroupNode, path: tuple[str, ...], measure: _Measure, gap: float,

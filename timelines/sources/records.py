@@ -7,6 +7,8 @@ from dataclasses import dataclass
 from itertools import repeat
 from pathlib import Path
 
+import numpy as np
+
 from ..bulk import collection_paused, many
 from ..dates import DateError, parse_column, parse_span_column
 from ..dates.built import checked_span
@@ -122,9 +124,10 @@ def load_records(table: Table, columns: ColumnMap,
 
 
 def _load(table: Table, layout: _Layout, settings: DateSettings) -> LoadResult:
-    offsets = _filled_rows(table.rows, len(table.header))
-    rows = table.rows if len(offsets) == len(table.rows) else [table.rows[i] for i in offsets]
-    cells = [list(column) for column in zip(*rows)] or [[] for _ in table.header]
+    offsets = _filled_rows(table.columns)
+    cells = list(table.columns)
+    if len(offsets) < table.row_count:
+        cells = [[column[offset] for offset in offsets] for column in cells]
     numbers = [offset + 2 for offset in offsets]
     if layout.when is None:
         outcomes = _start_end_outcomes(cells, layout, settings)
@@ -133,12 +136,15 @@ def _load(table: Table, layout: _Layout, settings: DateSettings) -> LoadResult:
     texts = _Texts(cells, layout)
     records = _records(table.source, layout, texts, numbers, outcomes)
     problems = _problems(table.source, layout, texts, numbers, outcomes)
-    return LoadResult(tuple(records), tuple(problems), len(rows))
+    return LoadResult(tuple(records), tuple(problems), len(offsets))
 
 
-def _filled_rows(rows: tuple[tuple[object, ...], ...], width: int) -> list[int]:
+def _filled_rows(columns: tuple[list[object], ...]) -> list[int]:
     """Offsets of the rows holding anything: spreadsheets trail many wholly blank rows."""
-    return [offset for offset, row in enumerate(rows) if row.count("") != width]
+    filled = np.zeros(len(columns[0]) if columns else 0, dtype=bool)
+    for column in columns:
+        filled |= np.array(column, dtype=object) != ""
+    return np.flatnonzero(filled).tolist()
 
 
 def read_records(path: str | Path, columns: ColumnMap = ColumnMap(),

@@ -5,6 +5,7 @@ from __future__ import annotations
 
 import io
 import re
+from collections.abc import Iterable
 from dataclasses import dataclass
 from datetime import date, datetime
 from pathlib import Path
@@ -23,11 +24,37 @@ _DELIMITERS = ("\t", ";", ",", "|")  # tried in this order when a header line mu
 
 @dataclass(frozen=True, slots=True)
 class Table:
-    """Raw cells of one sheet: `rows[i]` is spreadsheet row i + 2, as long as the header."""
+    """Raw cells of one sheet, by column: `columns[j][i]` is the cell of column j in
+    spreadsheet row i + 2. Kept by column as the reader gives them and the records are read."""
 
     source: str                          # the file name, for messages
     header: tuple[str, ...]
-    rows: tuple[tuple[object, ...], ...]
+    columns: tuple[list[object], ...]    # one per header name, all of one length
+
+    def __post_init__(self) -> None:
+        if len(self.columns) != len(self.header):
+            raise ValueError(f"{len(self.columns)} columns for {len(self.header)} names")
+        if len({len(column) for column in self.columns}) > 1:
+            raise ValueError("the columns must be of one length")
+
+    @classmethod
+    def from_rows(cls, source: str, header: tuple[str, ...],
+                  rows: Iterable[tuple[object, ...]]) -> "Table":
+        """A table from rows, each as long as the header."""
+        rows = list(rows)
+        if any(len(row) != len(header) for row in rows):
+            raise ValueError(f"every row must have {len(header)} cells")
+        columns = tuple(map(list, zip(*rows))) if rows else tuple([] for _ in header)
+        return cls(source, header, columns)
+
+    @property
+    def row_count(self) -> int:
+        return len(self.columns[0]) if self.columns else 0
+
+    @property
+    def rows(self) -> tuple[tuple[object, ...], ...]:
+        """`rows[i]`: spreadsheet row i + 2, as long as the header."""
+        return tuple(zip(*self.columns))
 
 
 def read_table(path: str | Path, sheet: str | int | None = None, *,
@@ -55,7 +82,7 @@ def read_table(path: str | Path, sheet: str | int | None = None, *,
     return _table_from_cells(path.name, cells)
 
 
-def _text_cells(path: Path, delimiter: str | None, encoding: str) -> list[tuple[object, ...]]:
+def _text_cells(path: Path, delimiter: str | None, encoding: str) -> list[list[object]]:
     text = _decoded_text(path, encoding)
     if not text.strip():
         raise SourceError(f"{path.name}: the file is empty",
@@ -70,12 +97,12 @@ def _text_cells(path: Path, delimiter: str | None, encoding: str) -> list[tuple[
     except pd.errors.ParserError as error:
         raise SourceError(f"{path.name}: {_plain_parser_message(error)}",
                           hint="every line should have as many cells as the header") from error
-    return _frame_rows(frame)
+    return _frame_columns(frame)
 
 
-def _frame_rows(frame: pd.DataFrame) -> list[tuple[object, ...]]:
-    # Column lists zipped into rows: several times faster than DataFrame.to_numpy().tolist().
-    return list(zip(*(frame[column].tolist() for column in frame.columns)))
+def _frame_columns(frame: pd.DataFrame) -> list[list[object]]:
+    """Each column's cells, the first row's included, as plain Python lists."""
+    return [frame[column].tolist() for column in frame.columns]
 
 
 def _decoded_text(path: Path, encoding: str) -> str:
@@ -119,7 +146,7 @@ def _plain_parser_message(error: Exception) -> str:
 
 
 def _spreadsheet_cells(path: Path, engine: str,
-                       sheet: str | int | None) -> list[tuple[object, ...]]:
+                       sheet: str | int | None) -> list[list[object]]:
     try:
         book = pd.ExcelFile(path, engine=engine)
     except Exception as error:  # a damaged or mislabelled file: many libraries, many errors
@@ -128,7 +155,7 @@ def _spreadsheet_cells(path: Path, engine: str,
     with book:
         name = _sheet_name(path.name, book.sheet_names, sheet)
         frame = pd.read_excel(book, sheet_name=name, header=None, dtype=object, na_filter=False)
-    return [tuple(map(_spreadsheet_value, row)) for row in _frame_rows(frame)]
+    return [list(map(_spreadsheet_value, column)) for column in _frame_columns(frame)]
 
 
 def _sheet_name(file_name: str, names: list[str], wanted: str | int | None) -> str:
@@ -161,14 +188,16 @@ def _spreadsheet_value(value: object) -> object:
     return value
 
 
-def _table_from_cells(source: str, cells: list[tuple[object, ...]]) -> Table:
-    if not cells:
+def _table_from_cells(source: str, columns: list[list[object]]) -> Table:
+    """A table from each column's cells, row 1 (the names) first."""
+    if not columns or not columns[0]:
         raise SourceError(f"{source}: the sheet is empty",
                           hint="the first row should name the columns, e.g. label,start,end")
-    if not any(map(cell_text, cells[0])):
+    first_row = tuple(column[0] for column in columns)
+    if not any(map(cell_text, first_row)):
         raise SourceError(f"{source}: row 1 is empty; it should name the columns",
                           hint="put the column names (e.g. label, start, end) in the first row")
-    return Table(source, _header_names(cells[0]), tuple(cells[1:]))
+    return Table(source, _header_names(first_row), tuple(column[1:] for column in columns))
 
 
 def _header_names(cells: tuple[object, ...]) -> tuple[str, ...]:

@@ -10,6 +10,7 @@ column (`facets`) and the page size the chart is fitted to (`page`).
 from __future__ import annotations
 
 from dataclasses import dataclass, field, replace
+from operator import attrgetter
 from pathlib import Path
 from typing import Callable, Iterable
 
@@ -48,6 +49,7 @@ FORMATS = (".svg", ".png", ".pdf")
 # bar a label names (Gestalt law of proximity; the factor is common practice, no source).
 LABEL_CLEARANCE = 2.0
 
+_GROUP = attrgetter("group")   # a record's group: the C-level getter, called per record
 
 @dataclass(frozen=True, slots=True)
 class ChartOptions:
@@ -192,7 +194,7 @@ def _arrange_panels(arranged: Arranged, dated: list[Record], options: ChartOptio
                            "first")
     theme = replace(options.theme, width=panel_width(options.theme.width, len(facets)))
     # Faceted by the group column, a panel is one group: no group names inside it.
-    group_of = (lambda r: None) if facet == arranged.columns.group else (lambda r: r.group)
+    group_of = (lambda r: None) if facet == arranged.columns.group else _GROUP
     trees = [_group_tree(members, rules, group_of) for _, members in facets]
     scale = chart_scale(dated, theme, [node for tree in trees for node in tree], options.window)
     panels = tuple(Panel(name, lay_out(members, scale, theme, rules, gap, options.lanes.labels,
@@ -331,7 +333,7 @@ def _caption(name: str) -> str:
 
 
 def _group_tree(records: list[Record], rules: LaneRules,
-                group_of: Callable[[Record], str | None] = lambda r: r.group
+                group_of: Callable[[Record], str | None] = _GROUP
                 ) -> tuple[GroupNode, ...]:
     try:
         return group_tree(records, group_of, rules)
@@ -350,7 +352,7 @@ def lay_out(records: list[Record], scale: TimeScale, theme: Theme,
                      measure_spans=_drawn_measure(scale, theme, days_per_px),
                      label_width=lambda label: (text_width(label, theme.font_size)
                                                 * RENDERED_WIDTH_ALLOWANCE * days_per_px),
-                     group_key=lambda r: r.group, gap=gap.days(days_per_px),
+                     group_key=_GROUP, gap=gap.days(days_per_px),
                      label_pad=theme.label_pad * days_per_px,
                      label_clearance=LABEL_CLEARANCE * theme.label_pad * days_per_px,
                      labels=labels, rules=rules, tree=tree)

@@ -156,6 +156,15 @@ def test_describe_an_open_interval():
                                   "precision": None, "qualifiers": ["open_start"]}
 
 
+@pytest.mark.parametrize("text", ["n.d.", " s.d. ", "Undated", "?"])
+def test_describe_says_a_no_date_word_means_no_date(text):
+    # n.d. / s.d. (sine dato): the cataloguers' words for "no date"; common practice, no
+    # source. A table cell holding one is empty; parse says so instead of "cannot read".
+    described = describe(text)
+    assert not described["ok"] and described["error"].startswith("no date: ")
+    assert "undated" in described["error"]
+
+
 def test_describe_an_error():
     assert describe("1985-13-01") == {
         "input": "1985-13-01", "ok": False, "earliest": None, "latest": None, "likely": None,

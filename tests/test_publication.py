@@ -9,7 +9,7 @@ import pytest
 
 from timelines.axis import axis_ticks
 from timelines.calendar import fixed_from_gregorian as day
-from timelines.chart import build_scene
+from timelines.chart import build_scene, write
 from timelines.cli import main
 from timelines.compose import ChartText
 from timelines.errors import UsageError
@@ -270,3 +270,12 @@ def test_lines_of_text_are_drawn_with_the_theme_colours():
     [credit] = find(scene, "credit")
     assert isinstance(credit, Text) and credit.fill == DEFAULT_THEME.muted_color
     assert credit.style == "italic"
+
+
+def test_write_takes_a_path_as_text_too(tmp_path):
+    scene = build_scene(records())
+    write(scene, str(tmp_path / "chart.svg"))
+    write(scene, tmp_path / "chart-path.svg")
+    assert (tmp_path / "chart.svg").read_bytes() == (tmp_path / "chart-path.svg").read_bytes()
+    with pytest.raises(UsageError, match="must end in .svg, .png or .pdf"):
+        write(scene, str(tmp_path / "chart.txt"))

@@ -398,14 +398,16 @@ def color_key(records: list[Record], theme: Theme) -> tuple[tuple[str, str], ...
     return tuple((value, theme.color_for(i)) for i, value in enumerate(values))
 
 
-def output_format(path: Path) -> str:
+def output_format(path: str | Path) -> str:
+    path = Path(path)
     suffix = path.suffix.lower()
     if suffix not in FORMATS:
         raise UsageError(f"cannot write {path.name!r}: the output must end in .svg, .png or .pdf")
     return suffix
 
 
-def write(scene: Scene, path: Path, dpi: float = 150.0, text: str = "text") -> None:
+def write(scene: Scene, path: str | Path, dpi: float = 150.0, text: str = "text") -> None:
+    path = Path(path)
     suffix = output_format(path)
     if suffix == ".svg":
         from .render.svg import write_svg

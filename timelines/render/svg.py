@@ -26,8 +26,11 @@ from timelines.scene import (
     drawable_text,
 )
 
-TITLE_ID = "timelines-title"
-DESC_ID = "timelines-desc"
+# The chart's <title> and <desc> ids: these prefixes and a digest of the two texts, so that
+# two different charts inlined in one HTML page do not share an id (the same chart always
+# gets the same ids).
+TITLE_ID = "timelines-title-"
+DESC_ID = "timelines-desc-"
 ROOT_ID_PREFIX = "timelines-chart-"     # the root's id, when it has a style sheet to scope
 GRADIENT_ID_PREFIX = "f"                # scene ids are group-N and panel-N: no clash
 # Root attributes svgwrite always writes and nothing here needs: no element uses a name in the
@@ -59,7 +62,8 @@ def render_svg(scene: Scene, *, text: str = "text") -> str:
 
     `text="paths"` draws every text as glyph outlines instead of `<text>` (for print shops
     without the font); labels stay readable in each record's `<title>`."""
-    context = _Context(_new_drawing(scene), outlines=_choice(text, TEXT_MODES) == "paths")
+    context = _Context(_new_drawing(scene), outlines=_choice(text, TEXT_MODES) == "paths",
+                       id_suffix=_chart_digest(scene))
     for item in scene.children:
         _draw_into(context.drawing, item, context)
     if not context.gradients:
@@ -95,6 +99,7 @@ class _Context:
     gradients: dict[tuple[str, int, int], str] = field(default_factory=dict)
     outlines: bool = False          # draw text as glyph outlines
     texts: list = field(default_factory=list)       # the <text> elements, for _text_style_rules
+    id_suffix: str = ""             # ends every scene id (_chart_digest)
 
 
 def _new_drawing(scene: Scene) -> svgwrite.Drawing:
@@ -114,19 +119,27 @@ def _new_drawing(scene: Scene) -> svgwrite.Drawing:
 
 def _describe_chart(drawing: svgwrite.Drawing, scene: Scene) -> None:
     """Chart-level <title>/<desc> first in the root, named by aria-labelledby (SVG-AAM)."""
-    labels = [TITLE_ID]
+    digest = _chart_digest(scene)
+    labels = [TITLE_ID + digest]
     title = Title(clean_text(scene.title))
-    title.xml.set("id", TITLE_ID)
+    title.xml.set("id", labels[0])
     drawing.elements.insert(0, title)
     if scene.desc:
         desc = Desc(clean_text(scene.desc))
-        desc.xml.set("id", DESC_ID)
+        labels.append(DESC_ID + digest)
+        desc.xml.set("id", labels[1])
         drawing.elements.insert(1, desc)
-        labels.append(DESC_ID)
     drawing["aria-labelledby"] = " ".join(labels)
     if scene.metadata:
         lines = (f"{clean_text(key)}: {clean_text(value)}" for key, value in scene.metadata)
         drawing.elements.insert(len(labels), _MetadataText("\n".join(lines)))
+
+
+def _chart_digest(scene: Scene) -> str:
+    """Ten hex digits from the chart's title and description, ending the ids of its elements:
+    an HTML page holding two charts inline has one id space for both."""
+    text = f"{clean_text(scene.title)}\0{clean_text(scene.desc or '')}"
+    return hashlib.sha256(text.encode()).hexdigest()[:10]
 
 
 class _MetadataText(Title):
@@ -311,7 +324,7 @@ def _draw_group(group: Group, context: _Context):
     element = context.drawing.g()
     _set_common(element, 1.0, group.css_class)
     if group.id:
-        element["id"] = clean_text(group.id)
+        element["id"] = f"{clean_text(group.id)}-{context.id_suffix}"
     if group.title:
         element.elements.append(Title(clean_text(group.title)))  # the record's tooltip
     for child in group.children:

@@ -7,9 +7,11 @@ import re
 import struct
 import subprocess
 import sys
+import zlib
 from pathlib import Path
 
 import matplotlib
+import matplotlib.style
 import numpy
 import pytest
 from PIL import Image
@@ -258,3 +260,197 @@ def test_png_text_stays_inside_the_room_layout_reserves(tmp_path):
     ink = numpy.where((grey < 160).any(axis=0))[0]
     assert ink.max() <= 10 + text_width(label, 12) * RENDERED_WIDTH_ALLOWANCE
     assert ink.max() >= 10 + text_width(label, 12) * 0.97
+
+
+# --- the PNG file and the batched drawing ---------------------------------------------------
+
+def png_chunks(data: bytes) -> list[tuple[bytes, bytes]]:
+    """(type, data) of each chunk, checking each CRC. PNG specification (ISO/IEC 15948) 5.3:
+    length, type, data, CRC; 5.5 and Annex D: the CRC is the ISO 3309 CRC-32, as zlib.crc32."""
+    assert data.startswith(PNG_SIGNATURE)
+    chunks, at = [], len(PNG_SIGNATURE)
+    while at < len(data):
+        (length,) = struct.unpack(">I", data[at:at + 4])
+        kind, body = data[at + 4:at + 8], data[at + 8:at + 8 + length]
+        assert struct.unpack(">I", data[at + 8 + length:at + 12 + length])[0] == \
+            zlib.crc32(kind + body)
+        chunks.append((kind, body))
+        at += 12 + length
+    return chunks
+
+
+@pytest.mark.parametrize("background, colour_type, channels", [
+    ("#ffffff", 2, 3),    # PNG 11.2.2: colour type 2 is truecolour (RGB)
+    (None, 6, 4),         # colour type 6 is truecolour with alpha
+])
+def test_png_file_structure(tmp_path, background, colour_type, channels):
+    scene = Scene(30, 20, (Rect(2, 2, 10, 10, fill="#ff0000"),), background=background)
+    render_png(scene, tmp_path / "a.png", dpi=96)
+    chunks = png_chunks((tmp_path / "a.png").read_bytes())
+    kinds = [kind for kind, _ in chunks]
+    assert kinds[0] == b"IHDR" and kinds[-1] == b"IEND"   # 5.6: first and last chunks
+    width, height, depth, colour, *_ = struct.unpack(">IIBBBBB", chunks[0][1])
+    assert (width, height, depth, colour) == (30, 20, 8, colour_type)
+    # 10 and 11.2.4: the IDAT chunks together hold one zlib stream of the filtered rows, each
+    # row a filter-type byte (0-4) and width * channels bytes.
+    rows = zlib.decompress(b"".join(body for kind, body in chunks if kind == b"IDAT"))
+    assert len(rows) == height * (1 + width * channels)
+    assert all(rows[row * (1 + width * channels)] <= 4 for row in range(height))
+
+
+def test_png_pixels_are_what_matplotlib_and_pillow_write(tmp_path):
+    # Two writers of one drawing: ours, and matplotlib's savefig with Pillow's encoder.
+    from timelines.render import mpl
+
+    render_png(sample_scene(), tmp_path / "ours.png", dpi=150)
+    with mpl._local_settings():
+        figure = mpl._figure(sample_scene(), raster=True)
+        figure.savefig(tmp_path / "pillow.png", format="png", dpi=150,
+                       facecolor=figure.get_facecolor())
+    ours, pillow = (numpy.asarray(Image.open(tmp_path / name).convert("RGBA"))
+                    for name in ("ours.png", "pillow.png"))
+    assert numpy.array_equal(ours, pillow)
+
+
+def test_png_resolution_and_text_that_latin_1_cannot_carry(tmp_path):
+    scene = Scene(20, 20, (), title="\u0141\u00f3d\u017a guild",
+                  metadata=(("Author", "Ana\u00efs"),))
+    render_png(scene, tmp_path / "a.png", dpi=150)
+    image = Image.open(tmp_path / "a.png")
+    assert image.text == {"Title": "\u0141\u00f3d\u017a guild", "Author": "Ana\u00efs"}
+    chunks = dict(png_chunks((tmp_path / "a.png").read_bytes()))
+    assert chunks[b"iTXt"].startswith(b"Title\0")     # PNG 11.3.4.5: UTF-8 text
+    assert chunks[b"tEXt"] == b"Author\0Ana\xefs"      # 11.3.4.3: Latin-1 text
+    # 11.3.5.3: pixels per metre; 150 / 0.0254 = 5905.5, rounded as Pillow rounds it
+    assert struct.unpack(">IIB", chunks[b"pHYs"]) == (5906, 5906, 1)
+
+
+def polygon_patch_pixels(rects: list[Rect], tmp_path: Path) -> numpy.ndarray:
+    """The rects drawn by matplotlib's own Polygon patches, with the style our renderer asks
+    for, through savefig: the route the batch artist replaces."""
+    from matplotlib.figure import Figure
+    from matplotlib.patches import Polygon as PolygonPatch
+
+    figure = Figure(figsize=(2, 1), dpi=96, facecolor="#ffffff")
+    axes = figure.add_axes((0, 0, 1, 1))
+    axes.set_axis_off()
+    axes.set_xlim(0, 192)
+    axes.set_ylim(96, 0)
+    for rect in rects:
+        corners = [(rect.x, rect.y), (rect.x + rect.width, rect.y),
+                   (rect.x + rect.width, rect.y + rect.height), (rect.x, rect.y + rect.height)]
+        stroke = ({"edgecolor": rect.stroke, "linewidth": rect.stroke_width * 0.75}
+                  if rect.stroke else {"edgecolor": "none", "linewidth": 0.0})
+        axes.add_patch(PolygonPatch(
+            corners, closed=True, facecolor=rect.fill or "none", joinstyle="miter", snap=False,
+            alpha=None if rect.opacity >= 1 else rect.opacity, clip_on=False, **stroke))
+    with matplotlib.style.context("default"):
+        figure.savefig(tmp_path / "patches.png", dpi=150, facecolor="#ffffff")
+    return numpy.asarray(Image.open(tmp_path / "patches.png").convert("RGB"))
+
+
+def test_batched_rects_draw_what_matplotlibs_polygon_patches_draw(tmp_path):
+    rects = [Rect(10.3, 5.6, 40.2, 12.1, fill="#0072B2"),
+             Rect(30.7, 10.1, 50.5, 30.4, fill="#D55E00", opacity=0.55),
+             Rect(60.25, 40.75, 70.5, 20.5, fill="#009E73", stroke="#000000", stroke_width=1.5),
+             Rect(100.1, 20.2, 60.3, 50.6, fill=None, stroke="#CC79A7", stroke_width=2,
+                  opacity=0.7),
+             Rect(150.5, 60.5, 30.0, 30.0, fill="#F0E442", stroke="#56B4E9", stroke_width=0.5,
+                  opacity=0.3)]
+    render_png(Scene(192, 96, tuple(rects)), tmp_path / "ours.png", dpi=150)
+    ours = numpy.asarray(Image.open(tmp_path / "ours.png").convert("RGB"))
+    assert numpy.array_equal(ours, polygon_patch_pixels(rects, tmp_path))
+
+
+def test_all_fades_at_once_equal_one_fade_at_a_time():
+    # The batched arithmetic against the same formula written for one fade alone: the coverage
+    # of each device pixel times the opacity ramp at the pixel's clipped centre.
+    from timelines.render.mpl import _device_fades
+
+    rng = numpy.random.default_rng(7)
+    fades = [GradientRect(0, 0, 1, 1, "#0072B2", *rng.uniform(-0.2, 1.2, 2)) for _ in range(60)]
+    left = rng.uniform(-20, 110, 60)
+    bottom = rng.uniform(-10, 45, 60)
+    boxes = numpy.column_stack([left, bottom, left + rng.uniform(0.1, 30, 60),
+                                bottom + rng.uniform(0.1, 12, 60)])
+    boxes[5] = (-30, 10, -5, 20)   # wholly off the canvas
+    for fade, box, placed in zip(fades, boxes, _device_fades(fades, boxes, 100, 50)):
+        expected = one_fade(fade, box, 100, 50)
+        if expected is None:
+            assert placed is None
+        else:
+            assert placed[:2] == expected[:2] and numpy.array_equal(placed[2], expected[2])
+
+
+def one_fade(fade: GradientRect, box, canvas_width: int, canvas_height: int):
+    left, bottom, right, top = box
+    columns = numpy.arange(max(numpy.floor(left), 0), min(numpy.ceil(right), canvas_width))
+    rows = numpy.arange(max(numpy.floor(bottom), 0), min(numpy.ceil(top), canvas_height))
+    if columns.size == 0 or rows.size == 0:
+        return None
+
+    def coverage(pixels, low, high):
+        return numpy.clip(numpy.minimum(pixels + 1, high) - numpy.maximum(pixels, low), 0, 1)
+
+    centres = (numpy.clip(columns + 0.5, left, right) - left) / (right - left)
+    ramp = numpy.clip(fade.opacity_left + (fade.opacity_right - fade.opacity_left) * centres,
+                      0, 1)
+    alpha = numpy.outer(coverage(rows, bottom, top)[::-1], ramp * coverage(columns, left, right))
+    image = numpy.empty((*alpha.shape, 4), dtype=numpy.uint8)
+    image[..., :3] = (0, 114, 178)   # #0072B2
+    image[..., 3] = numpy.round(alpha * 255)
+    return int(columns[0]), int(rows[0]), image
+
+
+def test_glyphs_drawn_as_one_image_equal_glyphs_drawn_one_by_one(tmp_path, monkeypatch):
+    # 'AV', 'To', 'Wa' are kerned pairs in DejaVu Sans: their glyphs reach into each other's
+    # columns, so the merged drawing must split there to stay exact.
+    from timelines.render import mpl
+
+    scene = Scene(400, 60, (Text(10.3, 25.6, "WAVE To Warrow, Fenwick 1650", size=15),
+                            Text(390, 50.2, "Tyburn & Ava", size=12, anchor="end",
+                                 weight="bold", fill="#D55E00")))
+    merged = mpl._glyph_images
+    counts = []
+
+    def counted(placed):
+        images = merged(placed)
+        counts.append((len(placed), len(images)))
+        return images
+
+    monkeypatch.setattr(mpl, "_glyph_images", counted)
+    render_png(scene, tmp_path / "merged.png", dpi=150)
+    assert all(1 < images < glyphs for glyphs, images in counts)   # merged, and split
+    monkeypatch.setattr(mpl, "_glyph_images", lambda placed: [
+        image for glyph in placed for image in merged([glyph])])
+    render_png(scene, tmp_path / "single.png", dpi=150)
+    assert (tmp_path / "merged.png").read_bytes() == (tmp_path / "single.png").read_bytes()
+
+
+def test_drawing_order_holds_across_batches(tmp_path):
+    # rect, then a line (a matplotlib artist between two batches), then a rect over the line
+    scene = Scene(60, 20, (Rect(0, 0, 60, 20, fill="#0000ff"),
+                           Line(0, 10, 60, 10, stroke="#ff0000", stroke_width=4),
+                           Rect(30, 0, 30, 20, fill="#00ff00")), background="#ffffff")
+    pixels = png_pixels(scene, tmp_path)
+    assert pixels[10, 15, :3].tolist() == [255, 0, 0]    # the line over the first rect
+    assert pixels[10, 45, :3].tolist() == [0, 255, 0]    # the second rect over the line
+    assert pixels[2, 15, :3].tolist() == [0, 0, 255]
+
+
+def test_png_text_without_the_glyph_cache_lands_in_the_same_place(tmp_path, monkeypatch):
+    # Where this matplotlib lacks the per-glyph calls, matplotlib's Text draws the PNG text.
+    from timelines.render import mpl
+
+    scene = Scene(300, 40, (Text(150, 28, "Marrow & Fenwick", size=18, anchor="middle"),),
+                  background="#ffffff")
+
+    def ink(name):
+        render_png(scene, tmp_path / name, dpi=96)
+        grey = numpy.asarray(Image.open(tmp_path / name).convert("L"))
+        dark = numpy.argwhere(grey < 128)
+        return numpy.array([*dark.min(axis=0), *dark.max(axis=0)])
+
+    cached = ink("cached.png")
+    monkeypatch.setattr(mpl, "_glyph_cache_works", lambda: False)
+    assert numpy.abs(ink("text.png") - cached).max() <= 1

@@ -15,7 +15,8 @@ Rows are numbered as a spreadsheet program numbers them: the header is row 1, so
 data row is row 2. This is the only module of the project that imports pandas.
 """
 from .columns import COLUMN_NAMES, ColumnMap, detect_columns
-from .records import OPEN_CELL, LoadResult, Problem, load_records, read_records
+from ..dates.column import OPEN_CELL
+from .records import LoadResult, Problem, load_records, read_records
 from .tables import READABLE, Table, cell_text, read_table
 
 __all__ = ["COLUMN_NAMES", "ColumnMap", "LoadResult", "OPEN_CELL", "Problem", "READABLE",

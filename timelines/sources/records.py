@@ -12,7 +12,6 @@ import numpy as np
 from ..bulk import collection_paused, many
 from ..dates import DateError, parse_column, parse_span_column
 from ..dates.built import checked_span
-from ..dates.column import OPEN_CELL
 from ..dates.settings import DEFAULT_SETTINGS, DateSettings
 from ..errors import UsageError
 from ..model import Endpoint, Provenance, Qualifier, Record, Span

@@ -40,7 +40,7 @@ ALLOWED = {
     "config": {"errors"},                       # stdlib (tomllib, argparse) and errors only
     "lanes": {"calendar", "layout", "scale"},   # the `timelines lanes` report
     "privacy": {"model", "calendar"},           # withholding possibly living persons' details
-    "cli": {"chart", "check", "calendar", "dates", "encodings", "errors", "sources", "theme",
+    "cli": {"bulk", "chart", "check", "calendar", "dates", "encodings", "errors", "sources", "theme",
             "__init__", "config", "layout", "lanes", "scene", "page", "window", "options"},
     # the argparse parser; cli runs the commands
     "options": {"chart", "config", "dates", "encodings", "errors", "layout", "page", "scene",

@@ -143,9 +143,16 @@ def _start_order(record: Record) -> tuple[int, float]:
     start, end = record.span.start, record.span.end
     if start.is_open:
         return 0, 0.0
-    known = next((day for day in (start.earliest, start.latest, end.earliest, end.latest)
-                  if day is not None), None)
-    return (0, 0.0) if known is None else (1, float(known))
+    # the first known of these, written out: every distinct span of a group passes here
+    if start.earliest is not None:
+        return 1, float(start.earliest)
+    if start.latest is not None:
+        return 1, float(start.latest)
+    if end.earliest is not None:
+        return 1, float(end.earliest)
+    if end.latest is not None:
+        return 1, float(end.latest)
+    return 0, 0.0
 
 
 _NUMBER = re.compile(r"[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?")

@@ -7,6 +7,11 @@ R.D. days (Python docs, datetime.date.toordinal).
 """
 from __future__ import annotations
 
+import csv
+import io
+import subprocess
+import sys
+
 from datetime import date, datetime
 from pathlib import Path
 
@@ -23,6 +28,7 @@ from timelines.model import Qualifier
 from timelines.sources import (
     ColumnMap, Problem, Table, detect_columns, load_records, read_records, read_table,
 )
+from timelines.sources.tables import SMALL_TEXT, TEXT_READERS, text_columns
 
 FIXTURES = Path(__file__).parent / "fixtures"
 FOUNDERS = FIXTURES / "harrowmere-founders.csv"
@@ -478,3 +484,40 @@ def test_every_row_is_drawn_listed_or_reported(rows):
 def test_xlsm_is_read_like_xlsx(tmp_path):
     path = write_workbook(tmp_path / "founders.xlsx").rename(tmp_path / "founders.xlsm")
     assert read_table(path, sheet="People").header == ("Id", "Name", "Born", "Died", "Pieces")
+
+
+# ---------------------------------------------------------------------------------------------
+# A small text table is read by the csv module, a large one by pandas: the same cells either way
+
+TEXT_CELLS = st.text(alphabet=st.sampled_from(list('ab1 ,;|\t"\'\n\r-é?')), max_size=6)
+
+
+@hypothesis_settings(max_examples=400, deadline=None)
+@given(st.sampled_from([",", ";", "\t", "|"]), st.lists(TEXT_CELLS, min_size=1, max_size=4),
+       st.lists(st.lists(TEXT_CELLS, max_size=5), max_size=6),
+       st.sampled_from(["\n", "\r\n"]), st.sampled_from(["", "\ufeff"]))
+def test_both_text_readers_give_the_same_cells(delimiter, header, rows, line_end, mark):
+    # Written with the csv module's quoting (RFC 4180 style), rows of any length: shorter
+    # rows are padded, longer ones are an error, blank lines are rows of empty cells.
+    stream = io.StringIO()
+    csv.writer(stream, delimiter=delimiter, lineterminator=line_end).writerows([header, *rows])
+    text = mark + stream.getvalue()
+    outcomes = []
+    for reader in TEXT_READERS:
+        try:
+            outcomes.append(text_columns(text, delimiter, reader))
+        except ValueError as error:
+            outcomes.append(str(error))
+    assert outcomes[0] == outcomes[1]
+
+
+def test_large_text_tables_go_to_pandas_and_small_ones_do_not_load_it(tmp_path):
+    path = tmp_path / "people.csv"
+    path.write_text("name,born\nOdile Varn,1650\n", encoding="utf-8")
+    code = ("import sys; from timelines.sources import read_table; "
+            f"read_table({str(path)!r}); print('pandas' in sys.modules)")
+    loaded = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
+                            check=True).stdout.strip()
+    assert loaded == "False"
+    big = "name,born\n" + "Odile Varn,1650\n" * (SMALL_TEXT // 16 + 1)
+    assert text_columns(big, ",") == text_columns(big, ",", "pandas")

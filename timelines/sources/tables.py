@@ -1,16 +1,21 @@
 """Reading a table file into raw cells: CSV/TSV as text exactly as written, XLSX/ODS with
 their cell types. Rows are numbered as a spreadsheet program numbers them (header = row 1).
-The only module of the project that imports pandas."""
+The only module of the project that imports pandas, and only when it reads with it.
+
+A text table is read by pandas' C reader, or, when it is small, by the standard csv module:
+importing pandas takes about a quarter of a second, longer than the csv module takes for a
+table of tens of thousands of cells, while on a large table pandas is several times faster.
+Both give the same cells (tests/test_sources.py checks it on random tables); whatever the csv
+module cannot read (a field over its size limit, a blank first line) goes to pandas."""
 from __future__ import annotations
 
+import csv
 import io
 import re
 from collections.abc import Iterable
 from dataclasses import dataclass
 from datetime import date, datetime
 from pathlib import Path
-
-import pandas as pd
 
 from ..errors import SourceError, UsageError
 from .columns import did_you_mean
@@ -19,6 +24,10 @@ TEXT_FORMATS = {".csv": ",", ".tsv": "\t", ".tab": "\t", ".txt": None}  # None: 
 SPREADSHEET_ENGINES = {".xlsx": "openpyxl", ".xlsm": "openpyxl", ".ods": "odf"}
 READABLE = ", ".join([*TEXT_FORMATS, *SPREADSHEET_ENGINES])
 _DELIMITERS = ("\t", ";", ",", "|")  # tried in this order when a header line must decide
+# Up to this many characters a text table is read by the csv module (about 40,000 rows of a
+# register like the gallery's: where it and importing pandas take about as long).
+SMALL_TEXT = 2_000_000
+TEXT_READERS = ("csv", "pandas")
 
 
 
@@ -90,17 +99,64 @@ def _text_cells(path: Path, delimiter: str | None, encoding: str) -> list[list[o
     first_line = text.split("\n", 1)[0]
     delimiter = _delimiter_from_header(first_line, delimiter)
     try:
+        return text_columns(text, delimiter)
+    except _RaggedRow as error:
+        raise SourceError(f"{path.name}: {error}",
+                          hint="every line should have as many cells as the header") from error
+
+
+class _RaggedRow(ValueError):
+    """A line with more cells than the first."""
+
+
+def text_columns(text: str, delimiter: str, reader: str | None = None) -> list[list[object]]:
+    """The cells of a text table by column, the first row's included, each the str it was.
+    `reader`: "csv" or "pandas"; by default the csv module for a small text (SMALL_TEXT).
+    Raises _RaggedRow for a line with more cells than the first; shorter lines are padded
+    with empty cells, and a blank line is a row of them."""
+    if reader is None:
+        reader = "csv" if len(text) <= SMALL_TEXT else "pandas"
+    if reader not in TEXT_READERS:
+        raise ValueError(f"reader must be one of {', '.join(TEXT_READERS)}, not {reader!r}")
+    if reader == "csv":
+        columns = _csv_columns(text, delimiter)
+        if columns is not None:
+            return columns
+    return _pandas_columns(text, delimiter)
+
+
+def _csv_columns(text: str, delimiter: str) -> list[list[object]] | None:
+    """The csv module's reading, as pandas reads (header=None, no missing values, blank lines
+    kept); None for what it cannot read the same way."""
+    text = text.removeprefix("\ufeff")   # a byte-order mark left in: pandas drops it too
+    try:
+        rows = list(csv.reader(io.StringIO(text, newline=""), delimiter=delimiter))
+    except csv.Error:
+        return None          # a field over the module's size limit, and the like
+    if not rows or not rows[0]:
+        return None          # a blank first line: pandas decides the width otherwise
+    width = len(rows[0])
+    for number, row in enumerate(rows, start=1):
+        if len(row) > width:
+            raise _RaggedRow(f"line {number} has {len(row)} cells, the header has {width}")
+    padded = [row if len(row) == width else row + [""] * (width - len(row)) for row in rows]
+    return [list(column) for column in zip(*padded)]
+
+
+def _pandas_columns(text: str, delimiter: str) -> list[list[object]]:
+    import pandas as pd
+
+    try:
         # dtype=object keeps every cell the str it was, with no type guessing at all.
         frame = pd.read_csv(io.StringIO(text), sep=delimiter, header=None, dtype=object,
                             keep_default_na=False, na_filter=False, skip_blank_lines=False,
                             engine="c")
     except pd.errors.ParserError as error:
-        raise SourceError(f"{path.name}: {_plain_parser_message(error)}",
-                          hint="every line should have as many cells as the header") from error
+        raise _RaggedRow(_plain_parser_message(error)) from error
     return _frame_columns(frame)
 
 
-def _frame_columns(frame: pd.DataFrame) -> list[list[object]]:
+def _frame_columns(frame) -> list[list[object]]:
     """Each column's cells, the first row's included, as plain Python lists."""
     return [frame[column].tolist() for column in frame.columns]
 
@@ -147,6 +203,8 @@ def _plain_parser_message(error: Exception) -> str:
 
 def _spreadsheet_cells(path: Path, engine: str,
                        sheet: str | int | None) -> list[list[object]]:
+    import pandas as pd
+
     try:
         book = pd.ExcelFile(path, engine=engine)
     except Exception as error:  # a damaged or mislabelled file: many libraries, many errors
@@ -179,8 +237,8 @@ def _sheet_name(file_name: str, names: list[str], wanted: str | int | None) -> s
 
 def _spreadsheet_value(value: object) -> object:
     """A spreadsheet cell as plain Python: pandas Timestamps become datetimes, NaN becomes ''."""
-    if isinstance(value, pd.Timestamp):
-        return value.to_pydatetime()
+    if type(value).__name__ == "Timestamp" and hasattr(value, "to_pydatetime"):
+        return value.to_pydatetime()     # pandas' (known by name: pandas is loaded lazily)
     if isinstance(value, float) and value != value:
         return ""
     if value is None:

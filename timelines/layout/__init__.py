@@ -5,6 +5,7 @@ deterministic; imports only the model.
   k lanes) and the densest moment of a set of boxes;
 - `grouping`: records into groups, small groups merged, groups in order;
 - `labels`: inside, beside or left out: where a label goes and the box it makes;
+- `boxes`: each record's bar, label room and box as arrays, from the caller's measures;
 - `placement`: `place()`, the whole step from records to a `Placement`.
 
 What a record occupies in its lane is its box: the bar as drawn (the caller's `measure_spans`,
@@ -12,6 +13,7 @@ fringes, open ends and marks beside it included) plus the room of a label beside
 gap `g`, the box `[start, end]` holds `[start, end + g]`, and boxes in one lane never share a
 point. Under this rule compact packing uses exactly the maximum overlap depth in lanes.
 """
+from .boxes import SpanMeasure, each_span
 from .grouping import (
     GROUP_ORDERS, NO_GROUP, GroupKey, GroupOrder, UnknownGroup, collect_groups, group_records,
     merge_small_groups, natural_key, order_groups,
@@ -22,7 +24,7 @@ from .packing import (
 )
 from .placement import (
     PACKINGS, SORT_KEYS, GroupNode, GroupPlacement, LaneRules, LayoutNote, Placement,
-    PlacedRecord, SpanMeasure, each_span, group_tree, place,
+    PlacedRecord, group_tree, place,
 )
 
 __all__ = [

@@ -27,19 +27,20 @@ picture and listed in `Placement.notes` (kind "left out") and in its group's `le
 from __future__ import annotations
 
 import math
-from collections.abc import Callable, Iterable, Iterator, Sequence
+from collections.abc import Callable, Iterable, Iterator
 from dataclasses import dataclass, field
 from operator import attrgetter
 
 import numpy as np
 
 from ..bulk import collection_paused, many
-from ..model import Record, Span
+from ..model import Record
 from .grouping import (
     GROUP_ORDERS, GroupKey, GroupOrder, check_listed_names, collect_groups, merge_small_groups,
     natural_key, order_groups,
 )
-from .labels import LABEL_MODES, LABEL_SIDES, label_boxes
+from .boxes import Boxes, BoxMeasure, SpanMeasure
+from .labels import LABEL_MODES, LABEL_SIDES
 from .packing import (
     LEFT_OUT, check_distance, first_fit, max_overlap_depth, most_that_fit, pack_lanes,
 )
@@ -193,84 +194,7 @@ def _ordered_level(records: list[Record], key: GroupKey, order: GroupOrder, min_
             for name, members in order_groups(groups, order, last=last)]
 
 
-@dataclass(frozen=True, slots=True)
-class _Boxes:
-    """The boxes of a group's records, as arrays: where each box and bar lie (days) and the
-    side of each label (an index into LABEL_SIDES)."""
-
-    box_start: np.ndarray
-    box_end: np.ndarray
-    bar_start: np.ndarray
-    bar_end: np.ndarray
-    side: np.ndarray
-
-    def box(self, index: int) -> tuple[float, float]:
-        return float(self.box_start[index]), float(self.box_end[index])
-
-
-SpanMeasure = Callable[[list[Span]], np.ndarray]
-
-
-class _Measure:
-    """The caller's measures: every distinct span of a placement at once, each label text
-    once, then each group's boxes from them."""
-
-    __slots__ = ("domain", "label_width", "label_pad", "clearance", "mode", "widths",
-                 "measured", "rows")
-
-    def __init__(self, domain: tuple[float, float], measure_spans: SpanMeasure,
-                 label_width: Callable[[str], float], label_pad: float, clearance: float,
-                 mode: str, records: Iterable[Record]) -> None:
-        self.domain, self.label_pad, self.clearance, self.mode = domain, label_pad, clearance, mode
-        self.label_width = label_width
-        self.widths: dict[str, float] = {}
-        # Records of one table share Span objects for equal cells: id names them (the
-        # records keep them alive), and each distinct one is measured once.
-        spans = list(map(_SPAN, records))
-        by_key = dict(zip(map(id, spans), spans))
-        self.measured = np.asarray(measure_spans(list(by_key.values())),
-                                   dtype=float).reshape(-1, 4)
-        self.rows = dict(zip(by_key, range(len(by_key))))   # of each span's measures
-
-    def boxes(self, records: Sequence[Record]) -> _Boxes:
-        labels = list(map(_LABEL, records))
-        span_rows = np.fromiter(map(self.rows.__getitem__, map(id, map(_SPAN, records))),
-                                dtype=np.intp, count=len(records))
-        bars, rooms = self.measured[span_rows, :2], self.measured[span_rows, 2:]
-        distinct_labels = dict.fromkeys(labels)
-        widths = np.array([self._width(label) for label in distinct_labels], dtype=float)
-        found = label_boxes(labels, bars, widths[_codes(labels, distinct_labels)], self.domain,
-                            self.label_pad, rooms, self.clearance, self.mode)
-        return _Boxes(found.start, found.end, bars[:, 0], bars[:, 1], found.side)
-
-    def _width(self, label: str) -> float:
-        if label not in self.widths:
-            self.widths[label] = self.label_width(label)
-        return self.widths[label]
-
-
-def each_span(drawn_extent: Callable[[Span], tuple[float, float]],
-              inside_room: Callable[[Span], tuple[float, float] | None] | None = None
-              ) -> SpanMeasure:
-    """A `measure_spans` for `place` from functions of one span: its bar (start, end) in
-    days, and the part of it a label may sit on (None: no room), the whole bar by default."""
-    room = inside_room or drawn_extent
-
-    def measure_spans(spans: list[Span]) -> np.ndarray:
-        return np.array([(*drawn_extent(span), *(room(span) or _NO_ROOM)) for span in spans],
-                        dtype=float).reshape(-1, 4)
-
-    return measure_spans
-
-
-def _codes(values: list, distinct: dict) -> np.ndarray:
-    """The place of each value in `distinct` (in its order)."""
-    place = dict(zip(distinct, range(len(distinct))))
-    return np.fromiter(map(place.__getitem__, values), dtype=np.intp, count=len(values))
-
-
-_NO_ROOM = (math.nan, math.nan)
-_SPAN, _LABEL, _PROVENANCE = attrgetter("span"), attrgetter("label"), attrgetter("provenance")
+_PROVENANCE = attrgetter("provenance")
 
 
 def place(records: Iterable[Record], *, domain: tuple[float, float],
@@ -307,7 +231,7 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
                           group_key, rules)
     notes: list[LayoutNote] = []
     with collection_paused():
-        measure = _Measure((low, high), measure_spans, label_width, label_pad, label_clearance,
+        measure = BoxMeasure((low, high), measure_spans, label_width, label_pad, label_clearance,
                            labels, _tree_records(tree))
         groups = tuple(_place_node(node, (), measure, gap, rules, notes) for node in tree)
     return Placement(groups, undated, (low, high), tuple(notes), gap)
@@ -319,7 +243,7 @@ def _tree_records(tree: tuple[GroupNode, ...]) -> Iterator[Record]:
         yield from _tree_records(node.subgroups)
 
 
-def _place_node(node: GroupNode, path: tuple[str, ...], measure: _Measure, gap: float,
+def _place_node(node: GroupNode, path: tuple[str, ...], measure: BoxMeasure, gap: float,
                 rules: LaneRules, notes: list[LayoutNote]) -> GroupPlacement:
     path = (*path, node.name)
     if node.subgroups:
@@ -346,7 +270,7 @@ def _place_node(node: GroupNode, path: tuple[str, ...], measure: _Measure, gap: 
                           tuple(left_out))
 
 
-def _placed(records: tuple[Record, ...], boxes: _Boxes, lanes: list[int],
+def _placed(records: tuple[Record, ...], boxes: Boxes, lanes: list[int],
             kept: list[int]) -> list[PlacedRecord]:
     """The PlacedRecords of the kept records, made column by column (a group may be large)."""
     def column(values) -> list:
@@ -364,7 +288,7 @@ def _path_text(path: tuple[str, ...]) -> str:
     return " / ".join(repr(name) if name else "(none)" for name in path)
 
 
-def _sorted_indices(records: tuple[Record, ...], boxes: _Boxes, rules: LaneRules) -> list[int]:
+def _sorted_indices(records: tuple[Record, ...], boxes: Boxes, rules: LaneRules) -> list[int]:
     """Indices of `records` in sort order; ties by source row, then input position."""
     by_row = _row_order(records)
     sort = rules.sort
@@ -394,7 +318,7 @@ def _row_order(records: tuple[Record, ...]) -> np.ndarray:
     return np.array(sorted(range(len(records)), key=places.__getitem__), dtype=np.int64)
 
 
-def _lanes(boxes: _Boxes, order: list[int], pins: dict[int, int], gap: float,
+def _lanes(boxes: Boxes, order: list[int], pins: dict[int, int], gap: float,
            rules: LaneRules) -> list[int]:
     count = len(boxes.box_start)
     if rules.pack == "single":
@@ -416,7 +340,7 @@ def _lanes(boxes: _Boxes, order: list[int], pins: dict[int, int], gap: float,
     return lanes
 
 
-def _compact_lanes(boxes: _Boxes, ordered: np.ndarray, gap: float,
+def _compact_lanes(boxes: Boxes, ordered: np.ndarray, gap: float,
                    max_lanes: int | None) -> list[int]:
     spans = np.column_stack((boxes.box_start[ordered], boxes.box_end[ordered]))
     if max_lanes is not None and max_overlap_depth(spans, gap) > max_lanes:

@@ -1,0 +1,98 @@
+"""What each record occupies in its lane, as arrays: its drawn bar, the room on it for its
+label, and the box the label makes with it (`labels.label_boxes`), in days.
+
+`BoxMeasure` asks the caller's `measure_spans` once for every distinct span object of a
+placement (records read from one table share them) and the label width once per distinct
+text; `boxes(records)` then gives a group's boxes. `each_span` makes a `measure_spans` from
+functions of one span.
+"""
+from __future__ import annotations
+
+import math
+from collections.abc import Callable, Iterable, Sequence
+from dataclasses import dataclass
+from operator import attrgetter
+
+import numpy as np
+
+from ..model import Record, Span
+from .labels import label_boxes
+
+@dataclass(frozen=True, slots=True)
+class Boxes:
+    """The boxes of a group's records, as arrays: where each box and bar lie (days) and the
+    side of each label (an index into LABEL_SIDES)."""
+
+    box_start: np.ndarray
+    box_end: np.ndarray
+    bar_start: np.ndarray
+    bar_end: np.ndarray
+    side: np.ndarray
+
+    def box(self, index: int) -> tuple[float, float]:
+        return float(self.box_start[index]), float(self.box_end[index])
+
+
+SpanMeasure = Callable[[list[Span]], np.ndarray]
+
+
+class BoxMeasure:
+    """The caller's measures: every distinct span of a placement at once, each label text
+    once, then each group's boxes from them."""
+
+    __slots__ = ("domain", "label_width", "label_pad", "clearance", "mode", "widths",
+                 "measured", "rows")
+
+    def __init__(self, domain: tuple[float, float], measure_spans: SpanMeasure,
+                 label_width: Callable[[str], float], label_pad: float, clearance: float,
+                 mode: str, records: Iterable[Record]) -> None:
+        self.domain, self.label_pad, self.clearance, self.mode = domain, label_pad, clearance, mode
+        self.label_width = label_width
+        self.widths: dict[str, float] = {}
+        # Records of one table share Span objects for equal cells: id names them (the
+        # records keep them alive), and each distinct one is measured once.
+        spans = list(map(_SPAN, records))
+        by_key = dict(zip(map(id, spans), spans))
+        self.measured = np.asarray(measure_spans(list(by_key.values())),
+                                   dtype=float).reshape(-1, 4)
+        self.rows = dict(zip(by_key, range(len(by_key))))   # of each span's measures
+
+    def boxes(self, records: Sequence[Record]) -> Boxes:
+        labels = list(map(_LABEL, records))
+        span_rows = np.fromiter(map(self.rows.__getitem__, map(id, map(_SPAN, records))),
+                                dtype=np.intp, count=len(records))
+        bars, rooms = self.measured[span_rows, :2], self.measured[span_rows, 2:]
+        distinct_labels = dict.fromkeys(labels)
+        widths = np.array([self._width(label) for label in distinct_labels], dtype=float)
+        found = label_boxes(labels, bars, widths[_codes(labels, distinct_labels)], self.domain,
+                            self.label_pad, rooms, self.clearance, self.mode)
+        return Boxes(found.start, found.end, bars[:, 0], bars[:, 1], found.side)
+
+    def _width(self, label: str) -> float:
+        if label not in self.widths:
+            self.widths[label] = self.label_width(label)
+        return self.widths[label]
+
+
+def each_span(drawn_extent: Callable[[Span], tuple[float, float]],
+              inside_room: Callable[[Span], tuple[float, float] | None] | None = None
+              ) -> SpanMeasure:
+    """A `measure_spans` for `place` from functions of one span: its bar (start, end) in
+    days, and the part of it a label may sit on (None: no room), the whole bar by default."""
+    room = inside_room or drawn_extent
+
+    def measure_spans(spans: list[Span]) -> np.ndarray:
+        return np.array([(*drawn_extent(span), *(room(span) or _NO_ROOM)) for span in spans],
+                        dtype=float).reshape(-1, 4)
+
+    return measure_spans
+
+
+def _codes(values: list, distinct: dict) -> np.ndarray:
+    """The place of each value in `distinct` (in its order)."""
+    place = dict(zip(distinct, range(len(distinct))))
+    return np.fromiter(map(place.__getitem__, values), dtype=np.intp, count=len(values))
+
+
+_NO_ROOM = (math.nan, math.nan)
+_SPAN, _LABEL = attrgetter("span"), attrgetter("label")

@@ -458,6 +458,16 @@ def test_each_distinct_cell_is_parsed_once(monkeypatch):
     assert len(result.records) == 150 and len(result.problems) == 150
 
 
+def test_a_very_long_cell_is_quoted_by_its_start_and_kept_whole():
+    text = "1650 " + "x" * 5000
+    result = load_records(Table.from_rows("t.csv", ("name", "born"), (("Odile", text),)),
+                          ColumnMap(label="name", start="born"))
+    (problem,) = result.problems
+    assert problem.text == text
+    assert str(problem).startswith("t.csv:2:born: cannot read '1650 xxx")
+    assert "... (5,005 characters)" in str(problem) and len(str(problem)) < 250
+
+
 def test_problem_kind_is_checked():
     with pytest.raises(ValueError, match="kind must be one of"):
         Problem("t.csv", 2, "born", None, "x", "why", "oops")

@@ -56,7 +56,7 @@ class Problem:
     def __str__(self) -> str:
         who = f" [{self.id}]" if self.id else ""
         if self.kind == "error":
-            message = f"cannot read {self.text!r}: {self.reason}"
+            message = f"cannot read {_shown(self.text)}: {self.reason}"
         elif self.kind == "undated":
             message = f"no date: {self.reason}"
         else:
@@ -64,6 +64,16 @@ class Problem:
         if self.hint:
             message += f" ({self.hint})"
         return f"{self.location()}:{who} {message}"
+
+
+SHOWN_CHARACTERS = 60   # of a cell's text in a one-line message; the Problem keeps it all
+
+
+def _shown(text: str) -> str:
+    """The cell's text as a message quotes it: a very long cell only by its start and size."""
+    if len(text) <= SHOWN_CHARACTERS:
+        return repr(text)
+    return f"{text[:SHOWN_CHARACTERS]!r}... ({len(text):,} characters)"
 
 
 @dataclass(frozen=True, slots=True)

@@ -14,7 +14,9 @@ import pytest
 from hypothesis import given, settings as hypothesis_settings, strategies as st
 
 from timelines import lanes as lanes_report
+from timelines.chart import ChartOptions, arrange
 from timelines.cli import main
+from timelines.sources import ColumnMap
 
 FIXTURES = Path(__file__).parent / "fixtures"
 FOUNDERS = str(FIXTURES / "harrowmere-founders.csv")
@@ -237,3 +239,31 @@ def test_the_register_generator_is_deterministic(tmp_path):
 def test_day_text_prints_the_rounded_day_number(day):
     days = np.array([day, -day])
     assert lanes_report.day_texts(days) == list(map(str, lanes_report.day_numbers(days)))
+
+
+IDENTIFIERS = st.text(alphabet=st.sampled_from(list('ab1 ,"\'\r\n;é')), min_size=1, max_size=6)
+
+
+@hypothesis_settings(max_examples=60, deadline=None)
+@given(st.lists(st.tuples(IDENTIFIERS, IDENTIFIERS), min_size=1, max_size=6))
+def test_csv_ids_and_groups_read_back_as_written(tmp_path_factory, rows):
+    # RFC 4180: a field holding a comma, a quote or a line break is quoted, a quote doubled;
+    # the csv module reads the file back to the same cells.
+    table = tmp_path_factory.mktemp("quoting") / "people.csv"
+    with table.open("w", newline="", encoding="utf-8") as file:
+        writer = csv.writer(file)
+        writer.writerow(["ref", "start", "end", "kind"])
+        writer.writerows((ref, "1650", "1700", kind) for ref, kind in rows)
+    written = io.StringIO()
+    placement = main_placement(table)
+    lanes_report.write_csv(placement, written)
+    read = list(csv.reader(io.StringIO(written.getvalue(), newline="")))
+    assert read[0] == list(lanes_report.RECORD_COLUMNS)
+    assert sorted((row[1], row[2]) for row in read[1:]) == sorted(
+        (ref.strip(), kind.strip()) for ref, kind in rows)
+
+
+def main_placement(table: Path):
+    columns = ColumnMap(start="start", end="end", id="ref", label="ref", group="kind")
+    (placement,) = arrange(table, ChartOptions(columns=columns)).placements
+    return placement

@@ -1,10 +1,9 @@
 """One record on its lane: the bar (or the point), its signs and its label, as a Group.
 
-`drawn_spans` says where each part of each span is drawn on the axis (`drawn_span` for one);
-`draw_record` draws a record with the encoders of `encodings` and notes in `used` which marks
-occurred (for the legend). A span
-that a --from/--to window cuts short gets a zigzag at the edge (`cut_sides`), and the signs
-whose dates lie beyond the window are left out.
+`drawn_spans` says where each part of each span is drawn on the axis; `draw_record` draws a
+record with the encoders of `encodings` and notes in `used` which marks occurred (for the
+legend). A span that a --from/--to window cuts short gets a zigzag at the edge (`cut_sides`),
+and the signs whose dates lie beyond the window are left out.
 """
 from __future__ import annotations
 
@@ -60,11 +59,6 @@ _DRAWN_FIELDS = ("start_low", "start_high", "end_low", "end_high", "open_start",
                  "has_core")
 
 
-def drawn_span(span: Span, domain: tuple[float, float]) -> DrawnSpan:
-    """Where each part of one span is drawn (see drawn_spans)."""
-    return drawn_spans([span], domain).each()[0]
-
-
 def drawn_spans(spans: Sequence[Span], domain: tuple[float, float]) -> DrawnSpans:
     """Where each part of each span is drawn. Unbounded sides run to the axis edge; an
     unknown start reaches to the end's earliest bound (and an unknown end back to the start's
@@ -107,11 +101,10 @@ def _first_known(days: np.ndarray, otherwise) -> np.ndarray:
 
 
 def draw_record(placed: PlacedRecord, scale: TimeScale, theme: Theme, box: LaneBox, color: str,
-                used: set[str], geometry: DrawnSpan | None = None) -> Group:
-    """The record's marks; `geometry` is its drawn_span when the caller has it already."""
+                used: set[str], geometry: DrawnSpan) -> Group:
+    """The record's marks; `geometry` is where its span is drawn (one of drawn_spans)."""
     record = placed.record
     style = MarkStyle(color, theme.fringe_far_opacity, theme.text_color, theme.small_font_size)
-    geometry = geometry or drawn_span(record.span, (scale.start, scale.end))
     if record.span.is_point and not geometry.open_start and not geometry.open_end:
         parts = _point_marks(record.span, geometry, scale, box, style, used)
     else:

@@ -205,12 +205,12 @@ def _long_spans(records: tuple[Record, ...], limits: CheckLimits) -> list[Findin
         return []
     # Records read from one table share Span objects: each distinct one is measured once.
     spans = {id(record.span): record.span for record in records}
-    long_days = {key: days for key, days in ((key, _extent_days(span))
-                                             for key, span in spans.items())
-                 # Whole years, as the message says them: 1001-01-01..2000-12-31 is 1000.
-                 if days is not None and round(days / DAYS_PER_YEAR) > limits.max_extent_years}
-    if not long_days:
-        return []
+    long_days: dict[int, int] = {}
+    for key, span in spans.items():
+        days = _extent_days(span)
+        # Whole years, as the message says them: 1001-01-01..2000-12-31 is 1000.
+        if days is not None and round(days / DAYS_PER_YEAR) > limits.max_extent_years:
+            long_days[key] = days
     return [_long_span(record, long_days[id(record.span)], limits.max_extent_years)
             for record in records if id(record.span) in long_days]
 

@@ -246,8 +246,7 @@ def write_csv(placement: Placement, stream: TextIO) -> None:
             texts = [_csv_fields(column) for column in columns]
             stream.write("\n".join(map(",".join, zip(*texts))) + "\n")
     for row in _unplaced_rows(placement, day_texts):   # a few rows: one at a time
-        stream.write(",".join("" if cell is None else _csv_fields([cell])[0] for cell in row)
-                     + "\n")
+        stream.write(",".join(map(_csv_field, row)) + "\n")
 
 
 _CSV_SPECIAL = re.compile(r'[,"\r\n]')
@@ -260,10 +259,17 @@ def _csv_fields(column: list) -> list[str]:
         return list(map(str, column))
     if not _CSV_SPECIAL.search("".join(column)):
         return column                       # the usual case: nothing to quote
-    return [_quoted(cell) if _CSV_SPECIAL.search(cell) else cell for cell in column]
+    return list(map(_csv_field, column))
 
 
-def _quoted(cell: str) -> str:
+def _csv_field(cell: object) -> str:
+    """One cell as a CSV field (see _csv_fields); None is an empty cell."""
+    if cell is None:
+        return ""
+    if type(cell) is not str:
+        return str(cell)
+    if not _CSV_SPECIAL.search(cell):
+        return cell
     doubled = cell.replace('"', '""')
     return f'"{doubled}"'
 

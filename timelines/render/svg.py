@@ -62,8 +62,9 @@ def render_svg(scene: Scene, *, text: str = "text") -> str:
 
     `text="paths"` draws every text as glyph outlines instead of `<text>` (for print shops
     without the font); labels stay readable in each record's `<title>`."""
-    context = _Context(_new_drawing(scene), outlines=_choice(text, TEXT_MODES) == "paths",
-                       id_suffix=_chart_digest(scene))
+    digest = _chart_digest(scene)
+    context = _Context(_new_drawing(scene, digest),
+                       outlines=_choice(text, TEXT_MODES) == "paths", id_suffix=digest)
     for item in scene.children:
         _draw_into(context.drawing, item, context)
     if not context.gradients:
@@ -102,14 +103,14 @@ class _Context:
     id_suffix: str = ""             # ends every scene id (_chart_digest)
 
 
-def _new_drawing(scene: Scene) -> svgwrite.Drawing:
+def _new_drawing(scene: Scene, digest: str) -> svgwrite.Drawing:
     width, height = _number(scene.width), _number(scene.height)
     drawing = svgwrite.Drawing(
         size=(width, height), viewBox=f"0 0 {width} {height}", profile="full", debug=False,
     )
     drawing["role"] = "img"
     drawing["font-family"] = font_family_list(scene.font_family)
-    _describe_chart(drawing, scene)
+    _describe_chart(drawing, scene, digest)
     if scene.background is not None:
         drawing.add(drawing.rect(
             size=(width, height), fill=_colour(scene.background), class_="background",
@@ -117,9 +118,9 @@ def _new_drawing(scene: Scene) -> svgwrite.Drawing:
     return drawing
 
 
-def _describe_chart(drawing: svgwrite.Drawing, scene: Scene) -> None:
-    """Chart-level <title>/<desc> first in the root, named by aria-labelledby (SVG-AAM)."""
-    digest = _chart_digest(scene)
+def _describe_chart(drawing: svgwrite.Drawing, scene: Scene, digest: str) -> None:
+    """Chart-level <title>/<desc> first in the root, named by aria-labelledby (SVG-AAM); their
+    ids end with the chart's digest."""
     labels = [TITLE_ID + digest]
     title = Title(clean_text(scene.title))
     title.xml.set("id", labels[0])

@@ -24,6 +24,7 @@ import random
 import sys
 import tempfile
 import time
+from functools import partial
 from operator import attrgetter
 from pathlib import Path
 
@@ -34,16 +35,18 @@ ROOT = Path(__file__).resolve().parent.parent
 sys.path.insert(0, str(ROOT))
 sys.path.insert(0, str(ROOT / "gallery" / "register"))
 
-from timelines import lanes as lane_report  # noqa: E402
-from timelines.chart import (  # noqa: E402
-    ChartOptions, LaneSettings, chart_scale, lane_rules, lay_out,
-)
+import make_register  # noqa: E402
+
+from timelines.chart import ChartOptions, lay_out  # noqa: E402
 from timelines.check import check  # noqa: E402
 from timelines.dates import parse_column  # noqa: E402
-from timelines.layout import group_tree, max_overlap_depth, pack_lanes  # noqa: E402
+from timelines.layout import (  # noqa: E402
+    LaneSettings, group_tree, lane_rules, max_overlap_depth, pack_lanes,
+)
+from timelines.layout import report as lane_report  # noqa: E402
+from timelines.scene.measure import chart_scale  # noqa: E402
 from timelines.sources import ColumnMap, detect_columns, load_records, read_table  # noqa: E402
-
-import make_register  # noqa: E402
+from timelines.sources.fields import column_reader  # noqa: E402
 
 
 def spans(count: int, mean_days: float, seed: int = 1) -> list[tuple[float, float]]:
@@ -123,7 +126,7 @@ def bench_register(rows: int) -> None:
         dated = [r for r in loaded.records if r.span is not None]
 
         def layout():
-            rules, gap = lane_rules(options.lanes, columns, table.header)
+            rules, gap = lane_rules(options.lanes, partial(column_reader, columns, table.header))
             tree = group_tree(dated, attrgetter("group"), rules)
             scale = chart_scale(dated, options.theme, tree)
             return lay_out(loaded.records, scale, options.theme, rules, gap, tree=tree)

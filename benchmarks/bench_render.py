@@ -18,9 +18,10 @@ import time
 from pathlib import Path
 
 from timelines.calendar import fixed_from_gregorian
-from timelines.chart import build_scene, write
+from timelines.chart import build_scene
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
-from timelines.scene import GradientRect, Rect, walk
+from timelines.render import write
+from timelines.scene.primitives import GradientRect, Rect, walk
 
 DPI = 150.0
 

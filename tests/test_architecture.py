@@ -8,44 +8,23 @@ from pathlib import Path
 
 PACKAGE = Path(__file__).resolve().parent.parent / "timelines"
 
-# module -> the project modules it may import. A stage never reaches back upstream.
+# stage -> the project modules and stages it may import: only downward, never a later stage.
+# The root keeps the model (errors, calendar, model) and the pipeline (chart); each stage is a
+# package (DESIGN.md §2).
+MODEL = {"errors", "calendar", "model"}
 ALLOWED = {
     "errors": set(),
     "calendar": set(),
-    "theme": set(),
-    "scene": set(),
-    "textsize": set(),
-    "bulk": set(),                              # many slot objects at once, for speed
     "model": {"calendar", "errors"},
-    "dates": {"dates", "model", "calendar", "errors", "bulk"},
-    "sources": {"dates", "model", "calendar", "errors", "bulk"},
-    "check": {"model", "errors", "sources"},
-    "layout": {"model", "bulk"},
-    "scale": {"calendar"},
-    "encodings": {"model", "scale", "theme", "scene", "errors"},
-    "legend": {"encodings", "scale", "scene", "textsize", "theme"},
-    "compose": {"layout", "scale", "theme", "encodings", "scene", "legend", "model",
-                "calendar", "textsize", "axis", "bands", "bars"},
-    "bars": {"calendar", "encodings", "layout", "model", "scale", "scene", "theme"},
-    "lane_settings": {"config", "errors", "layout", "model", "sources"},
-    "axis": {"scale", "scene", "textsize", "theme"},            # the time axis and grid
-    "bands": {"encodings", "legend", "model", "scale", "scene", "textsize", "theme"},
-    "facets": {"compose", "layout", "legend", "model", "scale", "scene", "theme"},
-    "window": {"dates", "errors", "model"},                      # --from/--to
-    "page": {"config", "errors", "scene", "theme"},              # --size, --font-size
-    "render": {"scene"},
-    "chart": {"check", "compose", "dates", "errors", "layout", "model", "scale", "scene",
-              "sources", "textsize", "theme", "render", "calendar", "config", "privacy",
-              "facets", "page", "window", "bands", "bars", "lane_settings"},
-    "config": {"errors"},                       # stdlib (tomllib, argparse) and errors only
-    "lanes": {"calendar", "layout", "scale"},   # the `timelines lanes` report
-    "privacy": {"model", "calendar"},           # withholding possibly living persons' details
-    "cli": {"bulk", "chart", "check", "calendar", "dates", "encodings", "errors", "sources", "theme",
-            "__init__", "config", "layout", "lanes", "scene", "page", "window", "options"},
-    # the argparse parser; cli runs the commands
-    "options": {"chart", "config", "dates", "encodings", "errors", "layout", "page", "scene",
-                "theme", "__init__"},
-    "__init__": {"dates", "errors", "model"},
+    "dates": MODEL,                                      # the date language
+    "sources": MODEL | {"dates"},                        # read: tables -> records
+    "check": MODEL,                                      # counts, warnings, living persons
+    "layout": MODEL,                                     # groups, lanes, labels, the lanes report
+    "scene": MODEL | {"layout"},                         # marks in page units
+    "render": {"scene", "errors"},                       # renderers know only the scene
+    "chart": MODEL | {"dates", "sources", "check", "layout", "scene", "render"},
+    "cli": MODEL | {"dates", "sources", "check", "layout", "scene", "chart", "__init__"},
+    "__init__": MODEL | {"dates", "sources", "check", "layout", "scene", "render", "chart"},
     "__main__": {"cli"},
 }
 # third-party package -> the only modules allowed to import it
@@ -56,6 +35,9 @@ THIRD_PARTY = {
     "dateutil": {"dates"},
     "fontTools": {"render.outlines"},
 }
+# The stages as the tree shows them: the root holds only the model and the pipeline.
+ROOT_MODULES = {"__init__", "__main__", "errors", "calendar", "model", "chart"}
+STAGES = {"dates", "sources", "check", "layout", "scene", "render", "cli"}
 
 
 def _modules():
@@ -116,6 +98,24 @@ def test_heavy_libraries_stay_in_their_modules():
 
 def test_every_module_has_a_rule():
     assert {parts[0] for _, parts, _ in _modules()} <= set(ALLOWED)
+
+
+def test_the_tree_shows_the_pipeline():
+    """The root holds the model and the pipeline; every other module lives in its stage."""
+    root = {path.stem for path in PACKAGE.glob("*.py")}
+    packages = {path.parent.name for path in PACKAGE.glob("*/__init__.py")}
+    assert root == ROOT_MODULES
+    assert packages == STAGES
+
+
+def test_the_renderers_contract_is_light():
+    """Importing the scene package (what a renderer imports) loads only the primitives."""
+    script = ("import sys, timelines.scene\n"
+              "loaded = sorted(m for m in sys.modules if m.startswith('timelines.scene.'))\n"
+              "assert loaded == ['timelines.scene.primitives'], loaded\n"
+              "assert 'timelines.layout' not in sys.modules\n")
+    done = subprocess.run([sys.executable, "-c", script], capture_output=True, text=True)
+    assert done.returncode == 0, done.stderr
 
 
 def test_svg_path_does_not_load_matplotlib(tmp_path):

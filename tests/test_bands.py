@@ -6,16 +6,17 @@ import xml.etree.ElementTree as ET
 
 import pytest
 
-from timelines import encodings as marks
-from timelines.bands import band_bounds, on_axis, place_bands
 from timelines.calendar import fixed_from_gregorian as day
-from timelines.chart import build_scene, chart_scale
-from timelines.cli import main
-from timelines.encodings import EndWindow, LaneBox
+from timelines.chart import build_scene
+from timelines.cli.commands import main
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
-from timelines.scale import TimeScale
-from timelines.scene import GradientRect, Group, Rect, Text, find, walk
-from timelines.theme import DEFAULT_THEME
+from timelines.scene import encodings as marks
+from timelines.scene.bands import band_bounds, on_axis, place_bands
+from timelines.scene.encodings import EndWindow, LaneBox
+from timelines.scene.measure import chart_scale
+from timelines.scene.primitives import GradientRect, Group, Rect, Text, find, walk
+from timelines.scene.scale import TimeScale
+from timelines.scene.theme import DEFAULT_THEME
 
 SVG = "{http://www.w3.org/2000/svg}"
 SCALE = TimeScale(0.0, 100.0, 50.0, 250.0)     # 2 px per day, x = 50 + 2 * day

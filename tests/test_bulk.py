@@ -1,4 +1,4 @@
-"""bulk.many makes the same objects as the dataclass's own constructor, only faster."""
+"""model.many makes the same objects as the dataclass's own constructor, only faster."""
 from __future__ import annotations
 
 import dataclasses
@@ -7,8 +7,7 @@ from itertools import repeat
 
 import pytest
 
-from timelines.bulk import collection_paused, many
-from timelines.model import Endpoint, Provenance, Record, Span
+from timelines.model import Endpoint, Provenance, Record, Span, collection_paused, many
 
 
 def test_many_equals_the_constructor_field_by_field():

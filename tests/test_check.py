@@ -5,7 +5,7 @@ import json
 from dataclasses import dataclass
 from datetime import date
 
-from timelines.check import CheckLimits, Finding, check
+from timelines.check.report import CheckLimits, Finding, check
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
 
 

@@ -8,7 +8,7 @@ from pathlib import Path
 
 import pytest
 
-from timelines.cli import main
+from timelines.cli.commands import main
 
 FIXTURES = Path(__file__).parent / "fixtures"
 SVG = "{http://www.w3.org/2000/svg}"

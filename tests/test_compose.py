@@ -4,11 +4,21 @@ from __future__ import annotations
 import pytest
 
 from timelines.calendar import fixed_from_gregorian as day
-from timelines.chart import build_scene, chart_scale
-from timelines.encodings import SEAM_OVERLAP
+from timelines.chart import build_scene
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
-from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Text, find, walk
-from timelines.theme import DEFAULT_THEME
+from timelines.scene.encodings import SEAM_OVERLAP
+from timelines.scene.measure import chart_scale
+from timelines.scene.primitives import (
+    GradientRect,
+    Group,
+    Line,
+    Polygon,
+    Rect,
+    Text,
+    find,
+    walk,
+)
+from timelines.scene.theme import DEFAULT_THEME
 
 
 def year(y: int, *qualifiers: Qualifier) -> Endpoint:

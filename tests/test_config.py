@@ -11,12 +11,19 @@ from pathlib import Path
 
 import pytest
 
-from timelines.cli import main
-from timelines.config import (
-    COMMAND_LINE, CONFIG_FILE, DEFAULT, Setting, check_keys, config_lines, merge,
-    parse_distance, read_config,
+from timelines.cli.commands import main
+from timelines.cli.config import (
+    COMMAND_LINE,
+    CONFIG_FILE,
+    DEFAULT,
+    Setting,
+    check_keys,
+    config_lines,
+    merge,
+    read_config,
 )
 from timelines.errors import UsageError
+from timelines.layout.distances import parse_distance
 
 FIXTURES = Path(__file__).parent / "fixtures"
 FOUNDERS = str(FIXTURES / "harrowmere-founders.csv")

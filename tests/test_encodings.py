@@ -3,11 +3,11 @@ from __future__ import annotations
 
 import pytest
 
-from timelines import encodings as marks
-from timelines.encodings import EndWindow, LaneBox, MarkStyle
 from timelines.errors import UsageError
-from timelines.scale import TimeScale
-from timelines.scene import GradientRect, Line, Polygon, Rect, Text
+from timelines.scene import encodings as marks
+from timelines.scene.encodings import EndWindow, LaneBox, MarkStyle
+from timelines.scene.primitives import GradientRect, Line, Polygon, Rect, Text
+from timelines.scene.scale import TimeScale
 
 SCALE = TimeScale(0.0, 100.0, 50.0, 250.0)   # 2 px per day, x = 50 + 2 * day
 LANE = LaneBox(10.0, 12.0)

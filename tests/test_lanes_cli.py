@@ -11,11 +11,13 @@ from pathlib import Path
 
 import numpy as np
 import pytest
-from hypothesis import given, settings as hypothesis_settings, strategies as st
+from hypothesis import given
+from hypothesis import settings as hypothesis_settings
+from hypothesis import strategies as st
 
-from timelines import lanes as lanes_report
 from timelines.chart import ChartOptions, arrange
-from timelines.cli import main
+from timelines.cli.commands import main
+from timelines.layout import report as lanes_report
 from timelines.sources import ColumnMap
 
 FIXTURES = Path(__file__).parent / "fixtures"

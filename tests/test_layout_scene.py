@@ -11,10 +11,20 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from timelines.calendar import fixed_from_gregorian as day
-from timelines.chart import LaneSettings, build_scene
+from timelines.chart import build_scene
+from timelines.layout.settings import LaneSettings
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
-from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Text, find, walk
-from timelines.textsize import text_ascent, text_descent, text_width
+from timelines.scene.primitives import (
+    GradientRect,
+    Group,
+    Line,
+    Polygon,
+    Rect,
+    Text,
+    find,
+    walk,
+)
+from timelines.scene.textsize import text_ascent, text_descent, text_width
 
 
 def year(y: int, *qualifiers: Qualifier) -> Endpoint:
@@ -183,7 +193,7 @@ def random_records(draw):
 @given(random_records(), st.sampled_from(["compact", "ordered", "single"]),
        st.sampled_from(["3px", "0px", "2y"]), st.sampled_from([700.0, 960.0]))
 def test_labels_never_collide_with_other_labels_or_marks(records, pack, gap, width):
-    from timelines.theme import DEFAULT_THEME
+    from timelines.scene.theme import DEFAULT_THEME
     scene = build_scene(records, DEFAULT_THEME.with_options(width=width),
                         lanes=LaneSettings(pack=pack, lane_gap=gap, sort="label"))
     groups = records_in(scene)

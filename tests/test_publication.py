@@ -7,21 +7,28 @@ import xml.etree.ElementTree as ET
 
 import pytest
 
-from timelines.axis import axis_ticks
 from timelines.calendar import fixed_from_gregorian as day
-from timelines.chart import build_scene, write
-from timelines.cli import main
-from timelines.compose import ChartText
+from timelines.chart import build_scene
+from timelines.cli.commands import main
 from timelines.errors import UsageError
 from timelines.model import Endpoint, Precision, Provenance, Record, Span
-from timelines.page import (
-    MIN_BAR_GAP, PageSize, fit_height, font_note, length_text, parse_font_size, parse_size,
+from timelines.render import write
+from timelines.scene.axis import axis_ticks
+from timelines.scene.compose import ChartText
+from timelines.scene.page import (
+    MIN_BAR_GAP,
+    PageSize,
+    fit_height,
+    font_note,
+    length_text,
+    parse_font_size,
+    parse_size,
     png_dpi,
 )
-from timelines.scale import TimeScale
-from timelines.scene import Rect, Scene, Text, find, walk
-from timelines.textsize import text_width
-from timelines.theme import DEFAULT_THEME, lightness
+from timelines.scene.primitives import Rect, Scene, Text, find, walk
+from timelines.scene.scale import TimeScale
+from timelines.scene.textsize import text_width
+from timelines.scene.theme import DEFAULT_THEME, lightness
 
 SVG = "{http://www.w3.org/2000/svg}"
 # CSS Values and Units Level 3, §5.2: 1in = 2.54cm = 25.4mm = 96px = 72pt.

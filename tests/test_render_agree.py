@@ -24,11 +24,25 @@ from matplotlib.font_manager import FontProperties, findfont
 from matplotlib.ft2font import FT2Font
 from PIL import Image
 
-from timelines import textsize
 from timelines.render.mpl import render_pdf, render_png
 from timelines.render.svg import render_svg
-from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Scene, Text
-from timelines.textsize import cap_height, text_ascent, text_descent, text_height, text_width
+from timelines.scene import textsize
+from timelines.scene.primitives import (
+    GradientRect,
+    Group,
+    Line,
+    Polygon,
+    Rect,
+    Scene,
+    Text,
+)
+from timelines.scene.textsize import (
+    cap_height,
+    text_ascent,
+    text_descent,
+    text_height,
+    text_width,
+)
 
 ROOT = Path(__file__).resolve().parent.parent
 
@@ -241,7 +255,7 @@ def test_the_table_in_the_module_is_what_the_generator_makes():
                                                   "make_textsize.py")
     generator = importlib.util.module_from_spec(spec)
     spec.loader.exec_module(generator)
-    module_text = (ROOT / "timelines" / "textsize.py").read_text(encoding="utf-8")
+    module_text = (ROOT / "timelines" / "scene" / "textsize.py").read_text(encoding="utf-8")
     block = re.escape(generator.START) + ".*?" + re.escape(generator.END)
     expected = generator.generated_block()
     # The header line names the matplotlib version; the numbers are what must not drift.
@@ -251,7 +265,7 @@ def test_the_table_in_the_module_is_what_the_generator_makes():
 
 
 def test_textsize_needs_only_the_standard_library():
-    tree = ast.parse((ROOT / "timelines" / "textsize.py").read_text(encoding="utf-8"))
+    tree = ast.parse((ROOT / "timelines" / "scene" / "textsize.py").read_text(encoding="utf-8"))
     imported = {alias.name for node in ast.walk(tree) if isinstance(node, ast.Import)
                 for alias in node.names}
     imported |= {node.module for node in ast.walk(tree) if isinstance(node, ast.ImportFrom)}

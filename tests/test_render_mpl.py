@@ -17,7 +17,15 @@ import pytest
 from PIL import Image
 
 from timelines.render.mpl import render_pdf, render_png
-from timelines.scene import GradientRect, Group, Line, Polygon, Rect, Scene, Text
+from timelines.scene.primitives import (
+    GradientRect,
+    Group,
+    Line,
+    Polygon,
+    Rect,
+    Scene,
+    Text,
+)
 
 HERE = Path(__file__).resolve().parent
 PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"  # PNG specification (ISO/IEC 15948), section 5.2
@@ -250,8 +258,8 @@ def test_png_text_stays_inside_the_room_layout_reserves(tmp_path):
     # Layout reserves textsize.text_width times the hinting allowance; the PNG stays inside.
     from PIL import Image
 
-    from timelines.chart import RENDERED_WIDTH_ALLOWANCE
-    from timelines.textsize import text_width
+    from timelines.scene.measure import RENDERED_WIDTH_ALLOWANCE
+    from timelines.scene.textsize import text_width
 
     label = "Chamber organ for the Brightwater rooms, 1650-1720 and more words"
     path = tmp_path / "wide.png"

@@ -8,8 +8,8 @@ import pytest
 
 from timelines.render.outlines import outliner
 from timelines.render.svg import render_svg
-from timelines.scene import Group, Rect, Scene, Text
-from timelines.textsize import text_width
+from timelines.scene.primitives import Group, Rect, Scene, Text
+from timelines.scene.textsize import text_width
 
 SVG = "{http://www.w3.org/2000/svg}"
 

@@ -7,17 +7,25 @@ import xml.etree.ElementTree as ET
 
 import pytest
 
-from timelines import encodings as marks
-from timelines.bars import cut_sides
 from timelines.calendar import fixed_from_gregorian as day
-from timelines.chart import build_scene
-from timelines.cli import main
-from timelines.encodings import LaneBox, MarkStyle
+from timelines.chart import build_scene, parse_window
+from timelines.cli.commands import main
 from timelines.errors import UsageError
+from timelines.layout.window import TimeWindow, outside_note, split_by_window
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
-from timelines.scale import TimeScale
-from timelines.scene import GradientRect, Group, Polygon, Rect, Text, find, walk
-from timelines.window import TimeWindow, outside_note, parse_window, split_by_window
+from timelines.scene import encodings as marks
+from timelines.scene.bars import cut_sides
+from timelines.scene.encodings import LaneBox, MarkStyle
+from timelines.scene.primitives import (
+    GradientRect,
+    Group,
+    Polygon,
+    Rect,
+    Text,
+    find,
+    walk,
+)
+from timelines.scene.scale import TimeScale
 
 SVG = "{http://www.w3.org/2000/svg}"
 

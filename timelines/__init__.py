@@ -4,16 +4,20 @@ The pipeline runs one way, each stage a pure function of the one before plus opt
 
     table file --read--> rows --parse--> Records --check--> Report
                                    |
-                                   +--layout--> Placement --compose--> Scene --render--> SVG/PNG/PDF
+                                   +--layout--> Placement --scene--> Scene --render--> SVG/PNG/PDF
 
-- `calendar`: integer fixed day numbers (R.D.), Gregorian and Julian, BC/BCE years.
-- `model`: frozen `Endpoint` (earliest/latest window, precision, qualifiers), `Span`, `Record`.
+The root keeps the model and the pipeline; each stage is a package that imports only the ones
+before it:
+
+- `errors`, `calendar` (integer fixed day numbers, Gregorian and Julian, BC/BCE years) and
+  `model` (frozen `Endpoint`, `Span`, `Record`): what every stage shares.
 - `dates`: the date language (ISO 8601-1/-2 and historians' free text) -> endpoints and spans.
 - `sources`: CSV/TSV/XLSX/ODS -> records, every unreadable cell reported with row and column.
-- `check`: counts and warnings. `layout`: groups and lanes. `scale`: days -> page x, ticks.
-- `encodings`, `compose`, `legend`: marks -> a renderer-neutral `Scene`.
-- `render.svg` (svgwrite) and `render.mpl` (matplotlib): Scene -> files.
-- `chart.render()` runs it all; `cli` is a thin command line over it.
+- `check`: counts and warnings; withholding possibly living persons' details.
+- `layout`: groups, lanes and labels in fixed days; the user's lane settings; the lanes report.
+- `scene`: scale, ticks, marks, legend -> a renderer-neutral `Scene` of primitives.
+- `render`: Scene -> SVG (svgwrite), PNG and PDF (matplotlib).
+- `chart`: the whole job in named steps; `cli`: a thin command line over it.
 """
 __version__ = "0.1.0"
 

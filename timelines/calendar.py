@@ -2,11 +2,14 @@
 
 R.D. 1 is Gregorian 0001-01-01, the same count as `datetime.date.toordinal()` (Reingold &
 Dershowitz, *Calendrical Calculations*). Years are astronomical inside (year 0 = 1 BC,
-year -43 = 44 BC); BC/BCE labels exist only at the edges (`year_label`, `astronomical_year`).
+year -43 = 44 BC); BC/BCE labels exist only at the edges (`year_label`, `year_text`,
+`astronomical_year`).
 Every function works for any integer year; Python's floor division keeps the formulas valid
 before year 1.
 """
 from __future__ import annotations
+
+import re
 
 GREGORIAN_EPOCH = 1  # R.D. of Gregorian 0001-01-01
 JULIAN_EPOCH = -1    # R.D. of Julian 0001-01-01 (= Gregorian 0000-12-30)
@@ -196,6 +199,10 @@ def astronomical_year(year: int, era: str) -> int:
 
 
 YEAR_STYLES = ("bce", "bc", "astronomical")
+ERAS = ("bce", "bc", "astronomical", "bp")
+# Radiocarbon convention: "present" is AD 1950 (Stuiver & Polach 1977, "Discussion: reporting
+# of 14C data", Radiocarbon 19(3), from memory).
+PRESENT_YEAR = 1950
 
 
 def year_label(year: int, style: str = "bce") -> str:
@@ -251,3 +258,27 @@ def fixed_from_ordinal_date(year: int, day_of_year: int) -> int:
     if not 1 <= day_of_year <= length:
         raise ValueError(f"day {day_of_year} does not exist in {year} (it has {length} days)")
     return fixed_from_gregorian(year, 1, 1) + day_of_year - 1
+
+
+def before_present_label(years: int) -> str:
+    """'5500 BP', '12,500 BP', '120 ka', '65 Ma': thousands (ka) from 100,000 years and
+    millions (Ma) from 1,000,000, as archaeologists and geologists write them (common practice,
+    no source)."""
+    if abs(years) >= 1_000_000:
+        return f"{years / 1_000_000:g} Ma"
+    if abs(years) >= 100_000:
+        return f"{years / 1000:g} ka"
+    return f"{years:,} BP" if abs(years) >= 10_000 else f"{years} BP"
+
+
+def year_text(year: int, era: str = "bce", *, mark_common_era: bool = False) -> str:
+    """A year as an axis or a summary writes it, in any of ERAS: `year_label` with thousands
+    separators from 10,000 on (four-digit years are written without: common practice, no
+    source), or years before present. `mark_common_era` writes "5 CE" / "AD 5" where a bare
+    year would be misread (beside a day and month, or at the era boundary)."""
+    if era == "bp":
+        return before_present_label(PRESENT_YEAR - year)
+    text = re.sub(r"\d{5,}", lambda m: f"{int(m.group()):,}", year_label(year, era))
+    if mark_common_era and year > 0 and era != "astronomical":
+        return f"{text} CE" if era == "bce" else f"AD {text}"
+    return text

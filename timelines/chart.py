@@ -3,53 +3,60 @@
 `render()` is what `timelines render` runs; `arrange()` stops after the layout (what
 `timelines lanes` reports); `build_scene()` is the part after the records exist, for callers
 who make records themselves. The user's lane options arrive by name (`LaneSettings`, made into
-the layout's rules by `lane_settings`). Around the lanes: the time window of --from/--to
-(`window`), background bands from a second table (`bands`), one panel per value of a facet
-column (`facets`) and the page size the chart is fitted to (`page`).
+the layout's rules by `layout.settings`). Around the lanes: the time window of --from/--to
+(`layout.window`, its dates read by `parse_window`), background bands from a second table
+(`scene.bands`), one panel per value of a facet column (`scene.facets`) and the page size the
+chart is fitted to (`scene.page`).
 """
 from __future__ import annotations
 
 from dataclasses import dataclass, field, replace
+from functools import partial
 from operator import attrgetter
 from pathlib import Path
 from typing import Callable, Iterable
 
-import numpy as np
-
-from .bands import on_axis
-from .check import Report, check
-from .bars import drawn_spans, qualifier_kind
-from .compose import SUBGROUP_INDENT, ChartText, compose, title_height
-from .facets import Panel, compose_facets, panel_width
-from .config import Distance, parse_distance
-from .dates import DEFAULT_SETTINGS, DateSettings
-from .errors import TimelineError, UsageError
-from .lane_settings import LaneSettings, column_reader, lane_rules
-from .layout import GroupNode, LaneRules, Placement, UnknownGroup, group_records, group_tree, place
+from .check.living import withhold_possibly_living
+from .check.report import Report, check
+from .dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
+from .errors import TimelineError, UsageError, did_you_mean
+from .layout import (
+    GroupNode,
+    LaneRules,
+    LaneSettings,
+    Placement,
+    TimeWindow,
+    UnknownGroup,
+    group_records,
+    group_tree,
+    lane_rules,
+    place,
+    split_by_window,
+)
+from .layout.distances import Distance, parse_distance
 from .model import Record
-from .page import FittedPage, PageSize, fit_height, font_note
-from .privacy import withhold_possibly_living
-from .scale import TimeScale, nice_domain
-from .scene import Scene
+from .render import output_format, write
+from .scene.bands import on_axis
+from .scene.compose import ChartText, color_key, compose, title_height
+from .scene.facets import Panel, compose_facets, panel_width
+from .scene.measure import (
+    LABEL_CLEARANCE,
+    chart_scale,
+    days_per_px,
+    drawn_measure,
+    label_width,
+)
+from .scene.page import FittedPage, PageSize, fit_height, font_note
+from .scene.primitives import Scene
+from .scene.scale import TimeScale
+from .scene.theme import DEFAULT_THEME, Theme
 from .sources import ColumnMap, LoadResult, detect_columns, load_records, read_table
 from .sources import read_records as read_table_records
-from .sources.columns import did_you_mean, existing_column
-from .textsize import text_width
-from .theme import DEFAULT_THEME, Theme
-from .window import TimeWindow, split_by_window
-
-# Renderers that hint glyphs (Agg for PNG, cairo) set a line up to about 4% wider than the
-# font's own advances (measured here: a 12 px line 3.5% wider in our PNG); labels get that
-# room so a label never touches the next bar in any output.
-RENDERED_WIDTH_ALLOWANCE = 1.04
-
-FORMATS = (".svg", ".png", ".pdf")
-# Room kept free beyond a label beside its bar, in label pads: with the lane gap it puts the
-# next bar three times as far from the label as the label's own bar, so proximity says which
-# bar a label names (Gestalt law of proximity; the factor is common practice, no source).
-LABEL_CLEARANCE = 2.0
+from .sources.columns import existing_column
+from .sources.fields import column_reader
 
 _GROUP = attrgetter("group")   # a record's group: the C-level getter, called per record
+
 
 @dataclass(frozen=True, slots=True)
 class ChartOptions:
@@ -74,7 +81,7 @@ class ChartOptions:
 
 @dataclass(frozen=True, slots=True)
 class Privacy:
-    """Withhold the details of possibly living persons (see `privacy`, docs/privacy.md)."""
+    """Withhold the details of possibly living persons (see `check.living`, docs/privacy.md)."""
 
     as_of_year: int
     years: int = 100
@@ -176,7 +183,7 @@ def arrange(source: str | Path, options: ChartOptions = ChartOptions()) -> Arran
     dated = [r for r in kept if r.span is not None]
     if not dated:
         return arranged
-    rules, gap = lane_rules(options.lanes, columns, table.header)
+    rules, gap = lane_rules(options.lanes, partial(column_reader, columns, table.header))
     if options.facet:
         return _arrange_panels(arranged, dated, options, table.header, rules, gap)
     tree = _group_tree(dated, rules)
@@ -268,7 +275,7 @@ def build_scene(records: Iterable[Record], theme: Theme = DEFAULT_THEME, title: 
     dated = [r for r in kept if r.span is not None]
     if not dated:
         raise TimelineError("nothing to draw: no row has a usable date")
-    rules, gap = lane_rules(lanes, columns, None)
+    rules, gap = lane_rules(lanes, partial(column_reader, columns, None))
     tree = _group_tree(dated, rules)
     scale = chart_scale(dated, theme, tree, window)                             # scale
     placement = lay_out(kept, scale, theme, rules, gap, lanes.labels, tree)     # layout
@@ -290,48 +297,6 @@ def placement_scene(records: Iterable[Record], placement: Placement, scale: Time
                    plot_top=title_height(text, theme) + 8, bands=tuple(bands))
 
 
-def chart_scale(dated: list[Record], theme: Theme,
-                tree: Iterable[GroupNode] | None = None,
-                window: TimeWindow | None = None) -> TimeScale:
-    """The time axis over every bound of the dated records (or the --from/--to window),
-    right of the group names."""
-    spans = [r.span for r in dated]
-    # Records read from one table share Span objects: each distinct one is looked at once.
-    bounds = [day for span in dict(zip(map(id, spans), spans)).values()
-              for day in (span.start.earliest, span.start.latest, span.end.earliest,
-                          span.end.latest) if day is not None]
-    low, high = nice_domain(min(bounds), max(bounds), era=theme.era)
-    if window is not None:
-        low, high = window.domain(low, high)
-    if high <= low:
-        raise UsageError(f"no record reaches into the window --from {window.start_text!r} "
-                         f"--to {window.end_text!r}", hint="give both --from and --to")
-    if tree is None:
-        tree = _group_tree(dated, LaneRules())
-    left = theme.margin + group_column_width(tree, theme)
-    return TimeScale(low, high, left, theme.width - theme.margin)
-
-
-def group_column_width(tree: Iterable[GroupNode], theme: Theme) -> float:
-    """Room left of the axis for the names of the groups that hold lanes: group names in
-    bold; with subgroups, the subgroup names (their groups get a header row of their own)."""
-    tree = list(tree)
-    if not any(node.name for node in tree):
-        return 0.0
-    widths = [0.0]
-    for node in tree:
-        if node.subgroups:
-            widths += [SUBGROUP_INDENT + text_width(_caption(sub.name), theme.group_label_size)
-                       for sub in node.subgroups]
-        else:
-            widths.append(text_width(_caption(node.name), theme.group_label_size, "bold"))
-    return min(max(widths) + 12, theme.width * 0.3)
-
-
-def _caption(name: str) -> str:
-    return name or "(none)"
-
-
 def _group_tree(records: list[Record], rules: LaneRules,
                 group_of: Callable[[Record], str | None] = _GROUP
                 ) -> tuple[GroupNode, ...]:
@@ -346,75 +311,42 @@ def lay_out(records: list[Record], scale: TimeScale, theme: Theme,
             labels: str = "beside", tree: tuple[GroupNode, ...] | None = None) -> Placement:
     """Pack on what is drawn: each bar with its fringes, open ends and the signs beside it,
     labels measured in the renderers' font. `tree`: the groups, when already made."""
-    days_per_px = (scale.end - scale.start) / (scale.x1 - scale.x0)
+    per_px = days_per_px(scale)
     try:
         return place(records, domain=(scale.start, scale.end),
-                     measure_spans=_drawn_measure(scale, theme, days_per_px),
-                     label_width=lambda label: (text_width(label, theme.font_size)
-                                                * RENDERED_WIDTH_ALLOWANCE * days_per_px),
-                     group_key=_GROUP, gap=gap.days(days_per_px),
-                     label_pad=theme.label_pad * days_per_px,
-                     label_clearance=LABEL_CLEARANCE * theme.label_pad * days_per_px,
+                     measure_spans=drawn_measure(scale, theme),
+                     label_width=label_width(scale, theme),
+                     group_key=_GROUP, gap=gap.days(per_px),
+                     label_pad=theme.label_pad * per_px,
+                     label_clearance=LABEL_CLEARANCE * theme.label_pad * per_px,
                      labels=labels, rules=rules, tree=tree)
     except UnknownGroup as error:
         raise UsageError(str(error), hint=did_you_mean(error.name, error.known)) from error
 
 
-def _drawn_measure(scale: TimeScale, theme: Theme, days_per_px: float):
-    """A `measure_spans` for place(): each span's drawn extent, signs beside it included, and
-    the room for a label on it (its solid core, where the label's contrast is known), in
-    days."""
-    # the widest qualifier sign, '~?', sits beside a bar end
-    mark_room = (text_width("~?", theme.small_font_size, "bold") + 3) * days_per_px
-    marker = theme.bar_height * 0.6 * days_per_px
-    domain = (scale.start, scale.end)
-    sign_room: dict[frozenset, float] = {}   # by an endpoint's qualifiers: few distinct sets
-
-    def room_for_sign(endpoint) -> float:
-        found = sign_room.get(endpoint.qualifiers)
-        if found is None:
-            has_sign = qualifier_kind(endpoint.qualifiers) is not None
-            found = sign_room[endpoint.qualifiers] = mark_room if has_sign else 0.0
-        return found
-
-    def measure_spans(spans: list) -> np.ndarray:
-        drawn = drawn_spans(spans, domain)
-        count = len(spans)
-        before = np.fromiter((room_for_sign(span.start) for span in spans), float, count)
-        after = np.fromiter((room_for_sign(span.end) for span in spans), float, count)
-        point = np.fromiter((span.is_point for span in spans), bool, count)
-        # a diamond is wider than its day; its sign stands on the right
-        low = np.where(point, drawn.start_low - marker, drawn.start_low - before)
-        high = np.where(point, drawn.end_high + marker + after, drawn.end_high + after)
-        room_low = np.where(drawn.has_core, drawn.start_high, np.nan)
-        room_high = np.where(drawn.has_core, drawn.end_low, np.nan)
-        return np.column_stack((low, high, room_low, room_high))
-
-    return measure_spans
+def parse_window(start_text: str | None, end_text: str | None,
+                 settings: DateSettings = DEFAULT_SETTINGS) -> TimeWindow | None:
+    """The window of `--from`/`--to` texts (None when neither is given)."""
+    if not start_text and not end_text:
+        return None
+    start = _window_bound(start_text, "--from", settings, earliest=True)
+    end = _window_bound(end_text, "--to", settings, earliest=False)
+    return TimeWindow(start, end, start_text or "", end_text or "")
 
 
-def color_key(records: list[Record], theme: Theme) -> tuple[tuple[str, str], ...]:
-    values = list(dict.fromkeys(r.color for r in records if r.color))
-    return tuple((value, theme.color_for(i)) for i, value in enumerate(values))
-
-
-def output_format(path: str | Path) -> str:
-    path = Path(path)
-    suffix = path.suffix.lower()
-    if suffix not in FORMATS:
-        raise UsageError(f"cannot write {path.name!r}: the output must end in .svg, .png or .pdf")
-    return suffix
-
-
-def write(scene: Scene, path: str | Path, dpi: float = 150.0, text: str = "text") -> None:
-    path = Path(path)
-    suffix = output_format(path)
-    if suffix == ".svg":
-        from .render.svg import write_svg
-        write_svg(scene, path, text=text)
-    elif suffix == ".png":
-        from .render.mpl import render_png
-        render_png(scene, path, dpi=dpi)
-    else:
-        from .render.mpl import render_pdf
-        render_pdf(scene, path)
+def _window_bound(text: str | None, option: str, settings: DateSettings, *,
+                  earliest: bool) -> int | None:
+    if not text:
+        return None
+    try:
+        endpoint = parse_endpoint(text, settings)
+    except DateError as error:
+        raise UsageError(f"{option}: cannot read {text!r}: {error.reason}",
+                         hint=error.hint or "give a date such as 1650, 1650-06 or 44 BC"
+                         ) from error
+    day = endpoint.earliest if earliest else endpoint.latest
+    if day is None:
+        side = "start" if earliest else "end"
+        raise UsageError(f"{option} {text!r} has no day to {side} the axis at",
+                         hint="give a bounded date such as 1650")
+    return day

@@ -1,6 +1,9 @@
 """Exceptions. The library raises these and never prints; the CLI reports them in one place."""
 from __future__ import annotations
 
+import difflib
+from collections.abc import Iterable
+
 
 class TimelineError(Exception):
     """Base of every error the library raises on purpose."""
@@ -71,3 +74,13 @@ class DateError(ValueError, TimelineError):
         if self.hint:
             message += f" ({self.hint})"
         return message
+
+
+def did_you_mean(name: str, choices: Iterable[str]) -> str | None:
+    """A hint naming the choices closest to `name` (letter case aside), or None."""
+    choices = list(choices)
+    by_folded = {choice.casefold(): choice for choice in choices}
+    close = difflib.get_close_matches(name.casefold(), list(by_folded), n=3, cutoff=0.6)
+    if not close:
+        return None
+    return "did you mean " + " or ".join(repr(by_folded[match]) for match in close) + "?"

@@ -3,8 +3,8 @@ approximate and bounded ends on an axis labelled BC."""
 from pathlib import Path
 
 from timelines.chart import ChartOptions, render
+from timelines.scene.theme import DEFAULT_THEME
 from timelines.sources import ColumnMap
-from timelines.theme import DEFAULT_THEME
 
 HERE = Path(__file__).parent
 TABLE = HERE / "essar-kings.csv"

@@ -7,8 +7,8 @@ anyone who may still be living (for example, everyone born in the last 100 years
 from pathlib import Path
 
 from timelines.chart import ChartOptions, render
+from timelines.scene.theme import DEFAULT_THEME
 from timelines.sources import ColumnMap
-from timelines.theme import DEFAULT_THEME
 
 HERE = Path(__file__).parent
 TABLE = HERE / "marrable.csv"

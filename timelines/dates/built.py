@@ -8,8 +8,7 @@ like the same value made the ordinary way (tests/test_dates_built.py checks it).
 """
 from __future__ import annotations
 
-from ..bulk import many
-from ..model import Endpoint, Precision, Span
+from ..model import Endpoint, Precision, Span, many
 
 _NEW = object.__new__
 _NO_QUALIFIERS: frozenset = frozenset()

@@ -18,6 +18,7 @@ import numpy as np
 from ..model import Record, Span
 from .labels import label_boxes
 
+
 @dataclass(frozen=True, slots=True)
 class Boxes:
     """The boxes of a group's records, as arrays: where each box and bar lie (days) and the

@@ -33,16 +33,26 @@ from operator import attrgetter
 
 import numpy as np
 
-from ..bulk import collection_paused, many
-from ..model import Record
-from .grouping import (
-    GROUP_ORDERS, GroupKey, GroupOrder, check_listed_names, collect_groups, merge_small_groups,
-    natural_key, order_groups,
-)
+from ..model import Record, collection_paused, many
 from .boxes import Boxes, BoxMeasure, SpanMeasure
+from .grouping import (
+    GROUP_ORDERS,
+    GroupKey,
+    GroupOrder,
+    check_listed_names,
+    collect_groups,
+    merge_small_groups,
+    natural_key,
+    order_groups,
+)
 from .labels import LABEL_MODES, LABEL_SIDES
 from .packing import (
-    LEFT_OUT, check_distance, first_fit, max_overlap_depth, most_that_fit, pack_lanes,
+    LEFT_OUT,
+    check_distance,
+    first_fit,
+    max_overlap_depth,
+    most_that_fit,
+    pack_lanes,
 )
 
 PACKINGS = ("compact", "ordered", "single")

@@ -26,9 +26,18 @@ from pathlib import Path
 import numpy
 
 from timelines.render.png import PNG_KEYWORD, write_png
-from timelines.scene import (
-    PX_PER_INCH, GradientRect, Group, Line, Polygon, Rect, Scene, Text, clean_text,
-    drawable_text, walk,
+from timelines.scene.primitives import (
+    PX_PER_INCH,
+    GradientRect,
+    Group,
+    Line,
+    Polygon,
+    Rect,
+    Scene,
+    Text,
+    clean_text,
+    drawable_text,
+    walk,
 )
 
 POINTS_PER_PX = 72.0 / PX_PER_INCH

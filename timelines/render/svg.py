@@ -21,8 +21,16 @@ from xml.etree import ElementTree
 import svgwrite
 from svgwrite.base import Desc, Title
 
-from timelines.scene import (
-    TEXT_MODES, GradientRect, Group, Line, Polygon, Rect, Scene, Text, clean_text,
+from timelines.scene.primitives import (
+    TEXT_MODES,
+    GradientRect,
+    Group,
+    Line,
+    Polygon,
+    Rect,
+    Scene,
+    Text,
+    clean_text,
     drawable_text,
 )
 
@@ -307,7 +315,7 @@ def _draw_text(text: Text, context: _Context):
 
 
 def _draw_text_outline(text: Text, content: str, context: _Context):
-    from .outlines import outliner   # fontTools only when outlines are asked for
+    from .outlines import outliner  # fontTools only when outlines are asked for
 
     weight = _choice(text.weight, ("normal", "bold"))
     anchor = _choice(text.anchor, ("start", "middle", "end"))

@@ -1,11 +1,10 @@
 """Which column plays which part: the user's names checked, the rest found by header name."""
 from __future__ import annotations
 
-import difflib
 from dataclasses import dataclass, fields
 from typing import Iterable
 
-from ..errors import UsageError
+from ..errors import UsageError, did_you_mean
 
 
 @dataclass(frozen=True, slots=True)
@@ -98,12 +97,3 @@ def _known_column(header: tuple[str, ...], part: str, taken: set[str | None]) ->
 def _folded(name: str) -> str:
     # "Start date", "start_date" and "StartDate" name the same column.
     return "".join(character for character in name.casefold() if character.isalnum())
-
-
-def did_you_mean(name: str, choices: Iterable[str]) -> str | None:
-    choices = list(choices)
-    by_folded = {choice.casefold(): choice for choice in choices}
-    close = difflib.get_close_matches(name.casefold(), list(by_folded), n=3, cutoff=0.6)
-    if not close:
-        return None
-    return "did you mean " + " or ".join(repr(by_folded[match]) for match in close) + "?"

@@ -9,12 +9,11 @@ from pathlib import Path
 
 import numpy as np
 
-from ..bulk import collection_paused, many
 from ..dates import DateError, parse_column, parse_span_column
 from ..dates.built import checked_span
 from ..dates.settings import DEFAULT_SETTINGS, DateSettings
 from ..errors import UsageError
-from ..model import Endpoint, Provenance, Qualifier, Record, Span
+from ..model import Endpoint, Provenance, Qualifier, Record, Span, collection_paused, many
 from .columns import ColumnMap, detect_columns, existing_column, column_parts
 from .tables import Table, cell_text, read_table
 

@@ -11,9 +11,9 @@ import difflib
 from dataclasses import dataclass
 from typing import Callable
 
-from .errors import UsageError
+from ..errors import UsageError
+from .primitives import GradientRect, Line, Polygon, Primitive, Rect, Text
 from .scale import TimeScale
-from .scene import GradientRect, Line, Polygon, Primitive, Rect, Text
 
 
 @dataclass(frozen=True, slots=True)

@@ -26,18 +26,22 @@ the reform begins on Julian 1 January, where a historian of that period expects 
 from __future__ import annotations
 
 import math
-import re
 from dataclasses import dataclass
 
-from .calendar import (
-    CALENDARS, GREGORIAN, GREGORIAN_REFORM, HISTORICAL, JULIAN, fixed_from_calendar,
-    gregorian_from_fixed, julian_from_fixed, year_label,
+from ..calendar import (
+    CALENDARS,
+    ERAS,
+    GREGORIAN,
+    GREGORIAN_REFORM,
+    HISTORICAL,
+    JULIAN,
+    PRESENT_YEAR,
+    fixed_from_calendar,
+    gregorian_from_fixed,
+    julian_from_fixed,
+    year_text,
 )
 
-ERAS = ("bce", "bc", "astronomical", "bp")
-# Radiocarbon convention: "present" is AD 1950 (Stuiver & Polach 1977, "Discussion: reporting
-# of 14C data", Radiocarbon 19(3), from memory).
-PRESENT_YEAR = 1950
 MONTH_ABBREVIATIONS = ("Jan", "Feb", "Mar", "Apr", "May", "Jun",
                        "Jul", "Aug", "Sep", "Oct", "Nov", "Dec")
 # Mean Gregorian year and month, only for estimating how many ticks a unit gives.
@@ -224,7 +228,7 @@ def _year_ticks(step: int, first: int, last: int, era: str, calendar: str) -> li
     years = tick_years(step, _date_from_fixed(first, calendar)[0],
                        _date_from_fixed(last, calendar)[0], era)
     return [Tick(float(fixed_from_calendar(year, 1, 1, calendar)),
-                 _year_text(year, era, mark_common_era=year == 1)) for year in years]
+                 year_text(year, era, mark_common_era=year == 1)) for year in years]
 
 
 def tick_years(step: int, first: int, last: int, era: str = "bce") -> list[int]:
@@ -284,31 +288,4 @@ def _date_year_text(year: int, era: str) -> str:
     # In "Apr 5" or "12 Apr 5" a bare small year reads as a day: mark CE years below 1000.
     # Days and months are never counted before present; they keep the BCE/CE labels.
     era = "bce" if era == "bp" else era
-    return _year_text(year, era, mark_common_era=0 < year < 1000)
-
-
-def before_present_label(years: int) -> str:
-    """'5500 BP', '12,500 BP', '120 ka', '65 Ma': thousands (ka) from 100,000 years and
-    millions (Ma) from 1,000,000, as archaeologists and geologists write them (common practice,
-    no source)."""
-    if abs(years) >= 1_000_000:
-        return f"{years / 1_000_000:g} Ma"
-    if abs(years) >= 100_000:
-        return f"{years / 1000:g} ka"
-    return f"{years:,} BP" if abs(years) >= 10_000 else f"{years} BP"
-
-
-def year_text(year: int, era: str = "bce") -> str:
-    """A year as an axis or a summary writes it, in any of ERAS."""
-    return _year_text(year, era, mark_common_era=False)
-
-
-def _year_text(year: int, era: str, *, mark_common_era: bool) -> str:
-    """Year label via `calendar.year_label`, with thousands separators from 10,000 on
-    (four-digit years are written without: common practice, no source)."""
-    if era == "bp":
-        return before_present_label(PRESENT_YEAR - year)
-    text = re.sub(r"\d{5,}", lambda m: f"{int(m.group()):,}", year_label(year, era))
-    if mark_common_era and year > 0 and era != "astronomical":
-        return f"{text} CE" if era == "bce" else f"AD {text}"
-    return text
+    return year_text(year, era, mark_common_era=0 < year < 1000)

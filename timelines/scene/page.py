@@ -22,9 +22,9 @@ import re
 from dataclasses import dataclass, replace
 from typing import Callable
 
-from .config import PX_PER_UNIT
-from .errors import UsageError
-from .scene import Scene
+from ..errors import UsageError
+from ..layout.distances import PX_PER_UNIT
+from .primitives import Scene
 from .theme import Theme
 
 SIZE_UNITS = ("mm", "cm", "in", "px")

@@ -21,9 +21,8 @@ from typing import TextIO
 
 import numpy as np
 
-from .calendar import gregorian_year_from_fixed, iso_from_fixed
-from .layout import Density, GroupPlacement, LayoutNote, Placement, densest_moment
-from .scale import year_text
+from ..calendar import gregorian_year_from_fixed, iso_from_fixed, year_text
+from . import Density, GroupPlacement, LayoutNote, Placement, densest_moment
 
 RECORD_COLUMNS = ("row", "id", "group", "lane", "box_start", "box_end")
 # A chart spanning less than this many days gives its moments as dates, not years.

@@ -7,16 +7,16 @@ of the axis then follows the records, as without a window.
 A record is *outside* when no part of it can lie in the window (its latest possible end is
 before the window, or its earliest possible start after it); outside records are not drawn but
 reported, never dropped in silence. A record reaching past an edge is drawn up to the edge and
-marked there as continuing (see `compose`).
+marked there as continuing (see `scene.compose`). The dates of `--from` and `--to` are read
+by `chart.parse_window`.
 """
 from __future__ import annotations
 
 from dataclasses import dataclass
 from typing import Iterable
 
-from .dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
-from .errors import UsageError
-from .model import Record, Span
+from ..errors import UsageError
+from ..model import Record, Span
 
 
 @dataclass(frozen=True, slots=True)
@@ -44,34 +44,6 @@ class TimeWindow:
         """The axis domain: the window's sides, the records' `low`/`high` where it has none."""
         return (float(self.start) if self.start is not None else low,
                 float(self.end) if self.end is not None else high)
-
-
-def parse_window(start_text: str | None, end_text: str | None,
-                 settings: DateSettings = DEFAULT_SETTINGS) -> TimeWindow | None:
-    """The window of `--from`/`--to` texts (None when neither is given)."""
-    if not start_text and not end_text:
-        return None
-    start = _window_bound(start_text, "--from", settings, earliest=True)
-    end = _window_bound(end_text, "--to", settings, earliest=False)
-    return TimeWindow(start, end, start_text or "", end_text or "")
-
-
-def _window_bound(text: str | None, option: str, settings: DateSettings, *,
-                  earliest: bool) -> int | None:
-    if not text:
-        return None
-    try:
-        endpoint = parse_endpoint(text, settings)
-    except DateError as error:
-        raise UsageError(f"{option}: cannot read {text!r}: {error.reason}",
-                         hint=error.hint or "give a date such as 1650, 1650-06 or 44 BC"
-                         ) from error
-    day = endpoint.earliest if earliest else endpoint.latest
-    if day is None:
-        side = "start" if earliest else "end"
-        raise UsageError(f"{option} {text!r} has no day to {side} the axis at",
-                         hint="give a bounded date such as 1650")
-    return day
 
 
 def split_by_window(records: Iterable[Record], window: TimeWindow | None

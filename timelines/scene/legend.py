@@ -5,8 +5,8 @@ from __future__ import annotations
 
 from . import encodings as marks
 from .encodings import EndWindow, LaneBox, MarkStyle
+from .primitives import Group, Primitive, Text
 from .scale import TimeScale
-from .scene import Group, Primitive, Text
 from .textsize import text_width
 from .theme import Theme
 

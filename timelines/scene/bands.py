@@ -14,12 +14,12 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Sequence
 
+from ..model import Record, Span
 from . import encodings as marks
 from .encodings import EndWindow, LaneBox
 from .legend import fit_text
-from .model import Record, Span
+from .primitives import Group, Primitive, Text
 from .scale import TimeScale
-from .scene import Group, Primitive, Text
 from .textsize import text_width
 from .theme import Theme
 

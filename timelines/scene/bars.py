@@ -14,13 +14,13 @@ from operator import attrgetter
 
 import numpy as np
 
+from ..calendar import iso_from_fixed
+from ..layout import PlacedRecord
+from ..model import Qualifier, Record, Span
 from . import encodings as marks
-from .calendar import iso_from_fixed
 from .encodings import EndWindow, LaneBox, MarkStyle
-from .layout import PlacedRecord
-from .model import Qualifier, Record, Span
+from .primitives import Group, Primitive, Text
 from .scale import TimeScale
-from .scene import Group, Primitive, Text
 from .theme import Theme, text_color_on
 
 

@@ -25,7 +25,7 @@ from collections import Counter
 from dataclasses import asdict, dataclass, is_dataclass
 from typing import Iterable, Protocol, Sequence
 
-from .model import Precision, Record, Span
+from ..model import Precision, Record, Span
 
 DAYS_PER_YEAR = 365.2425  # the mean Gregorian year (97 leap days in 400 years)
 _LONG_BY_NATURE = frozenset({Precision.MILLENNIUM, Precision.DEEP_TIME})

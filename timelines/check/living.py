@@ -13,8 +13,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass, replace
 
-from .calendar import gregorian_year_from_fixed, year_range
-from .model import Endpoint, Precision, Record, Span
+from ..calendar import gregorian_year_from_fixed, year_range
+from ..model import Endpoint, Precision, Record, Span
 
 WITHHELD_LABEL = "(withheld: possibly living)"
 

@@ -1,25 +1,23 @@
 """The command line's options: one argparse parser for `render`, `parse`, `check` and `lanes`.
 
 Every long option of `render`, `check` and `lanes` is also a key of the `--config` file (see
-`config`); `cli` runs the commands.
+`config`); `commands` runs them.
 """
 from __future__ import annotations
 
 import argparse
 import sys
 
-from . import __version__
-from .chart import LaneSettings
-from .config import parse_distance
-from .dates import (
-    DEFAULT_SETTINGS, SETTING_HELP, options_from_settings,
-)
-from .encodings import FRINGES
-from .errors import UsageError
-from .layout import GROUP_ORDERS, LABEL_MODES, PACKINGS, SORT_KEYS
-from .page import parse_font_size, parse_size
-from .scene import TEXT_MODES
-from .theme import DEFAULT_THEME, PALETTES
+from .. import __version__
+from ..dates import DEFAULT_SETTINGS, SETTING_HELP, options_from_settings
+from ..errors import UsageError
+from ..layout import GROUP_ORDERS, LABEL_MODES, PACKINGS, SORT_KEYS
+from ..layout.distances import parse_distance
+from ..layout.settings import LaneSettings
+from ..scene.encodings import FRINGES
+from ..scene.page import parse_font_size, parse_size
+from ..scene.primitives import TEXT_MODES
+from ..scene.theme import DEFAULT_THEME, PALETTES
 
 DEMO = "fenwold-organ-builders.csv"
 DATE_DEFAULTS = options_from_settings(DEFAULT_SETTINGS)

@@ -7,8 +7,8 @@ finds the labelled years first. Every element has a class (`grid major`, `grid m
 """
 from __future__ import annotations
 
+from .primitives import Group, Line, Primitive, Text
 from .scale import Tick, TimeScale, ticks
-from .scene import Group, Line, Primitive, Text
 from .textsize import text_width
 from .theme import Theme
 

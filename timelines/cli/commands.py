@@ -4,10 +4,10 @@ reporter.
 Exit codes: 0 success, 1 the input had errors or rows were left out (the chart is still
 written unless --strict), 2 usage errors.
 
-The options themselves are defined in `options`. Settings: `render`, `check` and `lanes`
+The options themselves are defined in `parser`. Settings: `render`, `check` and `lanes`
 read `--config FILE` (TOML, keys are the long option names); an option on the command line wins
 over the file, the file over the default, and `--print-config` shows each effective setting and
-where it came from (see `config`).
+where it came from (see `cli.config`).
 """
 from __future__ import annotations
 
@@ -19,18 +19,19 @@ import sys
 from importlib import resources
 from pathlib import Path
 
-from . import lanes as lane_report
-from .chart import ChartOptions, LaneSettings, Privacy, arrange, read_records, render
-from .check import check
+from ..chart import ChartOptions, Privacy, arrange, parse_window, read_records, render
+from ..check.report import check
+from ..dates import SETTING_HELP, DateSettings, describe, explain, settings_from_options
+from ..errors import TimelineError, UsageError
+from ..layout import report as lane_report
+from ..layout.settings import LaneSettings
+from ..layout.window import outside_note
+from ..model import collection_paused
+from ..scene.page import parse_font_size, parse_size, png_dpi
+from ..scene.theme import DEFAULT_THEME, PALETTES
+from ..sources import ColumnMap
 from .config import apply_settings, config_lines
-from .dates import SETTING_HELP, DateSettings, describe, explain, settings_from_options
-from .errors import TimelineError, UsageError
-from .page import parse_font_size, parse_size, png_dpi
-from .sources import ColumnMap
-from .bulk import collection_paused
-from .theme import DEFAULT_THEME, PALETTES
-from .options import CONFIG_COMMANDS, DEMO, NOT_SETTINGS, UNSET, build_parser
-from .window import outside_note, parse_window
+from .parser import CONFIG_COMMANDS, DEMO, NOT_SETTINGS, UNSET, build_parser
 
 
 def main(argv: list[str] | None = None) -> int:
@@ -273,4 +274,4 @@ def _plain(result: dict) -> str:
 
 COMMANDS = {"render": run_render, "parse": run_parse, "check": run_check, "lanes": run_lanes}
 
-__all__ = ["main", "build_parser"]
+__all__ = ["main"]

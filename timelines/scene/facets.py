@@ -16,12 +16,12 @@ import math
 from dataclasses import dataclass, replace
 from typing import Callable, Sequence
 
+from ..layout import Placement
+from ..model import Record
 from .compose import ChartText, describe_text, draw_plot, slug, time_range
-from .layout import Placement
 from .legend import fit_text, heading, legend_and_notes
-from .model import Record
+from .primitives import GradientRect, Group, Line, Polygon, Primitive, Rect, Scene, Text
 from .scale import TimeScale
-from .scene import GradientRect, Group, Line, Polygon, Primitive, Rect, Scene, Text
 from .theme import Theme
 
 MIN_PANEL_WIDTH = 420.0     # px: room for a group column, labels beside bars and an axis

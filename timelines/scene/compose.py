@@ -11,16 +11,16 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Callable, Sequence
 
-from .calendar import gregorian_year_from_fixed
-from .encodings import LaneBox
-from .layout import GroupPlacement, Placement
+from ..calendar import gregorian_year_from_fixed, year_text
+from ..layout import GroupPlacement, Placement
+from ..model import Record
 from .axis import draw_axis
 from .bands import draw_bands, place_bands, strip_height
 from .bars import draw_record, drawn_spans
+from .encodings import LaneBox
 from .legend import fit_text, heading, legend_and_notes
-from .model import Record
-from .scale import TimeScale, year_text
-from .scene import Group, Line, Primitive, Scene, Text
+from .primitives import Group, Line, Primitive, Scene, Text
+from .scale import TimeScale
 from .theme import Theme
 
 SUBGROUP_INDENT = 10.0      # px: subgroup names sit a little right of their group's header
@@ -213,3 +213,8 @@ def slug(name: str) -> str:
     cleaned = "".join(c.lower() if c.isalnum() else "-" for c in name)
     return "-".join(part for part in cleaned.split("-") if part)[:40] or "group"
 
+
+def color_key(records: list[Record], theme: Theme) -> tuple[tuple[str, str], ...]:
+    """(value, colour) for each value of the colour column, in order of first appearance."""
+    values = list(dict.fromkeys(r.color for r in records if r.color))
+    return tuple((value, theme.color_for(i)) for i, value in enumerate(values))

@@ -1,0 +1,118 @@
+"""The room the drawing needs, measured before the layout packs the lanes.
+
+The layout works in fixed days and knows nothing of fonts or marks; what it packs is what is
+drawn. This module measures it on the page and hands it over in days: each bar's drawn extent
+with the signs beside it (`drawn_measure`), each label's width (`label_width`), and the time
+scale itself, which starts right of the group names (`chart_scale`).
+"""
+from __future__ import annotations
+
+from operator import attrgetter
+from typing import Callable, Iterable
+
+import numpy as np
+
+from ..errors import UsageError
+from ..layout import GroupNode, LaneRules, TimeWindow, group_tree
+from ..model import Record
+from .bars import drawn_spans, qualifier_kind
+from .compose import SUBGROUP_INDENT
+from .scale import TimeScale, nice_domain
+from .textsize import text_width
+from .theme import Theme
+
+# Renderers that hint glyphs (Agg for PNG, cairo) set a line up to about 4% wider than the
+# font's own advances (measured here: a 12 px line 3.5% wider in our PNG); labels get that
+# room so a label never touches the next bar in any output.
+RENDERED_WIDTH_ALLOWANCE = 1.04
+# Room kept free beyond a label beside its bar, in label pads: with the lane gap it puts the
+# next bar three times as far from the label as the label's own bar, so proximity says which
+# bar a label names (Gestalt law of proximity; the factor is common practice, no source).
+LABEL_CLEARANCE = 2.0
+
+
+def days_per_px(scale: TimeScale) -> float:
+    return (scale.end - scale.start) / (scale.x1 - scale.x0)
+
+
+def label_width(scale: TimeScale, theme: Theme) -> Callable[[str], float]:
+    """A label's width in days, as the renderers set it."""
+    per_px = days_per_px(scale)
+    return lambda label: (text_width(label, theme.font_size) * RENDERED_WIDTH_ALLOWANCE
+                          * per_px)
+
+
+def drawn_measure(scale: TimeScale, theme: Theme):
+    """A `measure_spans` for place(): each span's drawn extent, signs beside it included, and
+    the room for a label on it (its solid core, where the label's contrast is known), in
+    days."""
+    per_px = days_per_px(scale)
+    # the widest qualifier sign, '~?', sits beside a bar end
+    mark_room = (text_width("~?", theme.small_font_size, "bold") + 3) * per_px
+    marker = theme.bar_height * 0.6 * per_px
+    domain = (scale.start, scale.end)
+    sign_room: dict[frozenset, float] = {}   # by an endpoint's qualifiers: few distinct sets
+
+    def room_for_sign(endpoint) -> float:
+        found = sign_room.get(endpoint.qualifiers)
+        if found is None:
+            has_sign = qualifier_kind(endpoint.qualifiers) is not None
+            found = sign_room[endpoint.qualifiers] = mark_room if has_sign else 0.0
+        return found
+
+    def measure_spans(spans: list) -> np.ndarray:
+        drawn = drawn_spans(spans, domain)
+        count = len(spans)
+        before = np.fromiter((room_for_sign(span.start) for span in spans), float, count)
+        after = np.fromiter((room_for_sign(span.end) for span in spans), float, count)
+        point = np.fromiter((span.is_point for span in spans), bool, count)
+        # a diamond is wider than its day; its sign stands on the right
+        low = np.where(point, drawn.start_low - marker, drawn.start_low - before)
+        high = np.where(point, drawn.end_high + marker + after, drawn.end_high + after)
+        room_low = np.where(drawn.has_core, drawn.start_high, np.nan)
+        room_high = np.where(drawn.has_core, drawn.end_low, np.nan)
+        return np.column_stack((low, high, room_low, room_high))
+
+    return measure_spans
+
+
+def chart_scale(dated: list[Record], theme: Theme,
+                tree: Iterable[GroupNode] | None = None,
+                window: TimeWindow | None = None) -> TimeScale:
+    """The time axis over every bound of the dated records (or the --from/--to window),
+    right of the group names."""
+    spans = [r.span for r in dated]
+    # Records read from one table share Span objects: each distinct one is looked at once.
+    bounds = [day for span in dict(zip(map(id, spans), spans)).values()
+              for day in (span.start.earliest, span.start.latest, span.end.earliest,
+                          span.end.latest) if day is not None]
+    low, high = nice_domain(min(bounds), max(bounds), era=theme.era)
+    if window is not None:
+        low, high = window.domain(low, high)
+    if high <= low:
+        raise UsageError(f"no record reaches into the window --from {window.start_text!r} "
+                         f"--to {window.end_text!r}", hint="give both --from and --to")
+    if tree is None:
+        tree = group_tree(dated, attrgetter("group"), LaneRules())
+    left = theme.margin + group_column_width(tree, theme)
+    return TimeScale(low, high, left, theme.width - theme.margin)
+
+
+def group_column_width(tree: Iterable[GroupNode], theme: Theme) -> float:
+    """Room left of the axis for the names of the groups that hold lanes: group names in
+    bold; with subgroups, the subgroup names (their groups get a header row of their own)."""
+    tree = list(tree)
+    if not any(node.name for node in tree):
+        return 0.0
+    widths = [0.0]
+    for node in tree:
+        if node.subgroups:
+            widths += [SUBGROUP_INDENT + text_width(_caption(sub.name), theme.group_label_size)
+                       for sub in node.subgroups]
+        else:
+            widths.append(text_width(_caption(node.name), theme.group_label_size, "bold"))
+    return min(max(widths) + 12, theme.width * 0.3)
+
+
+def _caption(name: str) -> str:
+    return name or "(none)"

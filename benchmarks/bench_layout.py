@@ -40,9 +40,7 @@ import make_register  # noqa: E402
 from timelines.chart import ChartOptions, lay_out  # noqa: E402
 from timelines.check import check  # noqa: E402
 from timelines.dates import parse_column  # noqa: E402
-from timelines.layout import (  # noqa: E402
-    LaneSettings, group_tree, lane_rules, max_overlap_depth, pack_lanes,
-)
+from timelines.layout import LaneSettings, group_tree, lane_rules, max_overlap_depth, pack_lanes  # noqa: E402
 from timelines.layout import report as lane_report  # noqa: E402
 from timelines.scene.measure import chart_scale  # noqa: E402
 from timelines.sources import ColumnMap, detect_columns, load_records, read_table  # noqa: E402

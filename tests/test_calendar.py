@@ -15,27 +15,10 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from timelines.calendar import (
-    GREGORIAN,
-    GREGORIAN_REFORM,
-    HISTORICAL,
-    JD_OFFSET,
-    JULIAN,
-    astronomical_year,
-    days_in_month,
-    fixed_from_calendar,
-    fixed_from_gregorian,
-    fixed_from_jdn,
-    fixed_from_julian,
-    gregorian_from_fixed,
-    gregorian_year_range,
-    is_gregorian_leap_year,
-    is_julian_leap_year,
-    iso_from_fixed,
-    jdn_from_fixed,
-    julian_from_fixed,
-    month_range,
-    year_label,
-    year_range,
+    GREGORIAN, GREGORIAN_REFORM, HISTORICAL, JD_OFFSET, JULIAN, astronomical_year, days_in_month,
+    fixed_from_calendar, fixed_from_gregorian, fixed_from_jdn, fixed_from_julian,
+    gregorian_from_fixed, gregorian_year_range, is_gregorian_leap_year, is_julian_leap_year,
+    iso_from_fixed, jdn_from_fixed, julian_from_fixed, month_range, year_label, year_range,
 )
 
 FIXED_FROM = {GREGORIAN: fixed_from_gregorian, JULIAN: fixed_from_julian}

@@ -8,16 +8,7 @@ from timelines.chart import build_scene
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
 from timelines.scene.encodings import SEAM_OVERLAP
 from timelines.scene.measure import chart_scale
-from timelines.scene.primitives import (
-    GradientRect,
-    Group,
-    Line,
-    Polygon,
-    Rect,
-    Text,
-    find,
-    walk,
-)
+from timelines.scene.primitives import GradientRect, Group, Line, Polygon, Rect, Text, find, walk
 from timelines.scene.theme import DEFAULT_THEME
 
 

@@ -13,14 +13,7 @@ import pytest
 
 from timelines.cli.commands import main
 from timelines.cli.config import (
-    COMMAND_LINE,
-    CONFIG_FILE,
-    DEFAULT,
-    Setting,
-    check_keys,
-    config_lines,
-    merge,
-    read_config,
+    COMMAND_LINE, CONFIG_FILE, DEFAULT, Setting, check_keys, config_lines, merge, read_config,
 )
 from timelines.errors import UsageError
 from timelines.layout.distances import parse_distance

@@ -10,16 +10,7 @@ from timelines.chart import ChartOptions, arrange, arranged_scene
 from timelines.cli.commands import main
 from timelines.errors import UsageError
 from timelines.scene.facets import grid_columns, panel_width, shifted
-from timelines.scene.primitives import (
-    GradientRect,
-    Group,
-    Line,
-    Polygon,
-    Rect,
-    Text,
-    find,
-    walk,
-)
+from timelines.scene.primitives import GradientRect, Group, Line, Polygon, Rect, Text, find, walk
 from timelines.sources import ColumnMap
 
 SVG = "{http://www.w3.org/2000/svg}"

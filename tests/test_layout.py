@@ -14,19 +14,8 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from timelines.layout import (
-    LEFT_OUT,
-    NO_GROUP,
-    GroupPlacement,
-    PlacedRecord,
-    Placement,
-    densest_moment,
-    each_span,
-    first_fit,
-    group_records,
-    max_overlap_depth,
-    most_that_fit,
-    pack_lanes,
-    place,
+    LEFT_OUT, NO_GROUP, GroupPlacement, PlacedRecord, Placement, densest_moment, each_span,
+    first_fit, group_records, max_overlap_depth, most_that_fit, pack_lanes, place,
 )
 from timelines.model import Endpoint, Provenance, Qualifier, Record, Span
 

@@ -15,13 +15,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from timelines.layout import (
-    LaneRules,
-    Placement,
-    UnknownGroup,
-    each_span,
-    group_tree,
-    max_overlap_depth,
-    natural_key,
+    LaneRules, Placement, UnknownGroup, each_span, group_tree, max_overlap_depth, natural_key,
     place,
 )
 from timelines.model import Endpoint, Provenance, Record, Span

@@ -14,16 +14,7 @@ from timelines.calendar import fixed_from_gregorian as day
 from timelines.chart import build_scene
 from timelines.layout.settings import LaneSettings
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
-from timelines.scene.primitives import (
-    GradientRect,
-    Group,
-    Line,
-    Polygon,
-    Rect,
-    Text,
-    find,
-    walk,
-)
+from timelines.scene.primitives import GradientRect, Group, Line, Polygon, Rect, Text, find, walk
 from timelines.scene.textsize import text_ascent, text_descent, text_width
 
 

@@ -2,11 +2,7 @@
 from __future__ import annotations
 
 from timelines.calendar import fixed_from_gregorian as day
-from timelines.check.living import (
-    WITHHELD_LABEL,
-    possibly_living,
-    withhold_possibly_living,
-)
+from timelines.check.living import WITHHELD_LABEL, possibly_living, withhold_possibly_living
 from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, Span
 
 

@@ -16,13 +16,7 @@ from timelines.render import write
 from timelines.scene.axis import axis_ticks
 from timelines.scene.compose import ChartText
 from timelines.scene.page import (
-    MIN_BAR_GAP,
-    PageSize,
-    fit_height,
-    font_note,
-    length_text,
-    parse_font_size,
-    parse_size,
+    MIN_BAR_GAP, PageSize, fit_height, font_note, length_text, parse_font_size, parse_size,
     png_dpi,
 )
 from timelines.scene.primitives import Rect, Scene, Text, find, walk

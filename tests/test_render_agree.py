@@ -27,22 +27,8 @@ from PIL import Image
 from timelines.render.mpl import render_pdf, render_png
 from timelines.render.svg import render_svg
 from timelines.scene import textsize
-from timelines.scene.primitives import (
-    GradientRect,
-    Group,
-    Line,
-    Polygon,
-    Rect,
-    Scene,
-    Text,
-)
-from timelines.scene.textsize import (
-    cap_height,
-    text_ascent,
-    text_descent,
-    text_height,
-    text_width,
-)
+from timelines.scene.primitives import GradientRect, Group, Line, Polygon, Rect, Scene, Text
+from timelines.scene.textsize import cap_height, text_ascent, text_descent, text_height, text_width
 
 ROOT = Path(__file__).resolve().parent.parent
 

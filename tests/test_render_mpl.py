@@ -17,15 +17,7 @@ import pytest
 from PIL import Image
 
 from timelines.render.mpl import render_pdf, render_png
-from timelines.scene.primitives import (
-    GradientRect,
-    Group,
-    Line,
-    Polygon,
-    Rect,
-    Scene,
-    Text,
-)
+from timelines.scene.primitives import GradientRect, Group, Line, Polygon, Rect, Scene, Text
 
 HERE = Path(__file__).resolve().parent
 PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"  # PNG specification (ISO/IEC 15948), section 5.2

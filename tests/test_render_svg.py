@@ -12,22 +12,9 @@ from pathlib import Path
 import pytest
 
 from timelines.render.svg import (
-    DESC_ID,
-    TITLE_ID,
-    drawable_text,
-    font_family_list,
-    render_svg,
-    write_svg,
+    DESC_ID, TITLE_ID, drawable_text, font_family_list, render_svg, write_svg,
 )
-from timelines.scene.primitives import (
-    GradientRect,
-    Group,
-    Line,
-    Polygon,
-    Rect,
-    Scene,
-    Text,
-)
+from timelines.scene.primitives import GradientRect, Group, Line, Polygon, Rect, Scene, Text
 
 SVG = "{http://www.w3.org/2000/svg}"
 HERE = Path(__file__).resolve().parent

@@ -16,25 +16,11 @@ from hypothesis import assume, given
 from hypothesis import strategies as st
 
 from timelines.calendar import (
-    GREGORIAN,
-    HISTORICAL,
-    JULIAN,
-    astronomical_year,
-    before_present_label,
-    fixed_from_calendar,
-    fixed_from_gregorian,
-    fixed_from_julian,
-    gregorian_from_fixed,
-    jdn_from_fixed,
+    GREGORIAN, HISTORICAL, JULIAN, astronomical_year, before_present_label, fixed_from_calendar,
+    fixed_from_gregorian, fixed_from_julian, gregorian_from_fixed, jdn_from_fixed,
 )
 from timelines.scene.scale import (
-    MONTH_ABBREVIATIONS,
-    TickUnit,
-    TimeScale,
-    choose_unit,
-    nice_domain,
-    tick_years,
-    ticks,
+    MONTH_ABBREVIATIONS, TickUnit, TimeScale, choose_unit, nice_domain, tick_years, ticks,
 )
 
 MONTH_NUMBERS = {abbreviation: i + 1 for i, abbreviation in enumerate(MONTH_ABBREVIATIONS)}

@@ -5,13 +5,7 @@ from itertools import combinations
 
 import pytest
 
-from timelines.scene.theme import (
-    OKABE_ITO,
-    PALETTES,
-    lightness,
-    relative_luminance,
-    text_color_on,
-)
+from timelines.scene.theme import OKABE_ITO, PALETTES, lightness, relative_luminance, text_color_on
 
 
 def test_okabe_ito_is_the_published_set():

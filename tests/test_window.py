@@ -16,15 +16,7 @@ from timelines.model import Endpoint, Precision, Provenance, Qualifier, Record, 
 from timelines.scene import encodings as marks
 from timelines.scene.bars import cut_sides
 from timelines.scene.encodings import LaneBox, MarkStyle
-from timelines.scene.primitives import (
-    GradientRect,
-    Group,
-    Polygon,
-    Rect,
-    Text,
-    find,
-    walk,
-)
+from timelines.scene.primitives import GradientRect, Group, Polygon, Rect, Text, find, walk
 from timelines.scene.scale import TimeScale
 
 SVG = "{http://www.w3.org/2000/svg}"

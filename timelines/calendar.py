@@ -9,6 +9,7 @@ before year 1.
 """
 from __future__ import annotations
 
+import math
 import re
 
 GREGORIAN_EPOCH = 1  # R.D. of Gregorian 0001-01-01
@@ -70,6 +71,25 @@ def gregorian_year_from_fixed(fixed: int) -> int:
     year = 400 * n400 + 100 * n100 + 4 * n4 + n1
     # The last day of a leap cycle (n100 or n1 == 4) belongs to the year just counted.
     return year if n100 == 4 or n1 == 4 else year + 1
+
+
+def decimal_year_from_fixed(fixed: float) -> float:
+    """A moment as a decimal astronomical year: the Gregorian year holding it plus the share
+    of that year gone by, so each 1 January is a whole number (year 0 = 1 BCE). Fractional
+    fixed days are moments within a day."""
+    day = math.floor(fixed)
+    year = gregorian_year_from_fixed(day)
+    first = fixed_from_gregorian(year, 1, 1)
+    length = fixed_from_gregorian(year + 1, 1, 1) - first
+    return year + (fixed - first) / length
+
+
+def fixed_from_decimal_year(year: float) -> float:
+    """The inverse of `decimal_year_from_fixed`: a fractional fixed day."""
+    whole = math.floor(year)
+    first = fixed_from_gregorian(whole, 1, 1)
+    length = fixed_from_gregorian(whole + 1, 1, 1) - first
+    return first + (year - whole) * length
 
 
 def gregorian_from_fixed(fixed: int) -> tuple[int, int, int]:

@@ -18,6 +18,8 @@ from enum import StrEnum
 from itertools import repeat
 from typing import TypeVar
 
+from .calendar import iso_from_fixed
+
 
 class Precision(StrEnum):
     DAY = "day"
@@ -48,6 +50,11 @@ class Qualifier(StrEnum):
 
 
 _OPEN_SIDES = frozenset({Qualifier.OPEN_START, Qualifier.OPEN_END})
+# ISO 8601-2 signs (§ 8, qualification of a date): both qualifiers make "%", not "~?".
+_SIGNS = {frozenset({Qualifier.APPROXIMATE, Qualifier.UNCERTAIN}): "%",
+          frozenset({Qualifier.APPROXIMATE}): "~", frozenset({Qualifier.UNCERTAIN}): "?"}
+_WORDED = frozenset({Qualifier.BEFORE, Qualifier.AFTER, Qualifier.OPEN_START,
+                     Qualifier.OPEN_END, Qualifier.UNKNOWN_START, Qualifier.UNKNOWN_END})
 _UNKNOWN_SIDES = frozenset({Qualifier.UNKNOWN_START, Qualifier.UNKNOWN_END})
 
 
@@ -91,6 +98,24 @@ class Endpoint:
     def has(self, qualifier: Qualifier) -> bool:
         return qualifier in self.qualifiers
 
+    def __str__(self) -> str:
+        """The window as ISO 8601 dates (`1645-01-01..1655-12-31`; `..` alone where it has no
+        bound), then the ISO 8601-2 sign of its qualifiers (~ approximate, ? uncertain, %
+        both) and the words of the rest (before, after, open, unknown)."""
+        if self.earliest is not None and self.earliest == self.latest:
+            window = iso_from_fixed(self.earliest)
+        else:
+            window = f"{_iso_or_open(self.earliest)}..{_iso_or_open(self.latest)}"
+        marks = [_SIGNS[kind] for kind in _SIGNS if kind <= self.qualifiers]
+        marks = marks[:1] + [str(q).replace("_", " ") for q in sorted(self.qualifiers)
+                             if q in _WORDED]
+        return " ".join([window, *marks])
+
+    def __repr__(self) -> str:
+        precision = f", {self.precision}" if self.precision else ""
+        likely = f", likely {iso_from_fixed(self.likely)}" if self.likely is not None else ""
+        return f"Endpoint({self}{precision}{likely})"
+
 
 @dataclass(frozen=True, slots=True)
 class Span:
@@ -107,6 +132,13 @@ class Span:
     @classmethod
     def point(cls, endpoint: Endpoint) -> "Span":
         return cls(endpoint, endpoint)
+
+    def __str__(self) -> str:
+        """A point as its one endpoint; a span as its two ends, `start / end`."""
+        return str(self.start) if self.is_point else f"{self.start} / {self.end}"
+
+    def __repr__(self) -> str:
+        return f"Span({self})"
 
     @property
     def is_point(self) -> bool:
@@ -170,6 +202,10 @@ class Record:
             start = self.start_text or "?"
             return f"{start} – {self.end_text}"
         return self.start_text
+
+
+def _iso_or_open(day: int | None) -> str:
+    return "" if day is None else iso_from_fixed(day)
 
 
 # Many objects at once: frozen slot dataclass objects made from columns of their field values.

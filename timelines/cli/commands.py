@@ -19,7 +19,7 @@ import sys
 from importlib import resources
 from pathlib import Path
 
-from ..chart import ChartOptions, Privacy, arrange, parse_window, read_records, render
+from ..chart import Chart, ChartOptions, Privacy, output_path, parse_window
 from ..check.report import check
 from ..dates import SETTING_HELP, DateSettings, describe, explain, settings_from_options
 from ..errors import TimelineError, UsageError
@@ -137,15 +137,18 @@ def run_render(args, parser) -> int:
         parser.error("render needs -o OUT.svg, OUT.png or OUT.pdf")
     if args.size and args.width != DEFAULT_THEME.width:
         parser.error("give either --size or --width, not both")
-    result = render(_input_path(args, parser), args.output, _render_options(args))
-    _print_run(result.arranged, args, args.era)
-    for warning in result.warnings:
-        print(f"warning: {warning}", file=sys.stderr)
-    if result.written is None:
+    output_path(args.output)                                # fail before any work
+    chart = Chart.from_options(_input_path(args, parser), _render_options(args))
+    arranged = chart.layout()
+    _print_run(arranged, args, args.era)
+    if args.strict and (arranged.not_drawn or _band_problems(arranged)):
         print("error: nothing written (--strict and some rows were not drawn)", file=sys.stderr)
-    else:
-        print(f"wrote {result.written}", file=sys.stderr)
-    return 1 if result.arranged.not_drawn or _band_problems(result.arranged) else 0
+        return 1
+    written = chart.save(args.output)
+    for warning in chart.warnings:
+        print(f"warning: {warning}", file=sys.stderr)
+    print(f"wrote {written}", file=sys.stderr)
+    return 1 if arranged.not_drawn or _band_problems(arranged) else 0
 
 
 def _render_options(args) -> ChartOptions:
@@ -215,7 +218,7 @@ def run_lanes(args, parser) -> int:
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=settings,
                            theme=theme, lanes=_lane_settings(args),
                            window=_window(args, settings))
-    arranged = arrange(_input_path(args, parser), options)
+    arranged = Chart.from_options(_input_path(args, parser), options).layout()
     _print_run(arranged, args, theme.era)
     if arranged.placement is None:
         raise TimelineError("nothing to lay out: no row has a usable date")
@@ -236,8 +239,7 @@ def _print_problems(problems) -> None:
 
 def run_check(args, parser) -> int:
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args))
-    loaded = read_records(_input_path(args, parser), options)
-    report = check(loaded)
+    report = check(Chart.from_options(_input_path(args, parser), options).read().loaded)
     if args.json:
         print(json.dumps(report.as_dict(), ensure_ascii=False, indent=2))
     else:

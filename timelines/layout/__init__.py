@@ -19,38 +19,16 @@ point. Under this rule compact packing uses exactly the maximum overlap depth in
 """
 from .boxes import SpanMeasure, each_span
 from .grouping import (
-    GROUP_ORDERS,
-    NO_GROUP,
-    GroupKey,
-    GroupOrder,
-    UnknownGroup,
-    collect_groups,
-    group_records,
-    merge_small_groups,
-    natural_key,
-    order_groups,
+    GROUP_ORDERS, NO_GROUP, GroupKey, GroupOrder, UnknownGroup, collect_groups, group_records,
+    merge_small_groups, natural_key, order_groups,
 )
 from .labels import LABEL_MODES, LABEL_SIDES, label_box
 from .packing import (
-    LEFT_OUT,
-    Density,
-    densest_moment,
-    first_fit,
-    max_overlap_depth,
-    most_that_fit,
-    pack_lanes,
+    LEFT_OUT, Density, densest_moment, first_fit, max_overlap_depth, most_that_fit, pack_lanes,
 )
 from .placement import (
-    PACKINGS,
-    SORT_KEYS,
-    GroupNode,
-    GroupPlacement,
-    LaneRules,
-    LayoutNote,
-    PlacedRecord,
-    Placement,
-    group_tree,
-    place,
+    PACKINGS, SORT_KEYS, GroupNode, GroupPlacement, LaneRules, LayoutNote, PlacedRecord, Placement,
+    group_tree, place,
 )
 from .settings import LaneSettings, lane_rules
 from .window import TimeWindow, split_by_window

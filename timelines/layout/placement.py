@@ -36,23 +36,12 @@ import numpy as np
 from ..model import Record, collection_paused, many
 from .boxes import Boxes, BoxMeasure, SpanMeasure
 from .grouping import (
-    GROUP_ORDERS,
-    GroupKey,
-    GroupOrder,
-    check_listed_names,
-    collect_groups,
-    merge_small_groups,
-    natural_key,
-    order_groups,
+    GROUP_ORDERS, GroupKey, GroupOrder, check_listed_names, collect_groups, merge_small_groups,
+    natural_key, order_groups,
 )
 from .labels import LABEL_MODES, LABEL_SIDES
 from .packing import (
-    LEFT_OUT,
-    check_distance,
-    first_fit,
-    max_overlap_depth,
-    most_that_fit,
-    pack_lanes,
+    LEFT_OUT, check_distance, first_fit, max_overlap_depth, most_that_fit, pack_lanes,
 )
 
 PACKINGS = ("compact", "ordered", "single")

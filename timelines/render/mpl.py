@@ -27,16 +27,7 @@ import numpy
 
 from timelines.render.png import PNG_KEYWORD, write_png
 from timelines.scene.primitives import (
-    PX_PER_INCH,
-    GradientRect,
-    Group,
-    Line,
-    Polygon,
-    Rect,
-    Scene,
-    Text,
-    clean_text,
-    drawable_text,
+    PX_PER_INCH, GradientRect, Group, Line, Polygon, Rect, Scene, Text, clean_text, drawable_text,
     walk,
 )
 

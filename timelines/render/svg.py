@@ -22,16 +22,7 @@ import svgwrite
 from svgwrite.base import Desc, Title
 
 from timelines.scene.primitives import (
-    TEXT_MODES,
-    GradientRect,
-    Group,
-    Line,
-    Polygon,
-    Rect,
-    Scene,
-    Text,
-    clean_text,
-    drawable_text,
+    TEXT_MODES, GradientRect, Group, Line, Polygon, Rect, Scene, Text, clean_text, drawable_text,
 )
 
 # The chart's <title> and <desc> ids: these prefixes and a digest of the two texts, so that

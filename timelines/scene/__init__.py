@@ -13,18 +13,8 @@ scene from a placement:
   fitting the height; `measure`: the room the drawing needs, handed to the layout.
 """
 from .primitives import (
-    PRIMITIVE_KINDS,
-    TEXT_MODES,
-    GradientRect,
-    Group,
-    Line,
-    Polygon,
-    Primitive,
-    Rect,
-    Scene,
-    Text,
-    find,
-    walk,
+    PRIMITIVE_KINDS, TEXT_MODES, GradientRect, Group, Line, Polygon, Primitive, Rect, Scene, Text,
+    find, walk,
 )
 
 __all__ = ["GradientRect", "Group", "Line", "PRIMITIVE_KINDS", "Polygon", "Primitive", "Rect",

@@ -29,17 +29,9 @@ import math
 from dataclasses import dataclass
 
 from ..calendar import (
-    CALENDARS,
-    ERAS,
-    GREGORIAN,
-    GREGORIAN_REFORM,
-    HISTORICAL,
-    JULIAN,
-    PRESENT_YEAR,
-    fixed_from_calendar,
-    gregorian_from_fixed,
-    julian_from_fixed,
-    year_text,
+    CALENDARS, ERAS, GREGORIAN, GREGORIAN_REFORM, HISTORICAL, JULIAN, PRESENT_YEAR,
+    decimal_year_from_fixed, fixed_from_calendar, fixed_from_decimal_year, gregorian_from_fixed,
+    julian_from_fixed, year_text,
 )
 
 MONTH_ABBREVIATIONS = ("Jan", "Feb", "Mar", "Apr", "May", "Jun",
@@ -136,6 +128,19 @@ def ticks(scale: TimeScale, *, max_ticks: int = 8, era: str = "bce",
               for t in _unit_ticks(minor_unit, scale.start, scale.end, era, calendar)
               if t.day not in taken]
     return sorted(majors + minors, key=lambda tick: tick.day)
+
+
+def year_ticks(low: float, high: float, *, era: str = "bce", max_ticks: int = 8
+               ) -> list[tuple[float, str]]:
+    """(position, label) of the major ticks of `ticks` on an axis of decimal astronomical
+    years `low..high` (`calendar.decimal_year_from_fixed`): the chart's own axis rules for
+    another's axis."""
+    low, high = sorted((low, high))
+    start, end = fixed_from_decimal_year(low), fixed_from_decimal_year(high)
+    if not end > start:
+        return []
+    found = ticks(TimeScale(start, end, 0.0, 1.0), max_ticks=max_ticks, era=era)
+    return [(decimal_year_from_fixed(tick.day), tick.label) for tick in found]
 
 
 def choose_unit(start: float, end: float, *, max_ticks: int = 8, era: str = "bce",

@@ -13,47 +13,34 @@ from __future__ import annotations
 from dataclasses import dataclass, field, replace
 from functools import partial
 from operator import attrgetter
+from os import PathLike
 from pathlib import Path
 from typing import Callable, Iterable
 
-from .check.living import withhold_possibly_living
-from .check.report import Report, check
-from .dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
-from .errors import TimelineError, UsageError, did_you_mean
-from .layout import (
-    GroupNode,
-    LaneRules,
-    LaneSettings,
-    Placement,
-    TimeWindow,
-    UnknownGroup,
-    group_records,
-    group_tree,
-    lane_rules,
-    place,
-    split_by_window,
+from ..check.living import withhold_possibly_living
+from ..check.report import Report, check
+from ..dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
+from ..errors import TimelineError, UsageError, did_you_mean
+from ..layout import (
+    GroupNode, LaneRules, LaneSettings, Placement, TimeWindow, UnknownGroup, group_records,
+    group_tree, lane_rules, place, split_by_window,
 )
-from .layout.distances import Distance, parse_distance
-from .model import Record
-from .render import output_format, write
-from .scene.bands import on_axis
-from .scene.compose import ChartText, color_key, compose, title_height
-from .scene.facets import Panel, compose_facets, panel_width
-from .scene.measure import (
-    LABEL_CLEARANCE,
-    chart_scale,
-    days_per_px,
-    drawn_measure,
-    label_width,
-)
-from .scene.page import FittedPage, PageSize, fit_height, font_note
-from .scene.primitives import Scene
-from .scene.scale import TimeScale
-from .scene.theme import DEFAULT_THEME, Theme
-from .sources import ColumnMap, LoadResult, detect_columns, load_records, read_table
-from .sources import read_records as read_table_records
-from .sources.columns import existing_column
-from .sources.fields import column_reader
+from ..layout.distances import Distance, parse_distance
+from ..model import Record
+from ..render import output_format, writable, write
+from ..scene.bands import on_axis
+from ..scene.compose import ChartText, color_key, compose, title_height
+from ..scene.facets import Panel, compose_facets, panel_width
+from ..scene.measure import LABEL_CLEARANCE, chart_scale, days_per_px, drawn_measure, label_width
+from ..scene.page import FittedPage, PageSize, fit_height, font_note
+from ..scene.primitives import Scene
+from ..scene.scale import TimeScale
+from ..scene.theme import DEFAULT_THEME, Theme
+from ..sources import ColumnMap, LoadResult, detect_columns, load_records, read_table
+from ..sources import read_records as read_table_records
+from ..sources.columns import existing_column
+from ..sources.fields import column_reader
+from ..sources.frames import table_from_data
 
 _GROUP = attrgetter("group")   # a record's group: the C-level getter, called per record
 
@@ -74,7 +61,7 @@ class ChartOptions:
     credit: str = ""                    # a source or credit line at the foot of the page
     notes: tuple[str, ...] = ()         # the user's notes under the chart
     window: TimeWindow | None = None    # --from/--to: the time the axis shows
-    bands: str | Path | None = None     # a table of named periods drawn behind the lanes
+    bands: object = None                # a table of named periods drawn behind the lanes
     facet: str | None = None            # a column: one small timeline per value
     size: PageSize | None = None        # the page; its width overrides the theme's
 
@@ -163,6 +150,13 @@ def render(source: str | Path, output: str | Path, options: ChartOptions = Chart
     return RunResult(arranged.loaded, arranged.report, page.scene, output, arranged, warnings)
 
 
+def output_path(path: str | Path) -> Path:
+    """`path` once it is known that a chart can be written there: a format the suffix names,
+    a folder that exists and takes files. For checking before any work is done."""
+    output_format(path)
+    return writable(path)
+
+
 def page_options(options: ChartOptions) -> ChartOptions:
     """Options with the page width of `size` in the theme, where the layout measures it."""
     if options.size is None:
@@ -170,22 +164,54 @@ def page_options(options: ChartOptions) -> ChartOptions:
     return replace(options, theme=replace(options.theme, width=options.size.width))
 
 
-def arrange(source: str | Path, options: ChartOptions = ChartOptions()) -> Arranged:
-    options = page_options(options)
-    table = read_table(source, options.sheet)                            # read
+@dataclass(frozen=True, slots=True)
+class ReadTable:
+    """What the read and parse steps give: the records and problems of a table, the columns
+    that played each part, and the table's header (None for records made by the caller)."""
+
+    loaded: LoadResult
+    columns: ColumnMap
+    header: tuple[str, ...] | None
+    withheld: int = 0                   # records shown without their details
+
+
+def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTable:
+    """Read and parse `data`: a table file's path, a pandas DataFrame, an iterable of rows
+    (mappings of column name to cell), or an iterable of Records made by the caller."""
+    if isinstance(data, (str, PathLike)):
+        table = read_table(data, options.sheet)                          # read
+    else:
+        given = table_from_data(data)
+        if isinstance(given, LoadResult):                               # records as given
+            loaded, withheld = _withhold(given, options.privacy)
+            return ReadTable(loaded, options.columns, None, withheld)
+        table = given
     columns = detect_columns(table.header, options.columns)
     loaded = load_records(table, columns, options.settings)              # parse
     loaded, withheld = _withhold(loaded, options.privacy)
+    return ReadTable(loaded, columns, table.header, withheld)
+
+
+def arrange(source: object, options: ChartOptions = ChartOptions()) -> Arranged:
+    """Read, parse, check and lay out `source` (anything `read_source` takes)."""
+    return arrange_read(read_source(source, page_options(options)), options)
+
+
+def arrange_read(read: ReadTable, options: ChartOptions = ChartOptions()) -> Arranged:
+    """Check and lay out what `read_source` gave."""
+    options = page_options(options)
+    loaded, columns, header = read.loaded, read.columns, read.header
     report = check(loaded)                                               # check
     kept, outside = split_by_window(loaded.records, options.window)      # the window
-    bands = read_bands(options.bands, options.settings) if options.bands else None
-    arranged = Arranged(loaded, report, columns, None, None, withheld, tuple(outside), bands)
+    bands = read_bands(options.bands, options.settings) if options.bands is not None else None
+    arranged = Arranged(loaded, report, columns, None, None, read.withheld, tuple(outside),
+                        bands)
     dated = [r for r in kept if r.span is not None]
     if not dated:
         return arranged
-    rules, gap = lane_rules(options.lanes, partial(column_reader, columns, table.header))
+    rules, gap = lane_rules(options.lanes, partial(column_reader, columns, header))
     if options.facet:
-        return _arrange_panels(arranged, dated, options, table.header, rules, gap)
+        return _arrange_panels(arranged, dated, options, header, rules, gap)
     tree = _group_tree(dated, rules)
     scale = chart_scale(dated, options.theme, tree, options.window)      # scale
     placement = lay_out(kept, scale, options.theme, rules, gap,          # layout
@@ -196,7 +222,7 @@ def arrange(source: str | Path, options: ChartOptions = ChartOptions()) -> Arran
 def _arrange_panels(arranged: Arranged, dated: list[Record], options: ChartOptions,
                     header, rules: LaneRules, gap: Distance) -> Arranged:
     """One placement per value of the facet column, all on one time scale and one width."""
-    facet = existing_column(header, options.facet, "facet")
+    facet = existing_column(header, options.facet, "facet") if header else options.facet
     facets = group_records(dated, column_reader(arranged.columns, header, facet, "facet"),
                            "first")
     theme = replace(options.theme, width=panel_width(options.theme.width, len(facets)))
@@ -210,9 +236,15 @@ def _arrange_panels(arranged: Arranged, dated: list[Record], options: ChartOptio
     return replace(arranged, scale=scale, panels=panels)
 
 
-def read_bands(source: str | Path, settings: DateSettings = DEFAULT_SETTINGS) -> LoadResult:
-    """The named periods of a `--bands` table: columns label, start, end (or when)."""
-    return read_table_records(source, ColumnMap(), settings)
+def read_bands(source: object, settings: DateSettings = DEFAULT_SETTINGS) -> LoadResult:
+    """The named periods of a `--bands` table (a path, a DataFrame or rows): columns label,
+    start, end (or when)."""
+    if isinstance(source, (str, PathLike)):
+        return read_table_records(source, ColumnMap(), settings)
+    given = table_from_data(source)
+    if isinstance(given, LoadResult):
+        return given
+    return load_records(given, detect_columns(given.header, ColumnMap()), settings)
 
 
 def _withhold(loaded: LoadResult, privacy: Privacy | None) -> tuple[LoadResult, int]:
@@ -222,10 +254,9 @@ def _withhold(loaded: LoadResult, privacy: Privacy | None) -> tuple[LoadResult, 
     return replace(loaded, records=kept.records), kept.count
 
 
-def read_records(source: str | Path, options: ChartOptions = ChartOptions()) -> LoadResult:
-    table = read_table(source, options.sheet)
-    columns = detect_columns(table.header, options.columns)
-    return load_records(table, columns, options.settings)
+def read_records(source: object, options: ChartOptions = ChartOptions()) -> LoadResult:
+    """Read and parse `source` (anything `read_source` takes), nothing withheld."""
+    return read_source(source, replace(options, privacy=None)).loaded
 
 
 def arranged_scene(arranged: Arranged, options: ChartOptions) -> Scene:

@@ -60,6 +60,12 @@ _UNKNOWN_SIDES = frozenset({Qualifier.UNKNOWN_START, Qualifier.UNKNOWN_END})
 
 @dataclass(frozen=True, slots=True)
 class Endpoint:
+    """When a start or an end fell: somewhere in the window `earliest..latest` of fixed day
+    numbers (None: no bound on that side), both days included; `likely` the most likely day
+    if known; `precision` the unit the date was written in; `qualifiers` what else was said
+    (approximate, uncertain, before, open, ...). Prints as ISO dates with ISO 8601-2 signs:
+    `1645-01-01..1655-12-31 ~`."""
+
     earliest: int | None
     latest: int | None
     precision: Precision | None = Precision.DAY
@@ -186,6 +192,9 @@ class Provenance:
 
 @dataclass(frozen=True, slots=True)
 class Record:
+    """One row of the user's table: its label, its span (None: no usable date), where it
+    came from, its date cells as written, its id, group, colour value and other cells."""
+
     label: str
     span: Span | None             # None: no usable date (undated)
     provenance: Provenance

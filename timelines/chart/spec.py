@@ -192,6 +192,7 @@ class Chart:
 
     @property
     def records(self):
+        """The records read from the table, in table order (undated ones included)."""
         return self.read().loaded.records
 
     @property
@@ -245,6 +246,7 @@ class Chart:
         return self._cached("svg", lambda: self._bytes(".svg").decode("utf-8"))
 
     def to_png(self) -> bytes:
+        """The chart as PNG bytes, at the page's dpi."""
         return self._bytes(".png")
 
     def draw(self, ax):

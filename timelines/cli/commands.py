@@ -250,19 +250,97 @@ def run_check(args, parser) -> int:
 
 
 def run_parse(args, parser) -> int:
+    """One output line (or --explain block) per input text, whatever the text holds: stdin
+    is read as a stream, line by line, and a line that is not UTF-8, or that the reader
+    fails on unexpectedly, is reported in its own line of output."""
     if args.json and args.explain:
         parser.error("give either --json or --explain, not both")
     settings = _settings(args)
-    texts = args.text if args.text else [line.rstrip("\r\n") for line in sys.stdin]
+    texts = ((text, None) for text in args.text) if args.text else _stdin_lines(sys.stdin)
     failed = 0
-    for number, text in enumerate(texts):
-        result = describe(text, settings)
-        failed += not result["ok"]
+    shown: dict[str, tuple[str, bool]] = {}   # a column repeats its values: each shown once
+    for number, (text, unreadable) in enumerate(texts):
         if args.explain:
-            print(("\n" if number else "") + "\n".join(explain(text, settings)))
+            result = _described(text, unreadable, settings)
+            failed += not result["ok"]
+            _print_line(("\n" if number else "") + "\n".join(
+                _explanation(text, result, unreadable, settings)))
+            continue
+        key = text if unreadable is None else None
+        if key is None or key not in shown:
+            result = _described(text, unreadable, settings)
+            line = (_json_line(result) if args.json else _plain(result), result["ok"])
+            if key is not None and len(shown) < PARSE_MEMORY:
+                shown[key] = line
         else:
-            print(json.dumps(result, ensure_ascii=False) if args.json else _plain(result))
+            line = shown[key]
+        failed += not line[1]
+        _print_line(line[0])
     return 1 if failed else 0
+
+
+PARSE_MEMORY = 100_000      # distinct texts whose output is kept for the lines repeating them
+
+
+def _stdin_lines(stream):
+    """(text, None) per line of `stream`, or (repr of the bytes, why) for a line that is not
+    UTF-8: read as bytes when the stream has them, so one bad byte costs one line only."""
+    source = getattr(stream, "buffer", None)
+    if source is None:
+        for line in stream:
+            yield line.rstrip("\r\n"), None
+        return
+    for number, raw in enumerate(source, start=1):
+        raw = raw.rstrip(b"\r\n")
+        if number == 1:
+            raw = raw.removeprefix(b"\xef\xbb\xbf")      # a byte-order mark
+        try:
+            yield raw.decode("utf-8"), None
+        except UnicodeDecodeError as error:
+            yield (raw.decode("utf-8", "backslashreplace"),
+                   f"line {number} is not UTF-8 text (byte 0x{raw[error.start]:02x})")
+
+
+def _described(text: str, unreadable: str | None, settings: DateSettings) -> dict:
+    if unreadable is not None:
+        return _failed(text, unreadable)
+    try:
+        return describe(text, settings)
+    except Exception as error:          # one line's problem, never the run's: say so
+        return _failed(text, f"internal error, please report: {type(error).__name__}: {error}")
+
+
+def _failed(text: str, reason: str) -> dict:
+    return {"input": text, "ok": False, "earliest": None, "latest": None, "likely": None,
+            "precision": None, "qualifiers": [], "error": reason}
+
+
+def _explanation(text: str, result: dict, unreadable: str | None,
+                 settings: DateSettings) -> list[str]:
+    if unreadable is None:
+        try:
+            return explain(text, settings)
+        except Exception:               # described as an internal error below
+            pass
+    return [_plain(result)]
+
+
+def _json_line(result: dict) -> str:
+    """JSON in UTF-8 where it can be, escaped ASCII where the text cannot be encoded (a lone
+    surrogate from a command-line argument)."""
+    line = json.dumps(result, ensure_ascii=False)
+    try:
+        line.encode("utf-8")
+        return line
+    except UnicodeEncodeError:
+        return json.dumps(result, ensure_ascii=True)
+
+
+def _print_line(text: str) -> None:
+    try:
+        print(text)
+    except UnicodeEncodeError:
+        print(text.encode("utf-8", "backslashreplace").decode("utf-8"))
 
 
 def _plain(result: dict) -> str:

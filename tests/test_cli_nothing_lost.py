@@ -2,6 +2,8 @@
 the report printed whatever happens to the write."""
 from __future__ import annotations
 
+import csv
+import io
 import json
 import os
 import signal
@@ -129,3 +131,119 @@ def test_killing_a_render_mid_write_leaves_the_earlier_chart(tmp_path):
         pytest.skip("the run finished before it could be killed mid-write")
     assert process.returncode == -signal.SIGKILL
     assert target.read_bytes() == b"the earlier chart"
+
+
+# --- safe text out --------------------------------------------------------------------------
+
+HOSTILE = ('label,start,end,kind\n'
+           '\ufeffplain,1650,1660,=HYPERLINK("x")\n'
+           '"with\ufeffmark",1655,1670,+1\n'
+           '"rlo \u202e reversed",1660,1680,@sum\n'
+           '"\x1b[31mred",1665,1670,-2\n')
+
+
+@pytest.fixture
+def hostile(tmp_path) -> Path:
+    path = tmp_path / "hostile.csv"
+    path.write_text(HOSTILE, encoding="utf-8")
+    return path
+
+
+def test_lanes_csv_keeps_formulas_from_running(hostile, capsys):
+    code, out, _ = run(capsys, "lanes", str(hostile), "--group", "kind", "--format", "csv")
+    assert code == 0
+    rows = list(csv.DictReader(io.StringIO(out)))
+    # OWASP, "CSV Injection": a cell a spreadsheet would run gets a leading single quote
+    assert sorted(row["group"] for row in rows) == ["'+1", "'-2", "'=HYPERLINK(\"x\")",
+                                                    "'@sum"]
+    assert all(row["box_start"].isdigit() for row in rows)      # numbers untouched
+
+
+def test_negative_days_in_lanes_csv_are_not_quoted(tmp_path, capsys):
+    path = tmp_path / "bc.csv"
+    path.write_text("label,start,end\nold,200 BC,100 BC\n", encoding="utf-8")
+    code, out, _ = run(capsys, "lanes", str(path), "--format", "csv")
+    row = out.splitlines()[1].split(",")
+    assert row[4].startswith("-") and row[5].startswith("-")
+
+
+def test_terminal_output_escapes_control_characters(hostile, capsys):
+    code, out, err = run(capsys, "lanes", str(hostile), "--group", "label")
+    assert "\x1b" not in out and "\u202e" not in out
+    assert "\\x1b[31mred" in out and "\\u202e" in out
+    bad = hostile.parent / "bad.csv"
+    bad.write_text("label,start,end\n\x1b[2Jwipe,1985-13-01,\n", encoding="utf-8")
+    run(capsys, "check", str(bad))
+    code, out, err = run(capsys, "render", str(bad), "-o", str(hostile.parent / "b.svg"))
+    assert "\x1b" not in err
+
+
+def test_invisible_and_bidi_characters_never_break_a_writer(hostile, tmp_path, capsys):
+    for suffix in (".svg", ".png", ".pdf"):
+        code, _, err = run(capsys, "render", str(hostile), "-o", str(tmp_path / f"h{suffix}"))
+        assert code == 0, err
+    import xml.etree.ElementTree as ET
+
+    texts = [t.text or "" for t in ET.parse(tmp_path / "h.svg").getroot().iter(
+        "{http://www.w3.org/2000/svg}text")]
+    reversed_label = next(text for text in texts if "reversed" in text)
+    assert reversed_label.endswith("\u202c")          # the override is closed in its label
+    assert not any("\ufeff" in text for text in texts)
+
+
+def test_strict_covers_the_bands_table(tmp_path, capsys):
+    bands = tmp_path / "bands.csv"
+    bands.write_text("label,start,end\nGood years,1650,1660\nBad,1985-13-01,1990\n",
+                     encoding="utf-8")
+    target = tmp_path / "strict.svg"
+    code, _, err = run(capsys, "render", str(DEMO), "--bands", str(bands), "--strict",
+                       "-o", str(target))
+    assert code == 1
+    assert "month 13 does not exist" in err and "nothing written" in err
+    assert not target.exists()
+
+
+def test_nothing_drawable_still_names_every_rows_reason(tmp_path, capsys):
+    path = tmp_path / "none.csv"
+    path.write_text("label,start,end\na,1985-13-01,\nb,,\nc,2001-02-29,2002\n", encoding="utf-8")
+    code, _, err = run(capsys, "render", str(path), "-o", str(tmp_path / "none.svg"))
+    assert code == 1
+    assert "month 13 does not exist" in err
+    assert "2001 is not a leap year" in err
+    assert "no date" in err
+    assert "nothing to draw" in err
+
+
+# --- progress on long runs ------------------------------------------------------------------
+
+class _Terminal(io.StringIO):
+    def isatty(self) -> bool:
+        return True
+
+
+def test_progress_shows_on_a_terminal_and_is_wiped_after(monkeypatch):
+    from timelines.cli import progress
+
+    monkeypatch.setattr(progress, "AFTER", 0.0)
+    monkeypatch.setattr(progress, "EVERY", 0.01)
+    terminal = _Terminal()
+    shown = progress.Progress(2, stream=terminal)
+    with shown.step("reading big.csv"):
+        time.sleep(0.1)
+    written = terminal.getvalue()
+    assert "timelines: [----------------------------------------"[:24] in written
+    assert "reading big.csv (step 1 of 2" in written
+    assert written.endswith("\r\x1b[K")                  # wiped when the step ended
+
+
+def test_progress_stays_off_in_pipes_and_with_quiet(monkeypatch, tmp_path, capsys):
+    from timelines.cli import progress
+
+    monkeypatch.setattr(progress, "AFTER", 0.0)
+    monkeypatch.setattr(progress, "EVERY", 0.001)
+    quiet = _Terminal()
+    with progress.Progress(1, stream=quiet, quiet=True).step("reading"):
+        time.sleep(0.02)
+    assert quiet.getvalue() == ""
+    code, _, err = run(capsys, "render", str(DEMO), "-o", str(tmp_path / "d.svg"))
+    assert code == 0 and "\r" not in err and "timelines: [" not in err

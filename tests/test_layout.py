@@ -41,7 +41,7 @@ def extent(span: Span) -> tuple[float, float]:
 
 def lanes_are_disjoint(boxes, lanes, gap) -> bool:
     by_lane: dict[int, list[tuple[float, float]]] = {}
-    for box, lane in zip(boxes, lanes):
+    for box, lane in zip(boxes, lanes, strict=True):
         by_lane.setdefault(lane, []).append(box)
     for members in by_lane.values():
         members.sort()

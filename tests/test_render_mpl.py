@@ -374,7 +374,9 @@ def test_all_fades_at_once_equal_one_fade_at_a_time():
     boxes = numpy.column_stack([left, bottom, left + rng.uniform(0.1, 30, 60),
                                 bottom + rng.uniform(0.1, 12, 60)])
     boxes[5] = (-30, 10, -5, 20)   # wholly off the canvas
-    for fade, box, placed in zip(fades, boxes, _device_fades(fades, boxes, 100, 50)):
+    placed_all = _device_fades(fades, boxes, 100, 50)
+    assert len(placed_all) == len(fades) == 60
+    for fade, box, placed in zip(fades, boxes, placed_all, strict=True):
         expected = one_fade(fade, box, 100, 50)
         if expected is None:
             assert placed is None

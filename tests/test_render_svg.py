@@ -299,7 +299,8 @@ def test_rect_edges_are_rounded_so_abutting_shapes_still_meet():
     edges = [(float(r.get("x")), float(r.get("x")) + float(r.get("width")))
              for r in drawn(root, "rect")]
     assert [round(e, 6) for edge in edges for e in edge] == [0, 10.3, 10.3, 30.3, 30.3, 34.8]
-    for (low, high), exact in zip(edges, [(0.04, 10.26), (10.26, 30.34), (30.34, 34.77)]):
+    for (low, high), exact in zip(edges, [(0.04, 10.26), (10.26, 30.34), (30.34, 34.77)],
+                                  strict=True):
         assert abs(low - exact[0]) <= 0.05 + 1e-9 and abs(high - exact[1]) <= 0.05 + 1e-9
 
 

@@ -291,8 +291,12 @@ class Chart:
         return self._cached("page", lambda: arranged_page(self.layout(), self.options))
 
     def _check_strict(self) -> None:
-        if self._options.strict and self.layout().not_drawn:
-            raise TimelineError(f"nothing written: {self.summary} (strict)")
+        """With strict, any row not drawn stops the write, the --bands table's included."""
+        arranged = self.layout()
+        bands = len(arranged.bands.problems) if arranged.bands else 0
+        if self._options.strict and (arranged.not_drawn or bands):
+            also = f"; {bands} rows of the bands table not read" if bands else ""
+            raise TimelineError(f"nothing written: {self.summary}{also} (strict)")
 
     def _bytes(self, suffix: str) -> bytes:
         buffer = io.BytesIO()

@@ -15,6 +15,7 @@ import contextlib
 import datetime
 import json
 import os
+import re
 import sys
 from importlib import resources
 from pathlib import Path
@@ -32,6 +33,23 @@ from ..scene.theme import DEFAULT_THEME, PALETTES
 from ..sources import ColumnMap
 from .config import apply_settings, config_lines
 from .parser import CONFIG_COMMANDS, DEMO, NOT_SETTINGS, UNSET, build_parser
+from .progress import Progress
+
+
+# Characters a terminal would act on rather than show: C0 and C1 controls (an escape sequence
+# can recolour, move or clear the screen; ECMA-48) and the bidirectional controls (UAX #9),
+# which can reverse the rest of a line. Tab and newline are the report's own layout.
+_TERMINAL_UNSAFE = re.compile("[\x00-\x08\x0b-\x1f\x7f-\x9f\u202a-\u202e\u2066-\u2069]")
+
+
+def terminal_text(text: object) -> str:
+    """`text` with what a terminal would act on written as escapes (`\\x1b`, `\\u202e`)."""
+    return _TERMINAL_UNSAFE.sub(lambda found: ascii(found.group())[1:-1], str(text))
+
+
+def _say(text: object, file=None) -> None:
+    """Print a line that may hold the table's text, safely for a terminal."""
+    _print_line(terminal_text(text), file=file or sys.stdout)
 
 
 def main(argv: list[str] | None = None) -> int:
@@ -84,9 +102,9 @@ def _reporting(debug: bool):
 
 
 def _print_error(error: TimelineError) -> None:
-    print(f"error: {error}", file=sys.stderr)
+    _say(f"error: {error}", file=sys.stderr)
     if getattr(error, "hint", None):
-        print(f"hint: {error.hint}", file=sys.stderr)
+        _say(f"hint: {error.hint}", file=sys.stderr)
 
 
 def _settings(args) -> DateSettings:
@@ -138,16 +156,24 @@ def run_render(args, parser) -> int:
     if args.size and args.width != DEFAULT_THEME.width:
         parser.error("give either --size or --width, not both")
     output_path(args.output)                                # fail before any work
-    chart = Chart.from_options(_input_path(args, parser), _render_options(args))
-    arranged = chart.layout()
+    source = _input_path(args, parser)
+    chart = Chart.from_options(source, _render_options(args))
+    progress = Progress(4, quiet=args.quiet)
+    with progress.step(f"reading {source.name}"):
+        chart.read()
+    with progress.step("checking and laying out"):
+        arranged = chart.layout()
     _print_run(arranged, args, args.era)
     if args.strict and (arranged.not_drawn or _band_problems(arranged)):
         print("error: nothing written (--strict and some rows were not drawn)", file=sys.stderr)
         return 1
-    written = chart.save(args.output)
+    with progress.step("drawing"):
+        chart.scene()
+    with progress.step(f"writing {Path(args.output).name}"):
+        written = chart.save(args.output)
     for warning in chart.warnings:
-        print(f"warning: {warning}", file=sys.stderr)
-    print(f"wrote {written}", file=sys.stderr)
+        _say(f"warning: {warning}", file=sys.stderr)
+    _say(f"wrote {written}", file=sys.stderr)
     return 1 if arranged.not_drawn or _band_problems(arranged) else 0
 
 
@@ -189,15 +215,15 @@ def _print_run(arranged, args, era: str) -> None:
               "(--withhold-living)", file=sys.stderr)
     for placement in arranged.placements:
         for line in lane_report.note_lines(placement.notes, era):
-            print(line, file=sys.stderr)
+            _say(line, file=sys.stderr)
     if arranged.outside:
         named = " (named under the chart)" if args.command == "render" else ""
         print(f"note: {outside_note(len(arranged.outside))}{named}", file=sys.stderr)
     if arranged.bands_off_axis:
         names = ", ".join(repr(band.label) for band in arranged.bands_off_axis)
-        print(f"note: bands not drawn, outside the time shown or undated: {names}",
+        _say(f"note: bands not drawn, outside the time shown or undated: {names}",
               file=sys.stderr)
-    print(arranged.summary(args.max_lanes), file=sys.stderr)
+    _say(arranged.summary(args.max_lanes), file=sys.stderr)
     _print_hidden_labels(arranged.placements)
 
 
@@ -218,7 +244,13 @@ def run_lanes(args, parser) -> int:
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=settings,
                            theme=theme, lanes=_lane_settings(args),
                            window=_window(args, settings))
-    arranged = Chart.from_options(_input_path(args, parser), options).layout()
+    source = _input_path(args, parser)
+    chart = Chart.from_options(source, options)
+    progress = Progress(2, quiet=args.quiet)
+    with progress.step(f"reading {source.name}"):
+        chart.read()
+    with progress.step("checking and laying out"):
+        arranged = chart.layout()
     _print_run(arranged, args, theme.era)
     if arranged.placement is None:
         raise TimelineError("nothing to lay out: no row has a usable date")
@@ -227,25 +259,28 @@ def run_lanes(args, parser) -> int:
     elif args.format == "json":
         lane_report.write_json(arranged.placement, sys.stdout)
     else:
-        print("\n".join(lane_report.summary_lines(arranged.placement, theme.era)))
+        for line in lane_report.summary_lines(arranged.placement, theme.era):
+            _say(line)
     return 1 if arranged.not_drawn else 0
 
 
 def _print_problems(problems) -> None:
     for problem in problems:
-        print(problem, file=sys.stderr)
+        _say(problem, file=sys.stderr)
 
 
 
 def run_check(args, parser) -> int:
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args))
-    report = check(Chart.from_options(_input_path(args, parser), options).read().loaded)
+    source = _input_path(args, parser)
+    with Progress(1, quiet=args.quiet).step(f"reading {source.name}"):
+        report = check(Chart.from_options(source, options).read().loaded)
     if args.json:
         print(json.dumps(report.as_dict(), ensure_ascii=False, indent=2))
     else:
         for line in report.lines():     # the report is this command's output: stdout
-            print(line)
-        print(report.summary())
+            _say(line)
+        _say(report.summary())
     return 1 if report.not_drawn else 0
 
 
@@ -263,7 +298,7 @@ def run_parse(args, parser) -> int:
         if args.explain:
             result = _described(text, unreadable, settings)
             failed += not result["ok"]
-            _print_line(("\n" if number else "") + "\n".join(
+            _say(("\n" if number else "") + "\n".join(
                 _explanation(text, result, unreadable, settings)))
             continue
         key = text if unreadable is None else None
@@ -275,7 +310,10 @@ def run_parse(args, parser) -> int:
         else:
             line = shown[key]
         failed += not line[1]
-        _print_line(line[0])
+        if args.json:
+            _print_line(line[0])            # JSON escapes controls itself
+        else:
+            _say(line[0])
     return 1 if failed else 0
 
 
@@ -336,11 +374,12 @@ def _json_line(result: dict) -> str:
         return json.dumps(result, ensure_ascii=True)
 
 
-def _print_line(text: str) -> None:
+def _print_line(text: str, file=None) -> None:
+    file = file or sys.stdout
     try:
-        print(text)
+        print(text, file=file)
     except UnicodeEncodeError:
-        print(text.encode("utf-8", "backslashreplace").decode("utf-8"))
+        print(text.encode("utf-8", "backslashreplace").decode("utf-8"), file=file)
 
 
 def _plain(result: dict) -> str:

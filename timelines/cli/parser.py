@@ -25,7 +25,7 @@ ERAS = ("bce", "bc", "astronomical", "bp")
 LANE_DEFAULTS = LaneSettings()
 # Options that say what to run or where output goes, not how: never read from a config file.
 NOT_SETTINGS = frozenset({"help", "input", "output", "demo", "config", "print_config", "json",
-                          "format", "command", "debug", "version", "text"})
+                          "format", "command", "debug", "version", "text", "quiet"})
 CONFIG_COMMANDS = ("render", "check", "lanes")
 UNSET = {**{part: "found from the header names" for part in
             ("start", "end", "when", "label", "group", "color", "id")},
@@ -202,6 +202,8 @@ def _privacy_options(parser: argparse.ArgumentParser) -> None:
 
 
 def _config_options(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("--quiet", action="store_true",
+                        help="no progress line on a long run (shown only on a terminal)")
     parser.add_argument("--config", metavar="FILE",
                         help="TOML file of settings; keys are the long option names")
     parser.add_argument("--print-config", action="store_true",

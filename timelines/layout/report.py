@@ -238,35 +238,49 @@ def day_texts(days: np.ndarray) -> list[str]:
 def write_csv(placement: Placement, stream: TextIO) -> None:
     """The record rows as CSV (RFC 4180 quoting; a field with a comma, a quote or a line
     break is quoted). The placed records' rows are joined column by column: a register of
-    200,000 rows took longer to hand to the csv module, row by row, than to lay out."""
-    stream.write(",".join(record_columns(placement)) + "\n")
+    200,000 rows took longer to hand to the csv module, row by row, than to lay out.
+
+    A cell of the table's own text (id, group) that a spreadsheet would run as a formula
+    (it begins with =, +, -, @, a tab or a carriage return) is written with a single quote
+    before it, as OWASP's advice on CSV injection has it; numbers are ours and left alone."""
+    names = record_columns(placement)
+    stream.write(",".join(names) + "\n")
+    table_text = range(1, len(names) - 3)     # id and group names: between row and lane
     for columns in _placed_columns(placement, day_texts):
         if columns[0]:
-            texts = [_csv_fields(column) for column in columns]
+            texts = [_csv_fields(column, place in table_text)
+                     for place, column in enumerate(columns)]
             stream.write("\n".join(map(",".join, zip(*texts))) + "\n")
     for row in _unplaced_rows(placement, day_texts):   # a few rows: one at a time
-        stream.write(",".join(map(_csv_field, row)) + "\n")
+        stream.write(",".join(_csv_field(cell, place in table_text)
+                              for place, cell in enumerate(row)) + "\n")
 
 
 _CSV_SPECIAL = re.compile(r'[,"\r\n]')
+# What a spreadsheet reads as the start of a formula (OWASP, "CSV Injection").
+_FORMULA_STARTS = frozenset("=+-@\t\r")
 
 
-def _csv_fields(column: list) -> list[str]:
+def _csv_fields(column: list, table_text: bool = False) -> list[str]:
     """Each cell of a column as a CSV field: numbers as str() writes them, text quoted when
-    it holds a comma, a quote or a line break (a quote inside doubled)."""
+    it holds a comma, a quote or a line break (a quote inside doubled); `table_text`: the
+    table's own text, kept from being run as a formula."""
     if not column or type(column[0]) is not str:
         return list(map(str, column))
-    if not _CSV_SPECIAL.search("".join(column)):
+    risky = table_text and any(cell[:1] in _FORMULA_STARTS for cell in column)
+    if not risky and not _CSV_SPECIAL.search("".join(column)):
         return column                       # the usual case: nothing to quote
-    return list(map(_csv_field, column))
+    return [_csv_field(cell, table_text) for cell in column]
 
 
-def _csv_field(cell: object) -> str:
+def _csv_field(cell: object, table_text: bool = False) -> str:
     """One cell as a CSV field (see _csv_fields); None is an empty cell."""
     if cell is None:
         return ""
     if type(cell) is not str:
         return str(cell)
+    if table_text and cell[:1] in _FORMULA_STARTS:
+        cell = "'" + cell
     if not _CSV_SPECIAL.search(cell):
         return cell
     doubled = cell.replace('"', '""')

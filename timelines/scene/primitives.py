@@ -16,6 +16,16 @@ PX_PER_INCH = 96.0
 # draws them; SVG collapses XML whitespace, so every renderer does (one clean-up for all).
 _NOT_TEXT = re.compile("[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f\ud800-\udfff\ufffe\uffff]")
 _WHITESPACE = re.compile("[\t\n\r ]+")
+# U+FEFF inside text is a zero-width no-break space (a byte-order mark pasted along): it draws
+# nothing, and matplotlib's PDF writer fails on it. U+2060 WORD JOINER is its modern form
+# (Unicode 15, section 23.8, from memory): the join is kept, the character is not.
+_INVISIBLE = re.compile("\ufeff")
+# Unicode bidirectional formatting characters (UAX #9, section 2): embeddings and overrides
+# end at PDF, isolates at PDI.
+_EMBEDDINGS = frozenset("\u202a\u202b\u202d\u202e")   # LRE, RLE, LRO, RLO
+_ISOLATES = frozenset("\u2066\u2067\u2068")            # LRI, RLI, FSI
+_POP_EMBEDDING, _POP_ISOLATE = "\u202c", "\u2069"        # PDF, PDI
+_BIDI = re.compile("[\u202a-\u202e\u2066-\u2069]")
 # How a vector renderer writes text: as text (selectable, restylable) or as glyph outlines.
 TEXT_MODES = ("text", "paths")
 PX_PER_MM = PX_PER_INCH / 25.4
@@ -129,8 +139,35 @@ def find(scene: Scene, css_class: str) -> list[Primitive]:
 
 
 def clean_text(text: str) -> str:
-    """`text` without the characters XML 1.0 cannot carry (so an SVG stays well-formed)."""
-    return _NOT_TEXT.sub("", str(text))
+    """`text` without the characters XML 1.0 cannot carry (so an SVG stays well-formed) or
+    that draw nothing and break a writer, its bidirectional controls balanced."""
+    text = _INVISIBLE.sub("\u2060", _NOT_TEXT.sub("", str(text)))
+    return balanced_bidi(text) if _BIDI.search(text) else text
+
+
+def balanced_bidi(text: str) -> str:
+    """`text` with every bidirectional embedding, override and isolate closed within it: a
+    closer with nothing to close is dropped, and what is still open at the end is closed
+    there, so a label drawn right to left cannot reverse the text after it."""
+    out: list[str] = []
+    open_: list[str] = []
+    for character in text:
+        if character in _EMBEDDINGS or character in _ISOLATES:
+            open_.append(character)
+        elif character == _POP_EMBEDDING:
+            if not open_ or open_[-1] not in _EMBEDDINGS:
+                continue                     # nothing of its kind to close here
+            open_.pop()
+        elif character == _POP_ISOLATE:
+            if not any(opener in _ISOLATES for opener in open_):
+                continue
+            while open_[-1] not in _ISOLATES:        # an isolate's end closes what it holds
+                out.append(_POP_EMBEDDING)
+                open_.pop()
+            open_.pop()
+        out.append(character)
+    out += [_POP_ISOLATE if opener in _ISOLATES else _POP_EMBEDDING for opener in reversed(open_)]
+    return "".join(out)
 
 
 def drawable_text(text: str) -> str:

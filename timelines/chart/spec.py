@@ -181,6 +181,11 @@ class Chart:
     # --- results ------------------------------------------------------------------------------
 
     @property
+    def data(self):
+        """What the chart draws: the path, DataFrame, rows or Records it was made with."""
+        return self._data
+
+    @property
     def options(self) -> ChartOptions:
         """Every setting, as the pipeline takes them."""
         window = parse_window(*self._window_text, self._options.settings)

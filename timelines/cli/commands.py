@@ -156,13 +156,9 @@ def run_render(args, parser) -> int:
     if args.size and args.width != DEFAULT_THEME.width:
         parser.error("give either --size or --width, not both")
     output_path(args.output)                                # fail before any work
-    source = _input_path(args, parser)
-    chart = Chart.from_options(source, _render_options(args))
+    chart = Chart.from_options(_input_path(args, parser), _render_options(args))
     progress = Progress(4, quiet=args.quiet)
-    with progress.step(f"reading {source.name}"):
-        chart.read()
-    with progress.step("checking and laying out"):
-        arranged = chart.layout()
+    arranged = _laid_out(chart, progress)
     _print_run(arranged, args, args.era)
     if args.strict and (arranged.not_drawn or _band_problems(arranged)):
         print("error: nothing written (--strict and some rows were not drawn)", file=sys.stderr)
@@ -175,6 +171,14 @@ def run_render(args, parser) -> int:
         _say(f"warning: {warning}", file=sys.stderr)
     _say(f"wrote {written}", file=sys.stderr)
     return 1 if arranged.not_drawn or _band_problems(arranged) else 0
+
+
+def _laid_out(chart: Chart, progress: Progress):
+    """The chart's table read and laid out, each step shown on a long run."""
+    with progress.step(f"reading {Path(str(chart.data)).name}"):
+        chart.read()
+    with progress.step("checking and laying out"):
+        return chart.layout()
 
 
 def _render_options(args) -> ChartOptions:
@@ -244,13 +248,8 @@ def run_lanes(args, parser) -> int:
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=settings,
                            theme=theme, lanes=_lane_settings(args),
                            window=_window(args, settings))
-    source = _input_path(args, parser)
-    chart = Chart.from_options(source, options)
-    progress = Progress(2, quiet=args.quiet)
-    with progress.step(f"reading {source.name}"):
-        chart.read()
-    with progress.step("checking and laying out"):
-        arranged = chart.layout()
+    chart = Chart.from_options(_input_path(args, parser), options)
+    arranged = _laid_out(chart, Progress(2, quiet=args.quiet))
     _print_run(arranged, args, theme.era)
     if arranged.placement is None:
         raise TimelineError("nothing to lay out: no row has a usable date")

@@ -173,9 +173,10 @@ def _widened(endpoint: Endpoint, field: str, amount: int, calendar: str) -> tupl
         return endpoint.earliest - amount, endpoint.latest + amount
     first, last = year_of(endpoint.earliest, calendar), year_of(endpoint.latest, calendar)
     if unit == "percent":
-        # Deep time: a share of the age, counted back from the present of BP (1950).
-        first -= (PRESENT_YEAR - first) * amount // 100
-        last += (PRESENT_YEAR - last) * amount // 100
+        # Deep time: a share of the age, counted back from the present of BP (1950); a year
+        # after it (Y171010000S3~) is as far off the other way, and widens as much.
+        first -= abs(PRESENT_YEAR - first) * amount // 100
+        last += abs(PRESENT_YEAR - last) * amount // 100
     else:
         first, last = first - amount, last + amount
     return year_bounds(first, calendar)[0], year_bounds(last, calendar)[1]

@@ -91,12 +91,18 @@ def read_iso_calendar(match: re.Match[str], era: str | None, marker: str | None,
     if match["time"]:
         check_time(match["time"])
     if match["month_only"] and "X" not in month_text and int(month_text) > 20:
-        base = edtf.sub_year(int(year_text), int(month_text), calendar, settings)
+        base = _sub_year(year_text, int(month_text), calendar, settings)
     elif "X" in year_text + month_text + day_text:
         base = edtf.unspecified(year_text, month_text, day_text, calendar)
     else:
         base = _calendar_date(year_text, month_text, day_text, calendar)
     return edtf.with_component_marks(base, match, settings, calendar)
+
+
+def _sub_year(year_text: str, code: int, calendar: str, settings: DateSettings) -> Endpoint:
+    if "X" in year_text:
+        return edtf.unspecified_sub_year(year_text, code, calendar, settings)
+    return edtf.sub_year(int(year_text), code, calendar, settings)
 
 
 def _calendar_date(year_text: str, month_text: str, day_text: str, calendar: str) -> Endpoint:

@@ -191,7 +191,12 @@ _GROUPINGS = {33: (1, 3), 34: (4, 3), 35: (7, 3), 36: (10, 3), 37: (1, 4), 38: (
 
 def read_long_year(match: re.Match[str], era: str | None, marker: str | None,
                    settings: DateSettings) -> Endpoint:
-    value = int(match["digits"]) * 10 ** int(match["exponent"] or 0)
+    exponent = int(match["exponent"] or 0)
+    if len(match["digits"].lstrip("0")) + exponent > MAX_YEAR_DIGITS:
+        # Said as written: Y9E99 written out would be a hundred digits long.
+        raise Unreadable(f"year {match[0]} is out of range (at most {MAX_YEAR_DIGITS} digits)",
+                         fragment=match[0])
+    value = int(match["digits"]) * 10 ** exponent
     return _year_estimate(-value if match["sign"] == "-" else value, match, marker)
 
 

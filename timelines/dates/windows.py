@@ -46,8 +46,21 @@ _PLAIN_PUNCTUATION = str.maketrans({"\u2019": "'", "\u2018": "'", "\u2010": "-",
 
 def check_year(year: int) -> int:
     if abs(year) >= 10 ** MAX_YEAR_DIGITS:
-        raise Unreadable(f"year {year} is out of range (at most {MAX_YEAR_DIGITS} digits)")
+        raise Unreadable(f"year {_year_shown(year)} is out of range (at most {MAX_YEAR_DIGITS} "
+                         "digits)")
     return year
+
+
+def _year_shown(year: int) -> str:
+    """A year for a message: written out while that is readable, else by its size (a float
+    cell of 1e300 holds a year of 301 digits)."""
+    return str(year) if abs(year) < 10 ** 24 else f"of {digits_about(year)} digits"
+
+
+def digits_about(number: int) -> str:
+    """How many digits a number has, roughly, without writing it out (str() refuses ints of
+    over 4,300 digits)."""
+    return f"about {int(number.bit_length() * 0.30103) + 1:,}"   # log10(2) digits a bit
 
 
 @lru_cache(maxsize=1 << 16)

@@ -9,15 +9,18 @@ Three steps, each usable alone:
   label, group, color, id) from common header names.
 - `load_records(table, columns, settings)` turns rows into `Record`s and `Problem`s. Every
   non-blank row ends as a Record (drawn, or undated and listed) or as a Problem (not drawn):
-  no row is lost. Every cell error of every row is collected, not just the first.
+  no row is lost. Every cell error of every row is collected, not just the first, and an
+  unexpected fault in one cell is that cell's problem.
 
 Rows are numbered as a spreadsheet program numbers them: the header is row 1, so the first
 data row is row 2. This is the only module of the project that imports pandas.
 """
 from .columns import COLUMN_NAMES, ColumnMap, detect_columns
 from ..dates.column import OPEN_CELL
-from .records import LoadResult, Problem, load_records, read_records
+from .problems import PROBLEM_KINDS, Problem
+from .records import LoadResult, load_records, read_records
 from .tables import READABLE, Table, cell_text, read_table
 
-__all__ = ["COLUMN_NAMES", "ColumnMap", "LoadResult", "OPEN_CELL", "Problem", "READABLE",
-           "Table", "cell_text", "detect_columns", "load_records", "read_records", "read_table"]
+__all__ = ["COLUMN_NAMES", "ColumnMap", "LoadResult", "OPEN_CELL", "PROBLEM_KINDS", "Problem",
+           "READABLE", "Table", "cell_text", "detect_columns", "load_records", "read_records",
+           "read_table"]

@@ -1,5 +1,6 @@
 """Rows into Records and Problems: every non-blank row is drawn, listed as undated, or
-reported with its row, column, text and reason. Each distinct cell value is parsed once."""
+reported with its row, column, text and reason. Each distinct cell value is parsed once, and
+no cell, whatever it holds, stops the rest of the table (guarded.py)."""
 from __future__ import annotations
 
 from collections.abc import Callable, Iterable
@@ -16,6 +17,8 @@ from ..dates.settings import DEFAULT_SETTINGS, DateSettings
 from ..errors import UsageError
 from ..model import Endpoint, Provenance, Qualifier, Record, Span
 from .columns import ColumnMap, detect_columns, existing_column, column_parts
+from .guarded import internal_error, parsed_column
+from .problems import Problem
 from .tables import Table, cell_text, read_table
 
 _UNKNOWN_START = Endpoint.open(Qualifier.UNKNOWN_START)
@@ -24,57 +27,6 @@ _OPEN_START = Endpoint.open(Qualifier.OPEN_START)
 _OPEN_END = Endpoint.open(Qualifier.OPEN_END)
 # ISO 8601-2 writes an open end of an interval as "..". Alone in a start or end cell (OPEN_CELL)
 # it means the same; only the column says which side is open, so this module tells the parser.
-
-PROBLEM_KINDS = ("error", "undated", "contradiction")
-
-
-@dataclass(frozen=True, slots=True)
-class Problem:
-    """Something to report about one row (or one cell of it).
-
-    kind "error": a cell could not be read; "contradiction": the end lies wholly before the
-    start. Both keep the row off the chart. kind "undated": the row has no date at all; it is
-    a Record with no span, listed in a note under the chart."""
-
-    source: str
-    row: int
-    column: str | None
-    id: str | None
-    text: str
-    reason: str
-    kind: str = "error"
-    hint: str | None = None
-
-    def __post_init__(self) -> None:
-        if self.kind not in PROBLEM_KINDS:
-            raise ValueError(f"kind must be one of {', '.join(PROBLEM_KINDS)}, not {self.kind!r}")
-
-    def location(self) -> str:
-        return ":".join(str(part) for part in (self.source, self.row, self.column)
-                        if part is not None)
-
-    def __str__(self) -> str:
-        who = f" [{self.id}]" if self.id else ""
-        if self.kind == "error":
-            message = f"cannot read {_shown(self.text)}: {self.reason}"
-        elif self.kind == "undated":
-            message = f"no date: {self.reason}"
-        else:
-            message = self.reason
-        if self.hint:
-            message += f" ({self.hint})"
-        return f"{self.location()}:{who} {message}"
-
-
-SHOWN_CHARACTERS = 60   # of a cell's text in a one-line message; the Problem keeps it all
-
-
-def _shown(text: str) -> str:
-    """The cell's text as a message quotes it: a very long cell only by its start and size."""
-    if len(text) <= SHOWN_CHARACTERS:
-        return repr(text)
-    return f"{text[:SHOWN_CHARACTERS]!r}... ({len(text):,} characters)"
-
 
 @dataclass(frozen=True, slots=True)
 class LoadResult:
@@ -174,7 +126,7 @@ def _start_end_outcomes(cells: list[list[object]], layout: _Layout,
     # Parsed cells are shared objects, one per distinct value, kept alive by the two lists:
     # identity names them, so each distinct pair is made into a span once.
     pairs = list(zip(map(id, starts), map(id, ends)))
-    found = {pair: _outcome(starts[row], ends[row], layout)
+    found = {pair: _guarded_outcome(starts[row], ends[row], layout)
              for pair, row in dict(zip(pairs, range(len(pairs)))).items()}
     return list(map(found.__getitem__, pairs))
 
@@ -183,7 +135,18 @@ def _side(cells: list[list[object]], place: int | None, open_side: Endpoint,
           settings: DateSettings) -> list[Endpoint | DateError | None]:
     if place is None:
         return [None] * len(cells[0])
-    return parse_column(cells[place], settings, open_cell=open_side)
+    return parsed_column(parse_column, cells[place], settings, open_cell=open_side)
+
+
+def _guarded_outcome(start: Endpoint | DateError | None, end: Endpoint | DateError | None,
+                     layout: _Layout) -> DateOutcome:
+    """The span of a row from its two endpoints; a fault of ours is the end cell's problem
+    (the start's, with no end column)."""
+    try:
+        return _outcome(start, end, layout)
+    except Exception as error:  # noqa: BLE001 - reported as the row's problem
+        place = layout.end if layout.end is not None else layout.start
+        return [(place, internal_error("", error))]   # the Problem quotes the cell's text
 
 
 def _outcome(start: Endpoint | DateError | None, end: Endpoint | DateError | None,
@@ -209,7 +172,7 @@ def _when_outcomes(cells: list[object], place: int,
             return failures.setdefault(id(span), [(place, span)])
         return span
 
-    return list(map(outcome, parse_span_column(cells, settings)))
+    return list(map(outcome, parsed_column(parse_span_column, cells, settings)))
 
 
 def _texts(cells: list[object]) -> list[str]:

@@ -14,9 +14,13 @@ Date systems (from memory: Microsoft, "Date systems in Excel" and "Excel incorre
 that the year 1900 is a leap year"; OpenDocument 1.2, table:null-date):
 - Excel 1900: serial 1 is 1900-01-01; serial 60 is 1900-02-29, a day that did not exist, kept
   for compatibility with Lotus 1-2-3; serial 61 is 1900-03-01; the last is 2958465 (9999-12-31);
+  serial 0, shown as 1900-01-00, is no day: a cell holding less than 1 is a time of day;
 - Excel 1904 (older Mac workbooks, the workbook property date1904): serial 0 is 1904-01-01;
 - OpenDocument: serial 0 is the document's null date, 1899-12-30 unless it says otherwise,
   and there is no 29 February 1900.
+Excel counts no day before its first, but other programs write earlier days as negative
+serials counted back from 1899-12-30 (1900 system) or 1904-01-01: openpyxl, and pandas through
+it, write 1650-03-04 as -91246; LibreOffice does the same. They are read so.
 """
 from __future__ import annotations
 
@@ -38,21 +42,20 @@ class DateSystem:
 
     name: str                      # as a message says it
     day_zero: date
-    first_serial: int | None       # the first day counted; None: earlier days count back
-    lotus_leap_day: bool = False   # serial 60 is 1900-02-29 and days before it shift by one
+    lotus_leap_day: bool = False   # serial 60 is 1900-02-29 and days 1-59 shift by one
 
     @property
     def last_serial(self) -> int:
         return (date(9999, 12, 31) - self.day_zero).days
 
 
-EXCEL_1900 = DateSystem("Excel's 1900 date system", date(1899, 12, 30), 1, lotus_leap_day=True)
-EXCEL_1904 = DateSystem("Excel's 1904 date system", date(1904, 1, 1), 0)
+EXCEL_1900 = DateSystem("Excel's 1900 date system", date(1899, 12, 30), lotus_leap_day=True)
+EXCEL_1904 = DateSystem("Excel's 1904 date system", date(1904, 1, 1))
 
 
 def opendocument_system(null_date: date = date(1899, 12, 30)) -> DateSystem:
     return DateSystem(f"the document's date system (day 0 = {null_date.isoformat()})",
-                      null_date, None)
+                      null_date)
 
 
 def day_from_serial(serial: float, system: DateSystem) -> datetime | UnreadableCell:
@@ -65,11 +68,10 @@ def day_from_serial(serial: float, system: DateSystem) -> datetime | UnreadableC
     if system.lotus_leap_day and whole == 0:
         shown = _time_of_day(serial - whole).isoformat()
         return UnreadableCell(shown, "a time of day with no date", shown)
-    if (system.first_serial is not None and whole < system.first_serial) or (
-            whole > system.last_serial) or system.day_zero.toordinal() + whole < 1:
+    if whole > system.last_serial or system.day_zero.toordinal() + whole < 1:
         return UnreadableCell(_number_text(serial), f"{_number_text(serial)} is not a day "
-                              f"of {system.name}", _number_text(serial))
-    if system.lotus_leap_day and whole < 60:
+                              f"of {system.name} (AD 1 to 9999)", _number_text(serial))
+    if system.lotus_leap_day and 0 < whole < 60:
         whole += 1                 # before the day that did not exist: one day later
     day = system.day_zero + timedelta(days=whole)
     return datetime.combine(day, _time_of_day(serial - math.floor(serial)))

@@ -212,7 +212,8 @@ def test_an_iso_column_with_an_odd_cell_takes_the_general_path(column):
     results = parse_column(column)
     assert results[0] == parse_endpoint("1985-04-12")
     expected = [endpoint_from_cell(value) if not _fails(value) else None for value in column]
-    for result, value, wanted in zip(results, column, expected):
+    # strict: a reader that returned fewer results (or none) must fail here, not pass.
+    for result, value, wanted in zip(results, column, expected, strict=True):
         if wanted is None:
             assert isinstance(result, DateError)
         else:

@@ -80,7 +80,8 @@ GENEALOGIST = [
 def test_every_cell_reads_as_meant(sheet):
     assert len({row[0] for row in sheet}) == len(sheet)
     results = parse_column([row[0] for row in sheet])
-    for (text, earliest, latest), endpoint in zip(sheet, results):
+    # strict: a reader that returned fewer results (or none) must fail here, not pass.
+    for (text, earliest, latest), endpoint in zip(sheet, results, strict=True):
         assert not isinstance(endpoint, DateError), (text, endpoint)
         assert (_iso(endpoint.earliest), _iso(endpoint.latest)) == (earliest, latest), text
         assert endpoint == parse_endpoint(text)

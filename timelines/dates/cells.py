@@ -19,7 +19,7 @@ from ..model import Endpoint, Precision, Span
 from .ranges import parse_endpoint, parse_span
 from .reasons import DATE_HINT, reading
 from .settings import DEFAULT_SETTINGS, DateSettings
-from .windows import day, years
+from .windows import day, digits_about, years
 
 # What cataloguers write for "no date" (n.d., Latin s.d. sine dato): the cell says no date.
 NO_DATE_WORDS = frozenset({"n.d.", "n.d", "nd", "s.d.", "s.d", "undated", "unknown", "?", "??"})
@@ -57,13 +57,20 @@ def _endpoint_from_value(value: object, settings: DateSettings) -> Endpoint:
     if isinstance(value, bool):
         raise DateError(str(value), "a true/false cell is not a date", hint=DATE_HINT)
     if isinstance(value, numbers.Integral):
-        return _year_cell(int(value), str(value), settings)
+        return _year_cell(int(value), _integer_text(int(value)), settings)
     if isinstance(value, numbers.Real):
         return _number_cell(float(value), settings)
     if all(hasattr(value, name) for name in ("year", "month", "day")):
         return _day_cell(value)
     raise DateError(str(value), f"a cell of type {type(value).__name__} is not a date",
                     hint=DATE_HINT)
+
+
+def _integer_text(number: int) -> str:
+    try:
+        return str(number)
+    except ValueError:   # over sys.get_int_max_str_digits() digits (4,300 unless set)
+        return f"a whole number of {digits_about(number)} digits"
 
 
 def _year_cell(year: int, text: str, settings: DateSettings) -> Endpoint:

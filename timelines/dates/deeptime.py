@@ -65,12 +65,11 @@ def read_age(match: re.Match[str], era: str | None, marker: str | None,
     value = _scaled(match["value"], places) * scale * 2
     if match["error"]:
         error = _scaled(match["error"], places) * scale * 2
-        nearest, farthest = -(-(value - error) // denominator), (value + error) // denominator
+        nearest, farthest = _whole_ages(value - error, value + error, denominator, True)
     else:
         # Every age that rounds to the value at its last written digit: [value - ½, value + ½).
         half = scale * 10 ** (places - _decimals(match["value"]))
-        nearest = -(-(value - half) // denominator)
-        farthest = -(-(value + half) // denominator) - 1
+        nearest, farthest = _whole_ages(value - half, value + half, denominator, False)
     nominal = min(max((value + denominator // 2) // denominator, nearest), farthest)
     endpoint = _ages(present - farthest, present - nearest, present - nominal,
                      bool(match["error"]))
@@ -79,6 +78,23 @@ def read_age(match: re.Match[str], era: str | None, marker: str | None,
                    f"{'the error term' if match['error'] else 'to its last digit'}: "
                    f"{trace.bounds(endpoint)}")
     return endpoint
+
+
+def _whole_ages(low: int, high: int, denominator: int, high_included: bool) -> tuple[int, int]:
+    """The nearest and farthest whole age (years before the present) of the ages `low` up to
+    `high`, given in units of 1/denominator of a year."""
+    nearest = -(-low // denominator)
+    farthest = high // denominator if high_included else -(-high // denominator) - 1
+    if nearest <= farthest:
+        return nearest, farthest
+    # No whole age inside: a window finer than a year (0.999999999 Ma is 999,999.9985 up to
+    # 999,999.9995 years). Then the years that hold it, each whole age N holding the ages that
+    # round to it, N - ½ up to N + ½, as 12,500 BP holds 12,499.5 up to 12,500.5.
+    half = denominator // 2
+    nearest = (low + half) // denominator
+    farthest = ((high + half) // denominator if high_included
+                else -(-(high + half) // denominator) - 1)
+    return nearest, farthest
 
 
 def _scaled(text: str, places: int) -> int:

@@ -11,7 +11,8 @@ EDTF specification (Library of Congress, 2019), from memory.
 - Unspecified digits `X` anywhere, bounded to days that exist: `156X-12-25` is 1560-12-25 ..
   1569-12-25, `1985-04-3X` is 1985-04-30 (April has no 31st), `XXXX-02-29` is refused as
   saying nothing of the year. Precision: the coarsest unit with an X.
-- Sub-year groupings in the month's place: 21-24 spring, summer, autumn, winter (independent
+- Sub-year groupings in the month's place (of a year with unspecified digits too: `20XX-41`
+  is the second half of some year 2000..2099): 21-24 spring, summer, autumn, winter (independent
   of location: read in the hemisphere setting, northern by default), 25-28 the same in the
   northern and 29-32 in the southern hemisphere; 33-36 quarters, 37-39 quadrimesters (four
   months), 40-41 semesters (six months). Months of seasons: see seasons.py.
@@ -78,9 +79,7 @@ def _component_marks(match: re.Match[str]) -> list[tuple[str, str]]:
 
 def unspecified(year_text: str, month_text: str, day_text: str, calendar: str) -> Endpoint:
     """The window of every existing date the digits allow, `X` standing for any digit."""
-    if year_text.lstrip("+-") == "XXXX":
-        raise Unreadable("a year with no known digit says nothing", fragment=year_text,
-                         hint="leave the cell empty for an unknown date")
+    _check_known_digit(year_text)
     earliest = _first_existing(year_text, month_text, day_text, calendar, forward=True)
     latest = _first_existing(year_text, month_text, day_text, calendar, forward=False)
     precision = _unspecified_precision(year_text, month_text)
@@ -90,6 +89,12 @@ def unspecified(year_text: str, month_text: str, day_text: str, calendar: str) -
                    f"{'-'.join(p for p in (year_text, month_text, day_text) if p)} allows: "
                    f"{trace.bounds(endpoint)}")
     return endpoint
+
+
+def _check_known_digit(year_text: str) -> None:
+    if year_text.lstrip("+-") == "XXXX":
+        raise Unreadable("a year with no known digit says nothing", fragment=year_text,
+                         hint="leave the cell empty for an unknown date")
 
 
 def _unspecified_precision(year_text: str, month_text: str) -> Precision:
@@ -163,6 +168,21 @@ def sub_year(year: int, code: int, calendar: str, settings: DateSettings) -> End
     return consecutive_months(year, first, count, calendar)
 
 
+def unspecified_sub_year(year_text: str, code: int, calendar: str,
+                         settings: DateSettings) -> Endpoint:
+    """`20XX-41`: the grouping `code` of any year the digits allow, from its first days in
+    the first such year to its last days in the last (the second half of 2000 .. of 2099)."""
+    _check_known_digit(year_text)
+    first = sub_year(next(_matching_years(year_text, forward=True)), code, calendar, settings)
+    last = sub_year(next(_matching_years(year_text, forward=False)), code, calendar, settings)
+    endpoint = Endpoint(first.earliest, last.latest, _unspecified_precision(year_text, ""),
+                        first.qualifiers | {Qualifier.UNSPECIFIED})
+    if trace.on:
+        trace.note(f"unspecified digits X: sub-year grouping {code} of every year that "
+                   f"{year_text} allows: {trace.bounds(endpoint)}")
+    return endpoint
+
+
 _SEASONS = ("spring", "summer", "autumn", "winter")
 # code -> (first month, number of months): quarters, quadrimesters, semesters
 _GROUPINGS = {33: (1, 3), 34: (4, 3), 35: (7, 3), 36: (10, 3), 37: (1, 4), 38: (5, 4),
@@ -171,7 +191,12 @@ _GROUPINGS = {33: (1, 3), 34: (4, 3), 35: (7, 3), 36: (10, 3), 37: (1, 4), 38: (
 
 def read_long_year(match: re.Match[str], era: str | None, marker: str | None,
                    settings: DateSettings) -> Endpoint:
-    value = int(match["digits"]) * 10 ** int(match["exponent"] or 0)
+    exponent = int(match["exponent"] or 0)
+    if len(match["digits"].lstrip("0")) + exponent > MAX_YEAR_DIGITS:
+        # Said as written: Y9E99 written out would be a hundred digits long.
+        raise Unreadable(f"year {match[0]} is out of range (at most {MAX_YEAR_DIGITS} digits)",
+                         fragment=match[0])
+    value = int(match["digits"]) * 10 ** exponent
     return _year_estimate(-value if match["sign"] == "-" else value, match, marker)
 
 

@@ -87,7 +87,9 @@ MARK = re.compile(rf"""
          | \(? (?P<calendar> {_CALENDAR_FORWARDS} ) \)? )
 """, FLAGS)
 _WORD_START = frozenset("abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZ?@")
-_ORDINAL_WORD_START = ("1st ", "2nd ", "3rd ", "4th ")
+# `2nd quarter of`: a part word that begins with a digit; compared in lower case, as the
+# WORD regex reads it (`2ND QUARTER OF THE 18TH CENTURY` was once missed here).
+_ORDINAL_WORD_START = frozenset({"1st ", "2nd ", "3rd ", "4th "})
 
 _JULIAN_NAMES = ("julian", "os", "oldstyle", "@#djulian@")
 
@@ -109,7 +111,7 @@ def read_framed(text: str, settings: DateSettings) -> Endpoint | None:
     """A date with its words, era and marks; None when its core is no date form."""
     if not text:
         return None
-    has_words = text[0] in _WORD_START or text.startswith(_ORDINAL_WORD_START)
+    has_words = _may_have_words(text)
     suffix = None if text[-1].isdigit() else SUFFIX_BACKWARDS.match(text[::-1])
     if not has_words and (suffix is None or not suffix.end()):
         found = read_core(text, None, None, settings)  # a bare core: most cells
@@ -139,7 +141,7 @@ def read_framed(text: str, settings: DateSettings) -> Endpoint | None:
 
 
 def _may_have_words(text: str) -> bool:
-    return text[0] in _WORD_START or text.startswith(_ORDINAL_WORD_START)
+    return text[0] in _WORD_START or text[:4].lower() in _ORDINAL_WORD_START
 
 
 def _read_words(text: str, around: Around) -> int:

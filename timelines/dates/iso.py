@@ -8,7 +8,8 @@ Forms (one regex each; `edtf.py` reads the ISO 8601-2 parts they allow):
 - ordinal dates `1985-102` and `1985102`; week dates `1985-W15-5`, `1985W155`, and weeks
   `1985-W15`, `1985W15` (Monday to Sunday, at day precision: there is no week precision).
 - a date with a time of day (`1985-04-12T23:20:30Z`, `19850412T232030`, `1985-04-12 00:00:00`):
-  read at day precision, the day as written (the time zone does not move it).
+  read at day precision, the day as written (the time zone does not move it); a time or
+  offset that cannot exist is refused (clock.py).
 - inside the calendar form, ISO 8601-2: unspecified digits `X` anywhere (`156X-12-25`,
   `1985-04-3X`), sub-year groupings 21-41 in the month's place (`2001-21`, spring), and
   qualifiers on single components (`2004-06~-11`, `?2004-06-~11`, `2004?-06-11`).
@@ -25,6 +26,7 @@ from ..calendar import (
 )
 from ..model import Endpoint, Precision
 from . import edtf
+from .clock import check_time
 from .grammar import FLAGS, Form
 from .reasons import Unreadable
 from .settings import DateSettings
@@ -38,7 +40,7 @@ ISO_CALENDAR = re.compile(rf"""
     (?:
         - (?P<month_left>{_MARK})? (?P<month>[0-9X]{{2}}) (?P<month_right>{_MARK})?
         - (?P<day_left>{_MARK})? (?P<day>[0-9X]{{2}}) (?P<day_right>{_MARK})?
-        (?P<time>[T\x20][0-9:.,+Z-]+)?          # time of day, checked by TIME_OF_DAY
+        (?P<time>[T\x20][0-9:.,+Z-]+)?          # time of day, checked by clock.py
       | - (?P<only_left>{_MARK})?
         (?P<month_only>                         # year-month alone: only what can be a month
             0[0-9X] | 1[0-2X] | X[0-9X]         # code, so that 1650-60 stays a range
@@ -72,16 +74,6 @@ ISO_WEEK_BASIC = re.compile(r"""
     (?P<year>[0-9]{4}) W(?P<week>[0-9]{2}) (?P<weekday>[0-9])?                  # 1985W155
 """, FLAGS)
 
-TIME_OF_DAY = re.compile(r"""
-    [T\x20]
-    (?P<hour>[0-9]{2})
-    (?: :?(?P<minute>[0-9]{2})     # extended 23:20 or basic 2320
-        (?: :?(?P<second>[0-9]{2}) (?:[.,][0-9]+)? )?   # seconds, with a decimal fraction
-    )?
-    (?: Z | [+-][0-9]{2}(?::?[0-9]{2})? )?   # UTC or an offset: does not move the day
-""", FLAGS)
-
-
 def read_iso_calendar(match: re.Match[str], era: str | None, marker: str | None,
                       settings: DateSettings) -> Endpoint:
     calendar = marker or GREGORIAN
@@ -91,12 +83,18 @@ def read_iso_calendar(match: re.Match[str], era: str | None, marker: str | None,
     if match["time"]:
         check_time(match["time"])
     if match["month_only"] and "X" not in month_text and int(month_text) > 20:
-        base = edtf.sub_year(int(year_text), int(month_text), calendar, settings)
+        base = _sub_year(year_text, int(month_text), calendar, settings)
     elif "X" in year_text + month_text + day_text:
         base = edtf.unspecified(year_text, month_text, day_text, calendar)
     else:
         base = _calendar_date(year_text, month_text, day_text, calendar)
     return edtf.with_component_marks(base, match, settings, calendar)
+
+
+def _sub_year(year_text: str, code: int, calendar: str, settings: DateSettings) -> Endpoint:
+    if "X" in year_text:
+        return edtf.unspecified_sub_year(year_text, code, calendar, settings)
+    return edtf.sub_year(int(year_text), code, calendar, settings)
 
 
 def _calendar_date(year_text: str, month_text: str, day_text: str, calendar: str) -> Endpoint:
@@ -175,14 +173,6 @@ def read_week(match: re.Match[str], era: str | None, marker: str | None,
     except ValueError as error:
         raise Unreadable(str(error), fragment=match["weekday"] or match["week"]) from None
     return Endpoint(monday, monday + 6, Precision.DAY)
-
-
-def check_time(time_text: str) -> None:
-    match = TIME_OF_DAY.fullmatch(time_text)
-    limits = (("hour", 24), ("minute", 59), ("second", 60))  # 24:00 ends a day; 60 is a leap second
-    if match is None or any(int(match[name] or 0) > limit for name, limit in limits):
-        raise Unreadable(f"{time_text.strip()!r} is not a time of day", fragment=time_text,
-                         hint="a date with a time looks like 1985-04-12T23:20:30")
 
 
 # Digits alone that only ISO 8601 writes: before the free-text year in the table (core.py).

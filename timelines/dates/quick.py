@@ -13,7 +13,9 @@ checks that the reader has already made.
 Every shape gives what the general reader gives: most through the same window functions,
 a few (a year widened by circa, bounded by before or after, with an error term; an age) by
 the same arithmetic written out for their simple bounds. tests/test_dates_quick.py checks
-that both give the same span for each shape. Anything
+that both give the same span for each shape, in any letter case: the shapes' regex ignores
+case, as the general reader's forms do, so the readers take apart the text in lower case
+(a reader that split `Mid-1650S` at a literal `mid-` once failed on it). Anything
 else, anything doubtful (a day that may not exist, a year-start setting, a range written
 backwards) and every reading that `explain` follows goes to the general reader (None here).
 """
@@ -118,7 +120,8 @@ def quick_span(text: str, settings: DateSettings) -> Span | None:
     found = (_DIGIT_SHAPE if text[:1] in _DIGITS else _LETTER_SHAPE)(text)
     if found is None:
         return None
-    return _READERS[found.lastgroup](text, settings)
+    # The shapes match any case; their readers split at literal lower-case words (mid-, bp).
+    return _READERS[found.lastgroup](text.lower(), settings)
 
 
 @lru_cache(maxsize=1 << 14)
@@ -140,12 +143,12 @@ def _iso(text: str, settings: DateSettings) -> Span | None:
 
 def _day_month_year(text: str, settings: DateSettings) -> Span | None:
     day, month, year = text.replace("-", " ").split(" ")
-    return _day(int(year), MONTHS.get(month.lower(), 0), int(day), settings)
+    return _day(int(year), MONTHS.get(month, 0), int(day), settings)
 
 
 def _month_day_year(text: str, settings: DateSettings) -> Span | None:
     month, day, year = text.replace(",", "").split(" ")
-    return _day(int(year), MONTHS.get(month.lower(), 0), int(day), settings)
+    return _day(int(year), MONTHS.get(month, 0), int(day), settings)
 
 
 def _day(year: int, month: int, day: int, settings: DateSettings) -> Span | None:
@@ -172,7 +175,7 @@ def _day_number(year: int, month: int, day: int, calendar: str) -> int:
 
 def _month_year(text: str, settings: DateSettings) -> Span | None:
     month, year = text.split(" ")
-    number = MONTHS.get(month.lower())
+    number = MONTHS.get(month)
     if number is None:
         return None
     earliest, latest = month_bounds(int(year), number, settings.calendar)
@@ -188,7 +191,6 @@ def _decade(text: str, settings: DateSettings) -> Span:
 
 def _worded(text: str, settings: DateSettings) -> Span:
     word, year = text.split(" ")
-    word = word.lower()
     if word in _CIRCA:
         return point(_circa_year(int(year), settings))
     return point(_bounded_year(int(year), word, settings))
@@ -235,7 +237,7 @@ def _interval(text: str, settings: DateSettings) -> Span | None:
 def _century(text: str, settings: DateSettings) -> Span | None:
     *words, ordinal, _unit = text.replace("mid-", "mid ").split()
     number = int(ordinal[:-2])
-    if ordinal[-2:].lower() != ordinal_suffix(number):
+    if ordinal[-2:] != ordinal_suffix(number):
         return None   # the general reader says which suffix is right
     endpoint = counted_unit(number, 100, None, None, settings)
     return Span.point(_part(endpoint, words, settings))
@@ -286,7 +288,7 @@ def _between(text: str, settings: DateSettings) -> Span | None:
 
 def _months(text: str, settings: DateSettings) -> Span | None:
     months, year = text.split(" ")
-    first, last = (MONTHS.get(name.lower(), 0) for name in months.split("\u2013"))
+    first, last = (MONTHS.get(name, 0) for name in months.split("\u2013"))
     if last < first or not first:
         return None   # written backwards: the general reader says so
     start = month_bounds(int(year), first, settings.calendar)
@@ -311,7 +313,7 @@ def _year_error(text: str, settings: DateSettings) -> Span:
 
 def _age(text: str, settings: DateSettings) -> Span:
     """deeptime.read_age for `12,500 ± 150 BP` (whole years) and `65.5 Ma` (tenths)."""
-    if text[-1] == "P":
+    if text[-1] == "p":   # 12,500 ± 150 bp (the text is in lower case here); else 65.5 ma
         value, _sign, error, _unit = text.split(" ")
         age, error_years = int(value.replace(",", "")), int(error)
         nearest, farthest, qualifiers = age - error_years, age + error_years, _ERROR_TERM
@@ -334,7 +336,7 @@ def _dual_day(text: str, settings: DateSettings) -> Span | None:
     """`12 February 1701/02`: a day of Old Style 1701, New Style 1702, in the Julian calendar."""
     day_text, month_name, years_text = text.split(" ")
     first, second = years_text.split("/")
-    month, day = MONTHS.get(month_name.lower(), 0), int(day_text)
+    month, day = MONTHS.get(month_name, 0), int(day_text)
     if (not names_next_year(first, second) or int(first) + 1 > LAST_DUAL_YEAR
             or not 1 <= day <= _DUAL_DAYS.get(month, 0)):
         return None   # not a dual year, or a day the two numberings share: the general reader

@@ -18,6 +18,9 @@ from .settings import DateSettings
 from .windows import coarser
 
 _CLOSING = {"[": "]", "{": "}"}
+# ISO 8601-2 sets do not nest; a catalogue's brackets around one (`[[1667,1668]]`) make two
+# levels. Three is room enough, and refusing deeper texts at once keeps the reading shallow.
+MAX_BRACKET_DEPTH = 3
 _KIND = {"[": Qualifier.ONE_OF, "{": Qualifier.ALL_OF}
 
 ReadOne = Callable[[str, DateSettings], "Endpoint | None"]
@@ -26,6 +29,10 @@ ReadOne = Callable[[str, DateSettings], "Endpoint | None"]
 def read_set(text: str, settings: DateSettings, read_one: ReadOne) -> Endpoint:
     """A set; `read_one` reads one element date (None when it is no date)."""
     opening = text[0]
+    depth = bracket_depth(text)
+    if depth > MAX_BRACKET_DEPTH:
+        raise Unreadable(f"brackets nested {depth} deep; a date nests them at most "
+                         f"{MAX_BRACKET_DEPTH} deep", fragment=text[:depth])
     if text[-1] != _CLOSING[opening]:
         raise Unreadable(f"a set opened with {opening} closes with {_CLOSING[opening]}",
                          fragment=text[-1])
@@ -45,6 +52,18 @@ def read_set(text: str, settings: DateSettings, read_one: ReadOne) -> Endpoint:
     return endpoint
 
 
+def bracket_depth(text: str) -> int:
+    """How deep the brackets `[ ]` and `{ }` of a text nest (an unclosed one counts too)."""
+    depth = deepest = 0
+    for char in text:
+        if char in "[{":
+            depth += 1
+            deepest = max(deepest, depth)
+        elif char in "]}":
+            depth -= 1
+    return deepest
+
+
 def _element(part: str, settings: DateSettings, read_one: ReadOne) -> Endpoint:
     if not part:
         raise Unreadable("a set has an empty element", hint="separate dates with one comma")
@@ -56,7 +75,9 @@ def _element(part: str, settings: DateSettings, read_one: ReadOne) -> Endpoint:
     if first is None and last is None:
         raise Unreadable("'..' in a set needs a date on at least one side", fragment=part)
     if first is not None and last is not None:
-        if last.latest < first.earliest:
+        # A side may itself be open (`by 1670..1672`): only two known bounds can be in the
+        # wrong order.
+        if None not in (first.earliest, last.latest) and last.latest < first.earliest:
             raise Unreadable(f"the run {part!r} ends before it begins", fragment=part)
         return Endpoint(first.earliest, last.latest, coarser(first.precision, last.precision),
                         first.qualifiers | last.qualifiers)

@@ -15,6 +15,7 @@ cannot exist; so a text matched by no form gets one general reason and hint.
 from __future__ import annotations
 
 import re
+import unicodedata
 
 from ..errors import DateError
 from ..model import Endpoint, Qualifier
@@ -68,7 +69,27 @@ def prepared(text: object) -> str:
     cleaned = normalise(text)
     if len(cleaned) > MAX_DATE_LENGTH:
         raise DateError(text, f"too long for a date ({len(cleaned)} characters)")
+    if not cleaned.isprintable():
+        raise _unprintable(text, cleaned)
     return cleaned
+
+
+def _unprintable(text: str, cleaned: str) -> DateError:
+    """The error for a character that does not show (NUL, a bidi mark, a byte-order mark, half
+    of a surrogate pair): no date form holds one, and whoever reads the cell cannot see it."""
+    char = next(char for char in cleaned if not char.isprintable())
+    name = unicodedata.name(char, "")
+    shown = f"U+{ord(char):04X}" + (f" ({name.lower()})" if name else "")
+    kind = _UNSEEN_KINDS.get(unicodedata.category(char), "a character that does not show")
+    return DateError(text, f"holds {shown}, {kind}", position=text.find(char),
+                     hint="remove it: a date holds only characters that show")
+
+
+# Unicode general categories of the characters str.isprintable refuses (spaces are made plain
+# or taken out before this check).
+_UNSEEN_KINDS = {"Cc": "a control character", "Cf": "an invisible formatting character",
+                 "Cs": "half of a surrogate pair, not a character (the text was decoded wrongly)",
+                 "Co": "a private-use character", "Cn": "an unassigned code point"}
 
 
 def read_single(text: str, settings: DateSettings) -> Endpoint | None:

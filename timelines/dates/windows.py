@@ -46,8 +46,21 @@ _PLAIN_PUNCTUATION = str.maketrans({"\u2019": "'", "\u2018": "'", "\u2010": "-",
 
 def check_year(year: int) -> int:
     if abs(year) >= 10 ** MAX_YEAR_DIGITS:
-        raise Unreadable(f"year {year} is out of range (at most {MAX_YEAR_DIGITS} digits)")
+        raise Unreadable(f"year {_year_shown(year)} is out of range (at most {MAX_YEAR_DIGITS} "
+                         "digits)")
     return year
+
+
+def _year_shown(year: int) -> str:
+    """A year for a message: written out while that is readable, else by its size (a float
+    cell of 1e300 holds a year of 301 digits)."""
+    return str(year) if abs(year) < 10 ** 24 else f"of {digits_about(year)} digits"
+
+
+def digits_about(number: int) -> str:
+    """How many digits a number has, roughly, without writing it out (str() refuses ints of
+    over 4,300 digits)."""
+    return f"about {int(number.bit_length() * 0.30103) + 1:,}"   # log10(2) digits a bit
 
 
 @lru_cache(maxsize=1 << 16)
@@ -173,9 +186,10 @@ def _widened(endpoint: Endpoint, field: str, amount: int, calendar: str) -> tupl
         return endpoint.earliest - amount, endpoint.latest + amount
     first, last = year_of(endpoint.earliest, calendar), year_of(endpoint.latest, calendar)
     if unit == "percent":
-        # Deep time: a share of the age, counted back from the present of BP (1950).
-        first -= (PRESENT_YEAR - first) * amount // 100
-        last += (PRESENT_YEAR - last) * amount // 100
+        # Deep time: a share of the age, counted back from the present of BP (1950); a year
+        # after it (Y171010000S3~) is as far off the other way, and widens as much.
+        first -= abs(PRESENT_YEAR - first) * amount // 100
+        last += abs(PRESENT_YEAR - last) * amount // 100
     else:
         first, last = first - amount, last + amount
     return year_bounds(first, calendar)[0], year_bounds(last, calendar)[1]

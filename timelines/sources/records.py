@@ -1,5 +1,6 @@
 """Rows into Records and Problems: every non-blank row is drawn, listed as undated, or
-reported with its row, column, text and reason. Each distinct cell value is parsed once."""
+reported with its row, column, text and reason. Each distinct cell value is parsed once, and
+no cell, whatever it holds, stops the rest of the table (guarded.py)."""
 from __future__ import annotations
 
 from collections.abc import Callable, Iterable
@@ -15,6 +16,9 @@ from ..dates.settings import DEFAULT_SETTINGS, DateSettings
 from ..errors import UsageError
 from ..model import Endpoint, Provenance, Qualifier, Record, Span, collection_paused, many
 from .columns import ColumnMap, detect_columns, existing_column, column_parts
+from .guarded import internal_error, parsed_column, unknown_value_notes
+from .problems import Problem
+from .serials import DATE_NUMBERS, date_column_values
 from .tables import Table, cell_text, read_table
 
 _UNKNOWN_START = Endpoint.open(Qualifier.UNKNOWN_START)
@@ -23,57 +27,6 @@ _OPEN_START = Endpoint.open(Qualifier.OPEN_START)
 _OPEN_END = Endpoint.open(Qualifier.OPEN_END)
 # ISO 8601-2 writes an open end of an interval as "..". Alone in a start or end cell (OPEN_CELL)
 # it means the same; only the column says which side is open, so this module tells the parser.
-
-PROBLEM_KINDS = ("error", "undated", "contradiction")
-
-
-@dataclass(frozen=True, slots=True)
-class Problem:
-    """Something to report about one row (or one cell of it).
-
-    kind "error": a cell could not be read; "contradiction": the end lies wholly before the
-    start. Both keep the row off the chart. kind "undated": the row has no date at all; it is
-    a Record with no span, listed in a note under the chart."""
-
-    source: str
-    row: int
-    column: str | None
-    id: str | None
-    text: str
-    reason: str
-    kind: str = "error"
-    hint: str | None = None
-
-    def __post_init__(self) -> None:
-        if self.kind not in PROBLEM_KINDS:
-            raise ValueError(f"kind must be one of {', '.join(PROBLEM_KINDS)}, not {self.kind!r}")
-
-    def location(self) -> str:
-        return ":".join(str(part) for part in (self.source, self.row, self.column)
-                        if part is not None)
-
-    def __str__(self) -> str:
-        who = f" [{self.id}]" if self.id else ""
-        if self.kind == "error":
-            message = f"cannot read {_shown(self.text)}: {self.reason}"
-        elif self.kind == "undated":
-            message = f"no date: {self.reason}"
-        else:
-            message = self.reason
-        if self.hint:
-            message += f" ({self.hint})"
-        return f"{self.location()}:{who} {message}"
-
-
-SHOWN_CHARACTERS = 60   # of a cell's text in a one-line message; the Problem keeps it all
-
-
-def _shown(text: str) -> str:
-    """The cell's text as a message quotes it: a very long cell only by its start and size."""
-    if len(text) <= SHOWN_CHARACTERS:
-        return repr(text)
-    return f"{text[:SHOWN_CHARACTERS]!r}... ({len(text):,} characters)"
-
 
 @dataclass(frozen=True, slots=True)
 class LoadResult:
@@ -96,6 +49,10 @@ class _Layout:
     color: int | None
     id: int | None
     other: tuple[tuple[int, str], ...]   # (index, name) of the columns kept as fields
+
+    @property
+    def date_places(self) -> set[int]:
+        return {place for place in (self.start, self.end, self.when) if place is not None}
 
     @classmethod
     def of(cls, header: tuple[str, ...], columns: ColumnMap) -> "_Layout":
@@ -121,30 +78,41 @@ def _existing_index(header: tuple[str, ...], index: dict[str, int], name: str | 
 
 
 def load_records(table: Table, columns: ColumnMap,
-                 settings: DateSettings = DEFAULT_SETTINGS) -> LoadResult:
+                 settings: DateSettings = DEFAULT_SETTINGS, *,
+                 date_numbers: str = "years") -> LoadResult:
     """Every non-blank row of `table` as a Record or a Problem, using `columns` as given.
 
     The table is read column by column: each distinct cell value of a date column is parsed
-    once (real columns repeat a lot), and the Records are made from whole columns at once."""
+    once (real columns repeat a lot), and the Records are made from whole columns at once.
+    `date_numbers`: how a spreadsheet's numbers in date columns are read, "years" or
+    "serials" (see serials.py); the problems begin with the notes of reading the sheet."""
+    if date_numbers not in DATE_NUMBERS:
+        raise UsageError(f"date numbers are read as {' or '.join(DATE_NUMBERS)}, "
+                         f"not {date_numbers!r}")
     layout = _Layout.of(table.header, columns)
     with collection_paused():
-        return _load(table, layout, settings)
+        return _load(table, layout, settings, date_numbers)
 
 
-def _load(table: Table, layout: _Layout, settings: DateSettings) -> LoadResult:
+def _load(table: Table, layout: _Layout, settings: DateSettings,
+          date_numbers: str) -> LoadResult:
     offsets = _filled_rows(table.columns)
     cells = list(table.columns)
     if len(offsets) < table.row_count:
         cells = [[column[offset] for offset in offsets] for column in cells]
     numbers = [offset + 2 for offset in offsets]
+    for place in layout.date_places:
+        cells[place] = date_column_values(cells[place], table.date_system, date_numbers)
+    sheet = table.date_system is not None        # only a spreadsheet has UnreadableCells
     if layout.when is None:
-        outcomes = _start_end_outcomes(cells, layout, settings)
+        outcomes = _start_end_outcomes(cells, layout, settings, sheet)
     else:
-        outcomes = _when_outcomes(cells[layout.when], layout.when, settings)
+        outcomes = _when_outcomes(cells[layout.when], layout.when, settings, sheet)
     texts = _Texts(cells, layout)
     records = _records(table.source, layout, texts, numbers, outcomes)
     problems = _problems(table.source, layout, texts, numbers, outcomes)
-    return LoadResult(tuple(records), tuple(problems), len(offsets))
+    notes = [*table.notes, *unknown_value_notes(table, cells, numbers, layout.date_places)]
+    return LoadResult(tuple(records), (*notes, *problems), len(offsets))
 
 
 def _filled_rows(columns: tuple[list[object], ...]) -> list[int]:
@@ -157,32 +125,45 @@ def _filled_rows(columns: tuple[list[object], ...]) -> list[int]:
 
 def read_records(path: str | Path, columns: ColumnMap = ColumnMap(),
                  settings: DateSettings = DEFAULT_SETTINGS, *, sheet: str | int | None = None,
-                 encoding: str = "utf-8") -> LoadResult:
+                 encoding: str = "utf-8", date_numbers: str = "years") -> LoadResult:
     """read_table, detect_columns and load_records in one call."""
     table = read_table(path, sheet, encoding=encoding)
-    return load_records(table, detect_columns(table.header, columns), settings)
+    return load_records(table, detect_columns(table.header, columns), settings,
+                        date_numbers=date_numbers)
 
 
 DateOutcome = Span | None | list[tuple[int, DateError | None]]  # span, undated, or failures
 
 
-def _start_end_outcomes(cells: list[list[object]], layout: _Layout,
-                        settings: DateSettings) -> list[DateOutcome]:
-    starts = _side(cells, layout.start, _OPEN_START, settings)
-    ends = _side(cells, layout.end, _OPEN_END, settings)
+def _start_end_outcomes(cells: list[list[object]], layout: _Layout, settings: DateSettings,
+                        sheet: bool) -> list[DateOutcome]:
+    starts = _side(cells, layout.start, _OPEN_START, settings, sheet)
+    ends = _side(cells, layout.end, _OPEN_END, settings, sheet)
     # Parsed cells are shared objects, one per distinct value, kept alive by the two lists:
     # identity names them, so each distinct pair is made into a span once.
     pairs = list(zip(map(id, starts), map(id, ends)))
-    found = {pair: _outcome(starts[row], ends[row], layout)
+    found = {pair: _guarded_outcome(starts[row], ends[row], layout)
              for pair, row in dict(zip(pairs, range(len(pairs)))).items()}
     return list(map(found.__getitem__, pairs))
 
 
 def _side(cells: list[list[object]], place: int | None, open_side: Endpoint,
-          settings: DateSettings) -> list[Endpoint | DateError | None]:
+          settings: DateSettings, sheet: bool) -> list[Endpoint | DateError | None]:
     if place is None:
         return [None] * len(cells[0])
-    return parse_column(cells[place], settings, open_cell=open_side)
+    return parsed_column(parse_column, cells[place], settings, from_spreadsheet=sheet,
+                         open_cell=open_side)
+
+
+def _guarded_outcome(start: Endpoint | DateError | None, end: Endpoint | DateError | None,
+                     layout: _Layout) -> DateOutcome:
+    """The span of a row from its two endpoints; a fault of ours is the end cell's problem
+    (the start's, with no end column)."""
+    try:
+        return _outcome(start, end, layout)
+    except Exception as error:  # noqa: BLE001 - reported as the row's problem
+        place = layout.end if layout.end is not None else layout.start
+        return [(place, internal_error("", error))]   # the Problem quotes the cell's text
 
 
 def _outcome(start: Endpoint | DateError | None, end: Endpoint | DateError | None,
@@ -199,8 +180,8 @@ def _outcome(start: Endpoint | DateError | None, end: Endpoint | DateError | Non
     return checked_span(start, end)   # in order: checked just above
 
 
-def _when_outcomes(cells: list[object], place: int,
-                   settings: DateSettings) -> list[DateOutcome]:
+def _when_outcomes(cells: list[object], place: int, settings: DateSettings,
+                   sheet: bool) -> list[DateOutcome]:
     failures: dict[int, DateOutcome] = {}
 
     def outcome(span: Span | DateError | None) -> DateOutcome:
@@ -208,7 +189,8 @@ def _when_outcomes(cells: list[object], place: int,
             return failures.setdefault(id(span), [(place, span)])
         return span
 
-    return list(map(outcome, parse_span_column(cells, settings)))
+    return list(map(outcome, parsed_column(parse_span_column, cells, settings,
+                                           from_spreadsheet=sheet)))
 
 
 def _texts(cells: list[object]) -> list[str]:
@@ -309,6 +291,7 @@ def _failure(source: str, number: int, layout: _Layout, texts: _Texts, index: in
     identifier = _identifier(texts, index)
     text = texts.at(place, index)
     if error is not None:
+        text = text or error.text   # a cell that shows nothing: a formula with no saved value
         return Problem(source, number, layout.header[place], identifier, text, error.reason,
                        "error", error.hint)
     start = texts.at(layout.start, index)

@@ -6,7 +6,11 @@ A text table is read by pandas' C reader, or, when it is small, by the standard 
 importing pandas takes about a quarter of a second, longer than the csv module takes for a
 table of tens of thousands of cells, while on a large table pandas is several times faster.
 Both give the same cells (tests/test_sources.py checks it on random tables); whatever the csv
-module cannot read (a field over its size limit, a blank first line) goes to pandas."""
+module cannot read (a field over its size limit, a blank first line) goes to pandas.
+
+A spreadsheet is streamed by our own readers (xlsx.py, ods.py), which keep what pandas lost:
+a date cell's serial, formulas with no saved value, error values, merged cells, the workbook's
+date system, and a bound on size (sheets.py)."""
 from __future__ import annotations
 
 import csv
@@ -18,10 +22,12 @@ from datetime import date, datetime
 from pathlib import Path
 
 from ..errors import SourceError, UsageError
-from .columns import did_you_mean
+from .problems import Problem, row_ranges
+from .serials import DateSystem
+from .sheets import SheetCells
 
 TEXT_FORMATS = {".csv": ",", ".tsv": "\t", ".tab": "\t", ".txt": None}  # None: from the header
-SPREADSHEET_ENGINES = {".xlsx": "openpyxl", ".xlsm": "openpyxl", ".ods": "odf"}
+SPREADSHEET_ENGINES = {".xlsx": "xlsx", ".xlsm": "xlsx", ".ods": "ods"}
 READABLE = ", ".join([*TEXT_FORMATS, *SPREADSHEET_ENGINES])
 _DELIMITERS = ("\t", ";", ",", "|")  # tried in this order when a header line must decide
 # Up to this many characters a text table is read by the csv module (about 40,000 rows of a
@@ -39,6 +45,11 @@ class Table:
     source: str                          # the file name, for messages
     header: tuple[str, ...]
     columns: tuple[list[object], ...]    # one per header name, all of one length
+    # A spreadsheet's: how it counts days (for numbers read as date serials); what reading it
+    # did to whole columns (merged cells filled); which columns hold an UnreadableCell.
+    date_system: DateSystem | None = None
+    notes: tuple[Problem, ...] = ()
+    marked: frozenset[int] = frozenset()
 
     def __post_init__(self) -> None:
         if len(self.columns) != len(self.header):
@@ -82,12 +93,11 @@ def read_table(path: str | Path, sheet: str | int | None = None, *,
         raise SourceError(f"{path}: no such file" if not path.exists() else f"{path}: not a file",
                           hint="check the path and the spelling of the file name")
     if suffix in SPREADSHEET_ENGINES:
-        cells = _spreadsheet_cells(path, SPREADSHEET_ENGINES[suffix], sheet)
-    elif sheet is not None:
+        return _spreadsheet_table(path, SPREADSHEET_ENGINES[suffix], sheet)
+    if sheet is not None:
         raise UsageError(f"{path.name} is a text file and has no sheets",
                          hint="a sheet can be chosen only in an .xlsx, .xlsm or .ods file")
-    else:
-        cells = _text_cells(path, TEXT_FORMATS[suffix], encoding)
+    cells = _text_cells(path, TEXT_FORMATS[suffix], encoding)
     return _table_from_cells(path.name, cells)
 
 
@@ -201,49 +211,28 @@ def _plain_parser_message(error: Exception) -> str:
     return str(error).strip()
 
 
-def _spreadsheet_cells(path: Path, engine: str,
-                       sheet: str | int | None) -> list[list[object]]:
-    import pandas as pd
-
-    try:
-        book = pd.ExcelFile(path, engine=engine)
-    except Exception as error:  # a damaged or mislabelled file: many libraries, many errors
-        raise SourceError(f"{path.name}: cannot open it as a spreadsheet ({error})",
-                          hint="open it in a spreadsheet program and save it again") from error
-    with book:
-        name = _sheet_name(path.name, book.sheet_names, sheet)
-        frame = pd.read_excel(book, sheet_name=name, header=None, dtype=object, na_filter=False)
-    return [list(map(_spreadsheet_value, column)) for column in _frame_columns(frame)]
+def _spreadsheet_table(path: Path, reader: str, sheet: str | int | None) -> Table:
+    if reader == "xlsx":
+        from .xlsx import read_xlsx as read_sheet
+    else:
+        from .ods import read_ods as read_sheet
+    cells, date_system = read_sheet(path, sheet)
+    table = _table_from_cells(path.name, cells.columns())
+    notes = _merged_note(table, cells)
+    return Table(table.source, table.header, table.columns, date_system, notes,
+                 frozenset(cells.marked))
 
 
-def _sheet_name(file_name: str, names: list[str], wanted: str | int | None) -> str:
-    if not names:
-        raise SourceError(f"{file_name}: the spreadsheet has no sheets")
-    if wanted is None:
-        return names[0]
-    wanted = str(wanted)
-    if wanted in names:
-        return wanted
-    folded = [name for name in names if name.casefold() == wanted.casefold()]
-    if len(folded) == 1:
-        return folded[0]
-    if wanted.isdigit() and 1 <= int(wanted) <= len(names):
-        return names[int(wanted) - 1]
-    listed = ", ".join(repr(name) for name in names)
-    # the sheet is the user's option, not a fault of the file: a usage error
-    raise UsageError(f"{file_name}: no sheet {wanted!r}; the sheets are {listed}",
-                     hint=did_you_mean(wanted, names) or "a sheet number counts from 1")
-
-
-def _spreadsheet_value(value: object) -> object:
-    """A spreadsheet cell as plain Python: pandas Timestamps become datetimes, NaN becomes ''."""
-    if type(value).__name__ == "Timestamp" and hasattr(value, "to_pydatetime"):
-        return value.to_pydatetime()     # pandas' (known by name: pandas is loaded lazily)
-    if isinstance(value, float) and value != value:
-        return ""
-    if value is None:
-        return ""
-    return value
+def _merged_note(table: Table, cells: SheetCells) -> tuple[Problem, ...]:
+    """One note for the sheet when merged cells were filled, naming the columns and rows."""
+    if not cells.filled:
+        return ()
+    parts = [f"{table.header[place]!r} {row_ranges(rows)}"
+             for place, rows in sorted(cells.filled.items())]
+    first = min(min(rows) for rows in cells.filled.values())
+    reason = ("merged cells: each merged block's value is read in every row it covers ("
+              + "; ".join(parts) + ")")
+    return (Problem(table.source, first, None, None, "", reason, "note"),)
 
 
 def _table_from_cells(source: str, columns: list[list[object]]) -> Table:
@@ -273,7 +262,8 @@ def _header_names(cells: tuple[object, ...]) -> tuple[str, ...]:
 
 
 def cell_text(value: object) -> str:
-    """A cell as the text a user would read in it: dates in ISO form, whole numbers bare."""
+    """A cell as the text a user would read in it: dates in ISO form, whole numbers bare,
+    an UnreadableCell as the spreadsheet shows it ("" for a formula with no saved value)."""
     if type(value) is str:
         return value.strip()
     if isinstance(value, datetime):

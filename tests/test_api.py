@@ -127,7 +127,18 @@ def test_strict_writes_nothing_when_a_row_is_not_drawn(tmp_path):
         chart.save(tmp_path / "strict.svg")
     assert not (tmp_path / "strict.svg").exists()
     problem, = chart.problems
-    assert (problem.row, problem.column, problem.text) == (7, "born", "1985-13-01")
+    # rows given as dicts are counted from 0, as a DataFrame's iloc counts them
+    assert (problem.row, problem.column, problem.text) == (5, "born", "1985-13-01")
+
+
+def test_a_dataframes_rows_are_named_as_iloc_counts_them():
+    frame = pd.DataFrame(ROWS)
+    frame.loc[3, "died"] = "2001-02-29"
+    chart = _chart(frame)
+    problem, = chart.problems
+    assert (problem.source, problem.row, problem.column) == ("DataFrame", 3, "died")
+    assert frame.iloc[problem.row]["died"] == problem.text
+    assert [r.provenance.row for r in chart.records] == [0, 1, 2, 4]
 
 
 def test_the_notebook_gets_svg(table):

@@ -247,3 +247,39 @@ def test_progress_stays_off_in_pipes_and_with_quiet(monkeypatch, tmp_path, capsy
     assert quiet.getvalue() == ""
     code, _, err = run(capsys, "render", str(DEMO), "-o", str(tmp_path / "d.svg"))
     assert code == 0 and "\r" not in err and "timelines: [" not in err
+
+
+# --- spreadsheet readings the command line offers -------------------------------------------
+
+def _workbook(path: Path) -> Path:
+    from openpyxl import Workbook
+
+    book = Workbook()
+    sheet = book.active
+    sheet.append(["name", "house", "born", "died"])
+    sheet.append(["Aldric", "Hollin", "c. 1650", 1702])
+    sheet.append(["Berenice", None, 1675, "before 1740"])
+    sheet.append(["Cato", "Marrow", 39448, 39500])        # day serials in a General cell
+    sheet.merge_cells("B2:B3")
+    book.save(path)
+    return path
+
+
+def test_check_shows_what_reading_did_to_the_table(tmp_path, capsys):
+    code, out, _ = run(capsys, "check", str(_workbook(tmp_path / "m.xlsx")))
+    assert "m.xlsx:3: note: merged cells" in out
+    assert "39448 looks like a date serial (2008-01-01" in out
+    code, out, _ = run(capsys, "check", str(tmp_path / "m.xlsx"), "--json")
+    assert [note["row"] for note in json.loads(out)["notes"]] == [3]
+
+
+def test_date_numbers_serials_reads_serials(tmp_path, capsys):
+    # Excel's 1900 date system: serial 39448 is 2008-01-01 (ECMA-376 Part 1, 18.17.4.1,
+    # from memory; openpyxl's from_excel agrees)
+    table = _workbook(tmp_path / "m.xlsx")
+    code, out, _ = run(capsys, "lanes", str(table), "--date-numbers", "serials",
+                       "--format", "json")
+    import datetime as dt
+
+    boxes = {row["row"]: row for row in json.loads(out)}
+    assert boxes[4]["box_start"] <= dt.date(2008, 1, 1).toordinal()

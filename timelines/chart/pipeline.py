@@ -64,6 +64,7 @@ class ChartOptions:
     bands: object = None                # a table of named periods drawn behind the lanes
     facet: str | None = None            # a column: one small timeline per value
     size: PageSize | None = None        # the page; its width overrides the theme's
+    date_numbers: str = "years"         # a spreadsheet's numbers in date columns: years or serials
 
 
 @dataclass(frozen=True, slots=True)
@@ -187,7 +188,8 @@ def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTab
             return ReadTable(loaded, options.columns, None, withheld)
         table = given
     columns = detect_columns(table.header, options.columns)
-    loaded = load_records(table, columns, options.settings)              # parse
+    loaded = load_records(table, columns, options.settings,              # parse
+                          date_numbers=options.date_numbers)
     loaded, withheld = _withhold(loaded, options.privacy)
     return ReadTable(loaded, columns, table.header, withheld)
 
@@ -203,7 +205,8 @@ def arrange_read(read: ReadTable, options: ChartOptions = ChartOptions()) -> Arr
     loaded, columns, header = read.loaded, read.columns, read.header
     report = check(loaded)                                               # check
     kept, outside = split_by_window(loaded.records, options.window)      # the window
-    bands = read_bands(options.bands, options.settings) if options.bands is not None else None
+    bands = (read_bands(options.bands, options.settings, options.date_numbers)
+             if options.bands is not None else None)
     arranged = Arranged(loaded, report, columns, None, None, read.withheld, tuple(outside),
                         bands)
     dated = [r for r in kept if r.span is not None]
@@ -236,15 +239,17 @@ def _arrange_panels(arranged: Arranged, dated: list[Record], options: ChartOptio
     return replace(arranged, scale=scale, panels=panels)
 
 
-def read_bands(source: object, settings: DateSettings = DEFAULT_SETTINGS) -> LoadResult:
+def read_bands(source: object, settings: DateSettings = DEFAULT_SETTINGS,
+               date_numbers: str = "years") -> LoadResult:
     """The named periods of a `--bands` table (a path, a DataFrame or rows): columns label,
     start, end (or when)."""
     if isinstance(source, (str, PathLike)):
-        return read_table_records(source, ColumnMap(), settings)
+        return read_table_records(source, ColumnMap(), settings, date_numbers=date_numbers)
     given = table_from_data(source)
     if isinstance(given, LoadResult):
         return given
-    return load_records(given, detect_columns(given.header, ColumnMap()), settings)
+    return load_records(given, detect_columns(given.header, ColumnMap()), settings,
+                        date_numbers=date_numbers)
 
 
 def _withhold(loaded: LoadResult, privacy: Privacy | None) -> tuple[LoadResult, int]:

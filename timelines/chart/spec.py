@@ -32,6 +32,7 @@ from ..scene.primitives import TEXT_MODES, Scene
 from ..scene.theme import PALETTES
 from ..calendar import ERAS
 from ..sources import ColumnMap
+from ..sources.serials import DATE_NUMBERS
 from .pipeline import (
     Arranged, ChartOptions, Privacy, ReadTable, arrange_read, arranged_page, page_options,
     parse_window, read_source,
@@ -95,16 +96,22 @@ class Chart:
         _check_names(settings, _LANE_SETTINGS, "lane setting")
         return self._with(lanes=replace(self._options.lanes, **settings))
 
-    def dates(self, settings: DateSettings | None = None, **conventions) -> "Chart":
+    def dates(self, settings: DateSettings | None = None, *, date_numbers: str | None = None,
+              **conventions) -> "Chart":
         """How dates are read: a DateSettings, and/or conventions by name (calendar,
-        century, before_after, circa_year, day_first, year_start, ...: docs/dates.md)."""
+        century, before_after, circa_year, day_first, year_start, ...: docs/dates.md);
+        date_numbers: a spreadsheet's numbers in date columns are "years" (the default)
+        or "serials" (days as the spreadsheet counts them)."""
+        _check_choice(date_numbers, DATE_NUMBERS, "date_numbers")
         base = settings or self._options.settings
         given = {name.replace("_", "-"): value for name, value in conventions.items()}
         try:
             settings = settings_from_options(given, base)
         except ValueError as error:
             raise UsageError(str(error), hint="see docs/dates.md for each convention") from None
-        return self._with(settings=settings)
+        if date_numbers is None:
+            return self._with(settings=settings)
+        return self._with(settings=settings, date_numbers=date_numbers)
 
     def window(self, start: str | None = None, end: str | None = None) -> "Chart":
         """Show only the time from `start` to `end` (dates as fuzzy as anywhere: from the

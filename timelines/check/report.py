@@ -99,6 +99,7 @@ class Report:
     warnings: tuple[Finding, ...]          # findings of the rules
     counts: Counts
     undated_rows: tuple[Reportable, ...] = ()  # load problems of kind "undated"
+    notes: tuple[Reportable, ...] = ()     # what reading did to the table (merged cells filled)
 
     @property
     def ok(self) -> bool:
@@ -115,8 +116,8 @@ class Report:
         return self.counts.undated
 
     def lines(self) -> tuple[str, ...]:
-        """Every error, undated row and warning, one line each, in row order."""
-        items = sorted(self.errors + self.undated_rows + self.warnings,
+        """Every error, undated row, warning and note, one line each, in row order."""
+        items = sorted(self.errors + self.undated_rows + self.warnings + self.notes,
                        key=lambda item: (item.source, item.row))
         return tuple(map(str, items))
 
@@ -128,6 +129,7 @@ class Report:
             "errors": [_item_dict(item) for item in self.errors],
             "undated": [_item_dict(item) for item in self.undated_rows],
             "warnings": [_item_dict(item) for item in self.warnings],
+            "notes": [_item_dict(item) for item in self.notes],
         }
 
     def summary(self) -> str:
@@ -149,10 +151,11 @@ def check(loaded: Loaded | Iterable[Record], limits: CheckLimits = CheckLimits()
     records, problems, rows_read = _unpack(loaded)
     errors = tuple(problem for problem in problems if problem.kind in _KEEPS_ROW_OFF)
     undated = tuple(problem for problem in problems if problem.kind == "undated")
+    notes = tuple(problem for problem in problems if problem.kind == "note")
     findings = _duplicate_ids(records, errors) + _long_spans(records, limits)
     findings = tuple(sorted(findings, key=lambda finding: (finding.source, finding.row)))
     counts = _counts(records, errors, rows_read, len(findings))
-    return Report(errors, findings, counts, undated)
+    return Report(errors, findings, counts, undated, notes)
 
 
 def _unpack(loaded: Loaded | Iterable[Record]

@@ -196,7 +196,7 @@ def _render_options(args) -> ChartOptions:
         strict=args.strict, dpi=png_dpi(args.dpi, size), lanes=_lane_settings(args),
         text=args.text_mode, privacy=_privacy(args), subtitle=args.subtitle,
         credit=args.credit, notes=tuple(notes), window=_window(args, settings),
-        bands=args.bands, facet=args.facet, size=size)
+        bands=args.bands, facet=args.facet, size=size, date_numbers=args.date_numbers)
 
 
 def _window(args, settings: DateSettings):
@@ -247,7 +247,7 @@ def run_lanes(args, parser) -> int:
     settings = _settings(args)
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=settings,
                            theme=theme, lanes=_lane_settings(args),
-                           window=_window(args, settings))
+                           window=_window(args, settings), date_numbers=args.date_numbers)
     chart = Chart.from_options(_input_path(args, parser), options)
     arranged = _laid_out(chart, Progress(2, quiet=args.quiet))
     _print_run(arranged, args, theme.era)
@@ -270,7 +270,8 @@ def _print_problems(problems) -> None:
 
 
 def run_check(args, parser) -> int:
-    options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args))
+    options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args),
+                           date_numbers=args.date_numbers)
     source = _input_path(args, parser)
     with Progress(1, quiet=args.quiet).step(f"reading {source.name}"):
         report = check(Chart.from_options(source, options).read().loaded)

@@ -18,6 +18,7 @@ from ..scene.encodings import FRINGES
 from ..scene.page import parse_font_size, parse_size
 from ..scene.primitives import TEXT_MODES
 from ..scene.theme import DEFAULT_THEME, PALETTES
+from ..sources.serials import DATE_NUMBERS
 
 DEMO = "fenwold-organ-builders.csv"
 DATE_DEFAULTS = options_from_settings(DEFAULT_SETTINGS)
@@ -110,6 +111,10 @@ def _table_options(parser: argparse.ArgumentParser) -> None:
                           ("color", "the colour category"), ("id", "record identifiers")):
         columns.add_argument(f"--{name}", metavar="COL", help=f"column of {meaning}")
     parser.add_argument("--sheet", help="sheet of an XLSX/ODS workbook (default: the first)")
+    parser.add_argument("--date-numbers", choices=DATE_NUMBERS, default="years",
+                        help="numbers in a spreadsheet's date columns: years (default; a "
+                             "number of five digits or more is refused as a likely date "
+                             "serial) or serials (days as the spreadsheet counts them)")
     _date_options(parser)
 
 

@@ -10,13 +10,14 @@
 
 A DataFrame's cells keep their types, as a spreadsheet's do: a Timestamp is a date, a number
 a year (or a day serial: see docs/dates.md), NaN, None, NaT and pd.NA are empty cells. Its rows
-are numbered in messages as a spreadsheet export of it would be (header = row 1), so row
-N + 2 is `frame.iloc[N]`; `read` keeps the frame's own index.
+are numbered in messages as `iloc` counts them (row N is `frame.iloc[N]`; rows given as dicts
+likewise from 0); `read` keeps the frame's own index.
 """
 from __future__ import annotations
 
 import sys
 from collections.abc import Iterable, Mapping
+from dataclasses import replace
 from datetime import datetime
 
 from ..calendar import iso_from_fixed
@@ -66,7 +67,8 @@ def table_from_frame(frame, source: str = FRAME_SOURCE) -> Table:
                for place, name in enumerate(names)]
     if not columns:
         raise UsageError(f"the {source} has no columns")
-    return _table_from_cells(source, columns)
+    register_accessor()
+    return replace(_table_from_cells(source, columns), first_row=0)
 
 
 def table_from_rows(rows: list, source: str = ROWS_SOURCE) -> Table:
@@ -80,7 +82,7 @@ def table_from_rows(rows: list, source: str = ROWS_SOURCE) -> Table:
                              "column name to cell", hint="give each row as a dict")
     names = list(dict.fromkeys(str(name) for row in rows for name in row))
     columns = [[name, *(frame_cell(row.get(name, "")) for row in rows)] for name in names]
-    return _table_from_cells(source, columns)
+    return replace(_table_from_cells(source, columns), first_row=0)
 
 
 def frame_cell(value: object) -> object:

@@ -100,7 +100,7 @@ def _load(table: Table, layout: _Layout, settings: DateSettings,
     cells = list(table.columns)
     if len(offsets) < table.row_count:
         cells = [[column[offset] for offset in offsets] for column in cells]
-    numbers = [offset + 2 for offset in offsets]
+    numbers = [offset + table.first_row for offset in offsets]
     for place in layout.date_places:
         cells[place] = date_column_values(cells[place], table.date_system, date_numbers)
     sheet = table.date_system is not None        # only a spreadsheet has UnreadableCells

@@ -39,8 +39,10 @@ TEXT_READERS = ("csv", "pandas")
 
 @dataclass(frozen=True, slots=True)
 class Table:
-    """Raw cells of one sheet, by column: `columns[j][i]` is the cell of column j in
-    spreadsheet row i + 2. Kept by column as the reader gives them and the records are read."""
+    """Raw cells of one sheet, by column: `columns[j][i]` is the cell of column j in row
+    i + `first_row`: spreadsheet row i + 2 for a file (the header is row 1), row i for a
+    DataFrame, counted as `iloc` counts. Kept by column as the reader gives them and the
+    records are read."""
 
     source: str                          # the file name, for messages
     header: tuple[str, ...]
@@ -50,6 +52,7 @@ class Table:
     date_system: DateSystem | None = None
     notes: tuple[Problem, ...] = ()
     marked: frozenset[int] = frozenset()
+    first_row: int = 2
 
     def __post_init__(self) -> None:
         if len(self.columns) != len(self.header):

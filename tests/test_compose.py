@@ -55,17 +55,25 @@ def test_open_end_runs_to_the_axis_edge_with_an_arrow():
     assert max(x for x, _ in arrow.points) > scale.x1
 
 
-def test_unknown_end_fades_out_to_the_axis_edge_without_a_core():
-    rec = record("Fenna", year(1672), Endpoint.open(Qualifier.UNKNOWN_END))
-    scene = build_scene([rec, record("Other", year(1600), year(1720), row=3)])
-    scale = chart_scale([rec, record("Other", year(1600), year(1720))], DEFAULT_THEME)
-    [group] = [g for g in records_in(scene) if g.title.startswith("Fenna")]
-    assert parts(group, Rect, "core") == [] and parts(group, Polygon, "open") == []
-    [stretch] = parts(group, GradientRect, "unknown")
-    assert stretch.x == scale.x(day(1672, 12, 31))       # from the latest possible start
-    assert stretch.x + stretch.width == scale.x1          # to the axis edge
-    assert stretch.opacity_right < stretch.opacity_left < 1.0
-    assert len(parts(group, Line, "unknown")) == 2        # dashed outline
+def test_unknown_end_is_a_short_stub_whatever_the_other_rows():
+    # Issue 10: an empty death cell was drawn to the chart's edge, so its length depended on
+    # the other rows. It is now a stub of fixed page length, from the latest possible start.
+    lengths = []
+    for other_end in (1720, 2100):
+        rec = record("Fenna", year(1672), Endpoint.open(Qualifier.UNKNOWN_END))
+        others = record("Other", year(1600), year(other_end), row=3)
+        scene = build_scene([rec, others])
+        scale = chart_scale([rec, others], DEFAULT_THEME)
+        [group] = [g for g in records_in(scene) if g.title.startswith("Fenna")]
+        assert parts(group, Rect, "core") == [] and parts(group, Polygon, "open") == []
+        [stretch] = parts(group, GradientRect, "unknown")
+        assert stretch.x == scale.x(day(1672, 12, 31))   # from the latest possible start
+        assert stretch.x + stretch.width < scale.x1
+        assert stretch.opacity_right < stretch.opacity_left < 1.0
+        assert len(parts(group, Line, "unknown")) == 2    # dashed outline
+        assert "possible: 1672-01-01 to not recorded" in group.title
+        lengths.append(stretch.width)
+    assert lengths == pytest.approx([DEFAULT_THEME.stub_length] * 2)
 
 
 def test_before_and_qualifier_marks_appear_with_legend_entries():

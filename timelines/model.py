@@ -47,6 +47,7 @@ class Qualifier(StrEnum):
     UNKNOWN_START = "unknown_start"  # /1760 or an empty cell: the start is not known
     UNKNOWN_END = "unknown_end"
     CONVENTION_DEPENDENT = "convention_dependent"  # a documented setting decided the bounds
+    DURATION_BOUND = "duration_bound"  # the user's longest plausible duration set this bound
 
 
 _OPEN_SIDES = frozenset({Qualifier.OPEN_START, Qualifier.OPEN_END})

@@ -18,14 +18,15 @@ from pathlib import Path
 from typing import Callable, Iterable
 
 from ..check.living import withhold_possibly_living
-from ..check.report import Report, check
+from ..check.durations import bound_by_longest
+from ..check.report import Finding, Report, check
 from ..dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
 from ..errors import TimelineError, UsageError, did_you_mean
 from ..layout import (
     GroupNode, LaneRules, LaneSettings, Placement, TimeWindow, UnknownGroup, group_records,
     group_tree, lane_rules, place, split_by_window,
 )
-from ..layout.distances import Distance, parse_distance
+from ..layout.distances import DAYS_PER_UNIT, Distance, parse_distance
 from ..model import Record
 from ..render import output_format, writable, write
 from ..scene.bands import on_axis
@@ -64,6 +65,8 @@ class ChartOptions:
     bands: object = None                # a table of named periods drawn behind the lanes
     facet: str | None = None            # a column: one small timeline per value
     size: PageSize | None = None        # the page; its width overrides the theme's
+    longest: str | None = None          # a longest plausible duration bounding open sides
+    longest_column: str | None = None   # a column giving each record its own
     date_numbers: str = "years"         # a spreadsheet's numbers in date columns: years or serials
 
 
@@ -89,6 +92,7 @@ class Arranged:
     outside: tuple[Record, ...] = ()    # dated records wholly outside --from/--to
     bands: LoadResult | None = None     # the --bands table
     panels: tuple[Panel, ...] = ()      # with --facet: one placement per value
+    bounded: int = 0                    # records whose open side --longest bounded
 
     @property
     def placements(self) -> tuple[Placement, ...]:
@@ -174,6 +178,8 @@ class ReadTable:
     columns: ColumnMap
     header: tuple[str, ...] | None
     withheld: int = 0                   # records shown without their details
+    bounded: int = 0                    # records whose open side --longest bounded
+    findings: tuple[Finding, ...] = ()  # what those steps found worth a warning
 
 
 def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTable:
@@ -182,16 +188,67 @@ def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTab
     if isinstance(data, (str, PathLike)):
         table = read_table(data, options.sheet)                          # read
     else:
-        given = table_from_data(data)
-        if isinstance(given, LoadResult):                               # records as given
-            loaded, withheld = _withhold(given, options.privacy)
-            return ReadTable(loaded, options.columns, None, withheld)
-        table = given
-    columns = detect_columns(table.header, options.columns)
-    loaded = load_records(table, columns, options.settings,              # parse
-                          date_numbers=options.date_numbers)
+        table = table_from_data(data)
+    if isinstance(table, LoadResult):                                   # records as given
+        columns, header, loaded = options.columns, None, table
+    else:
+        columns, header = detect_columns(table.header, options.columns), table.header
+        loaded = load_records(table, columns, options.settings,          # parse
+                              date_numbers=options.date_numbers)
     loaded, withheld = _withhold(loaded, options.privacy)
-    return ReadTable(loaded, columns, table.header, withheld)
+    read = ReadTable(loaded, columns, header, withheld)
+    return _bound_open_sides(read, options)
+
+
+def _bound_open_sides(read: ReadTable, options: ChartOptions) -> ReadTable:
+    """Unknown and one-sided ends bounded by the user's longest plausible duration."""
+    if options.longest is None and options.longest_column is None:
+        return read
+    longest_of = _longest_of(options, read.columns, read.header)
+    text = (f"--longest {options.longest}" if options.longest_column is None else
+            f"the longest duration of column {options.longest_column!r}")
+    bounded = bound_by_longest(read.loaded.records, longest_of, text)
+    return replace(read, loaded=replace(read.loaded, records=bounded.records),
+                   bounded=bounded.count, findings=read.findings + bounded.findings)
+
+
+def _longest_of(options: ChartOptions, columns: ColumnMap, header):
+    """A record's longest duration in days: its cell of --longest-column when it holds one
+    (a time such as 90y, or a number of years), else --longest."""
+    fallback = duration_days(options.longest, "--longest") if options.longest else None
+    if options.longest_column is None:
+        return lambda record: fallback
+    read_cell = column_reader(columns, header, options.longest_column, "longest column")
+    known: dict[str, float | None] = {}
+
+    def longest_of(record: Record) -> float | None:
+        text = (read_cell(record) or "").strip()
+        if text not in known:
+            known[text] = _cell_days(text) if text else None
+        return known[text] if known[text] is not None else fallback
+
+    return longest_of
+
+
+def duration_days(text: str, option: str) -> float:
+    """A time such as 110y or 18mo in days; a usage error for a page length or no time."""
+    distance = parse_distance(text)
+    if distance.unit != "days":
+        raise UsageError(f"{option} {text!r} is a page length, not a time",
+                         hint="give a time such as 110y, 40y or 18mo")
+    return distance.amount
+
+
+def _cell_days(text: str) -> float | None:
+    """A duration cell: `90y`, `18mo`, or a bare number of years; None when unreadable."""
+    try:
+        return float(text) * DAYS_PER_UNIT["y"]
+    except ValueError:
+        pass
+    try:
+        return duration_days(text, "a duration")
+    except UsageError:
+        return None
 
 
 def arrange(source: object, options: ChartOptions = ChartOptions()) -> Arranged:
@@ -203,12 +260,12 @@ def arrange_read(read: ReadTable, options: ChartOptions = ChartOptions()) -> Arr
     """Check and lay out what `read_source` gave."""
     options = page_options(options)
     loaded, columns, header = read.loaded, read.columns, read.header
-    report = check(loaded)                                               # check
+    report = check(loaded, findings=read.findings)                       # check
     kept, outside = split_by_window(loaded.records, options.window)      # the window
     bands = (read_bands(options.bands, options.settings, options.date_numbers)
              if options.bands is not None else None)
     arranged = Arranged(loaded, report, columns, None, None, read.withheld, tuple(outside),
-                        bands)
+                        bands, bounded=read.bounded)
     dated = [r for r in kept if r.span is not None]
     if not dated:
         return arranged

@@ -34,8 +34,8 @@ from ..calendar import ERAS
 from ..sources import ColumnMap
 from ..sources.serials import DATE_NUMBERS
 from .pipeline import (
-    Arranged, ChartOptions, Privacy, ReadTable, arrange_read, arranged_page, page_options,
-    parse_window, read_source,
+    Arranged, ChartOptions, Privacy, ReadTable, arrange_read, arranged_page, duration_days,
+    page_options, parse_window, read_source,
 )
 
 _COLUMN_PARTS = tuple(f.name for f in fields(ColumnMap))
@@ -164,6 +164,16 @@ class Chart:
         if text is not None:
             changes["text"] = text
         return self._with(**changes)
+
+    def ends(self, *, longest: str | None = None, column: str | None = None) -> "Chart":
+        """Bound the ends the data leave open (an empty cell, `after 1780` as an end) by a
+        longest plausible duration: `longest` for every record ("110y" for lives: a common
+        genealogists' rule of thumb, never a default), or each record's own from `column`
+        (a time such as "7y", or a number of years). Without one, such an end is drawn as a
+        short stub whose length says nothing."""
+        if longest is not None:
+            duration_days(longest, "longest")          # a bad duration fails here
+        return self._with(longest=longest, longest_column=column)
 
     def withhold_living(self, as_of: int | None = None, years: int = 100) -> "Chart":
         """Show records that may be of living persons without their names and details

@@ -146,13 +146,15 @@ class Report:
         return text
 
 
-def check(loaded: Loaded | Iterable[Record], limits: CheckLimits = CheckLimits()) -> Report:
-    """Count, gather the load problems and apply the rules."""
+def check(loaded: Loaded | Iterable[Record], limits: CheckLimits = CheckLimits(),
+          findings: Sequence[Finding] = ()) -> Report:
+    """Count, gather the load problems and apply the rules; `findings` of earlier steps (such
+    as bounding open ends) join the rules' own."""
     records, problems, rows_read = _unpack(loaded)
     errors = tuple(problem for problem in problems if problem.kind in _KEEPS_ROW_OFF)
     undated = tuple(problem for problem in problems if problem.kind == "undated")
     notes = tuple(problem for problem in problems if problem.kind == "note")
-    findings = _duplicate_ids(records, errors) + _long_spans(records, limits)
+    findings = [*findings, *_duplicate_ids(records, errors), *_long_spans(records, limits)]
     findings = tuple(sorted(findings, key=lambda finding: (finding.source, finding.row)))
     counts = _counts(records, errors, rows_read, len(findings))
     return Report(errors, findings, counts, undated, notes)

@@ -196,7 +196,8 @@ def _render_options(args) -> ChartOptions:
         strict=args.strict, dpi=png_dpi(args.dpi, size), lanes=_lane_settings(args),
         text=args.text_mode, privacy=_privacy(args), subtitle=args.subtitle,
         credit=args.credit, notes=tuple(notes), window=_window(args, settings),
-        bands=args.bands, facet=args.facet, size=size, date_numbers=args.date_numbers)
+        bands=args.bands, facet=args.facet, size=size, date_numbers=args.date_numbers,
+        longest=args.longest, longest_column=args.longest_column)
 
 
 def _window(args, settings: DateSettings):
@@ -217,6 +218,10 @@ def _print_run(arranged, args, era: str) -> None:
         people = "1 record" if arranged.withheld == 1 else f"{arranged.withheld} records"
         print(f"note: {people} of possibly living persons shown without their details "
               "(--withhold-living)", file=sys.stderr)
+    if arranged.bounded:
+        records = "1 record's" if arranged.bounded == 1 else f"{arranged.bounded} records'"
+        _say(f"note: {records} open ends bounded by the longest duration (--longest)",
+             file=sys.stderr)
     for placement in arranged.placements:
         for line in lane_report.note_lines(placement.notes, era):
             _say(line, file=sys.stderr)
@@ -247,7 +252,8 @@ def run_lanes(args, parser) -> int:
     settings = _settings(args)
     options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=settings,
                            theme=theme, lanes=_lane_settings(args),
-                           window=_window(args, settings), date_numbers=args.date_numbers)
+                           window=_window(args, settings), date_numbers=args.date_numbers,
+                           longest=args.longest, longest_column=args.longest_column)
     chart = Chart.from_options(_input_path(args, parser), options)
     arranged = _laid_out(chart, Progress(2, quiet=args.quiet))
     _print_run(arranged, args, theme.era)

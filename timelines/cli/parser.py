@@ -56,6 +56,7 @@ def build_parser() -> argparse.ArgumentParser:
     _table_options(draw)
     _lane_options(draw)
     _window_options(draw)
+    _ends_options(draw)
     _text_options(draw)
     draw.add_argument("--fringe", choices=sorted(FRINGES), default=DEFAULT_THEME.fringe,
                       help=f"how possible parts are drawn (default {DEFAULT_THEME.fringe})")
@@ -95,6 +96,7 @@ def build_parser() -> argparse.ArgumentParser:
     _table_options(report)
     _lane_options(report)
     _window_options(report)
+    _ends_options(report)
     report.add_argument("--era", choices=ERAS, default=DEFAULT_THEME.era, help="year labels")
     report.add_argument("--width", type=float, default=DEFAULT_THEME.width,
                         help=f"chart width in px (default {DEFAULT_THEME.width:g}): "
@@ -165,6 +167,17 @@ def _window_options(parser: argparse.ArgumentParser) -> None:
                              "either edge are cut there and marked as continuing")
 
 
+def _ends_options(parser: argparse.ArgumentParser) -> None:
+    ends = parser.add_argument_group("ends the data leave open")
+    ends.add_argument("--longest", metavar="DURATION", type=_duration_text,
+                      help="a longest plausible duration (e.g. 110y for lives) bounding an "
+                           "empty end cell or a one-sided one (after 1780); without it such "
+                           "an end is drawn short")
+    ends.add_argument("--longest-column", metavar="COL",
+                      help="a column giving each record its own longest duration (7y, or a "
+                           "number of years)")
+
+
 def _text_options(parser: argparse.ArgumentParser) -> None:
     words = parser.add_argument_group("words on the chart")
     words.add_argument("--title", default="", help="chart title")
@@ -213,6 +226,16 @@ def _config_options(parser: argparse.ArgumentParser) -> None:
                         help="TOML file of settings; keys are the long option names")
     parser.add_argument("--print-config", action="store_true",
                         help="print the effective settings and where each came from, and stop")
+
+
+def _duration_text(text: str) -> str:
+    try:
+        distance = parse_distance(text)
+    except UsageError as error:
+        raise argparse.ArgumentTypeError(f"{error} ({error.hint})") from None
+    if distance.unit != "days":
+        raise argparse.ArgumentTypeError(f"{text!r} is a page length; give a time such as 110y")
+    return text
 
 
 def _group_order_text(text: str) -> str:

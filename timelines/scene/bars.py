@@ -59,17 +59,23 @@ _DRAWN_FIELDS = ("start_low", "start_high", "end_low", "end_high", "open_start",
                  "has_core")
 
 
-def drawn_spans(spans: Sequence[Span], domain: tuple[float, float]) -> DrawnSpans:
-    """Where each part of each span is drawn. Unbounded sides run to the axis edge; an
-    unknown start reaches to the end's earliest bound (and an unknown end back to the start's
-    latest), so the whole stretch reads as possible, none of it certain."""
+def drawn_spans(spans: Sequence[Span], domain: tuple[float, float], stub: float = 0.0
+                ) -> DrawnSpans:
+    """Where each part of each span is drawn. An open side (ISO 8601-2 `..`: it runs on)
+    reaches the axis edge. A side with no far bound (an empty cell, or `after 1780` as an end)
+    is drawn `stub` days long from the nearest date known: short, so its length says nothing
+    and no other row's dates stretch it. An unknown start reaches to the end's earliest bound
+    (and an unknown end from the start's latest), so the whole stretch reads as possible."""
     low_edge, high_edge = domain
     starts, ends = list(map(_START, spans)), list(map(_END, spans))
     start_earliest, start_latest = _bounds(starts, _EARLIEST), _bounds(starts, _LATEST)
     end_earliest, end_latest = _bounds(ends, _EARLIEST), _bounds(ends, _LATEST)
+    # The nearest date known from each far side inwards: a stub is measured from it.
+    start_anchor = _first_known(start_latest, _first_known(end_earliest, end_latest))
+    end_anchor = _first_known(end_earliest, _first_known(start_latest, start_earliest))
     # Each drawn bound is the first one known of those it falls back on.
-    a = _first_known(start_earliest, low_edge)
-    d = _first_known(end_latest, high_edge)
+    a = _first_known(start_earliest, start_anchor - stub)
+    d = _first_known(end_latest, end_anchor + stub)
     b = _first_known(start_latest, _first_known(end_earliest, d))
     c = _first_known(end_earliest, _first_known(start_latest, a))
     open_start = np.fromiter(map(_IS_OPEN, starts), dtype=bool, count=len(spans))
@@ -84,6 +90,18 @@ def drawn_spans(spans: Sequence[Span], domain: tuple[float, float]) -> DrawnSpan
     certain = np.fromiter((span.certain_core is not None for span in spans), dtype=bool,
                           count=len(spans))
     return DrawnSpans(a, b, c, d, open_start, open_end, (b <= c) & certain)
+
+
+def stub_days(scale: TimeScale, theme: Theme) -> float:
+    """The stub's length in days on `scale`."""
+    return theme.stub_length / scale.px_per_day
+
+
+def unbounded(endpoint, side: str) -> bool:
+    """Whether an endpoint has no far bound and is drawn as a stub: its earliest (a start) or
+    latest (an end) unknown, and the side not open."""
+    far = endpoint.earliest if side == "start" else endpoint.latest
+    return far is None and not endpoint.is_open
 
 
 _START, _END = attrgetter("start"), attrgetter("end")
@@ -150,15 +168,22 @@ def _bar_marks(span, geometry: DrawnSpan, scale, box, style, theme, used) -> lis
         if is_open:
             parts += marks.open_arrow(edge, window.side, scale, box, style)
             used.add("open")
-        elif endpoint.is_unknown:
+        elif endpoint.is_unknown or unbounded(endpoint, window.side):
             parts += marks.unknown_stretch(window, scale, box, style)
-            used.add("unknown")
+            used.add(_stretch_kind(endpoint, window.side))
         else:
             drawn = fringe(window, scale, box, style)
             parts += drawn
             if drawn:
                 used.add(f"fringe:{theme.fringe}")
     return parts
+
+
+def _stretch_kind(endpoint, side: str) -> str:
+    """The legend's key for a dashed stretch: not recorded or without a limit, drawn short or
+    bounded by the user's longest duration."""
+    kind = "unknown" if endpoint.is_unknown else "unbounded"
+    return f"{kind} bounded" if Qualifier.DURATION_BOUND in endpoint.qualifiers else kind
 
 
 def _point_marks(span, geometry: DrawnSpan, scale, box, style, used) -> list[Primitive]:
@@ -252,13 +277,27 @@ def tooltip(record: Record) -> str:
     lines = [record.label or "(no label)"]
     if record.date_text:
         lines.append(f"written: {record.date_text}")
-    if record.span is not None:
-        lines.append(f"possible: {_bound(record.span.possible_extent[0])} to "
-                     f"{_bound(record.span.possible_extent[1])}")
-        core = record.span.certain_core
+    span = record.span
+    if span is not None:
+        lines.append(f"possible: {_far_bound(span.start, 'start')} to "
+                     f"{_far_bound(span.end, 'end')}")
+        core = span.certain_core
         lines.append("certain: " + (f"{_bound(core[0])} to {_bound(core[1])}" if core else "none"))
+        if any(Qualifier.DURATION_BOUND in e.qualifiers for e in (span.start, span.end)):
+            lines.append("limited by the longest duration set for it")
     lines.append(f"source: {record.provenance}")
     return "\n".join(lines)
+
+
+def _far_bound(endpoint, side: str) -> str:
+    """A span's outer bound on one side, or why it has none: open (it runs on), not recorded
+    (an empty cell), or no limit (`after 1780` as an end)."""
+    day = endpoint.earliest if side == "start" else endpoint.latest
+    if day is not None:
+        return iso_from_fixed(day)
+    if endpoint.is_open:
+        return "open"
+    return "not recorded" if endpoint.is_unknown else "no limit"
 
 
 def _bound(day: int | None) -> str:

@@ -16,7 +16,7 @@ from ..layout import GroupPlacement, Placement
 from ..model import Record
 from .axis import draw_axis
 from .bands import draw_bands, place_bands, strip_height
-from .bars import draw_record, drawn_spans
+from .bars import draw_record, drawn_spans, stub_days
 from .encodings import LaneBox
 from .legend import fit_text, heading, legend_and_notes
 from .primitives import Group, Line, Primitive, Scene, Text
@@ -144,7 +144,7 @@ def _lanes(group: GroupPlacement, scale, theme, y, color_of, used, caption: str,
                          "bold" if caption_class == "group-label" else "normal", caption_class)
         children.append(_with_title(label, group))
     drawn = drawn_spans([placed.record.span for placed in group.records],
-                        (scale.start, scale.end)).each()
+                        (scale.start, scale.end), stub_days(scale, theme)).each()
     for placed, geometry in zip(group.records, drawn):
         lane_top = y + placed.lane * theme.lane_height
         box = LaneBox(lane_top + (theme.lane_height - theme.bar_height) / 2, theme.bar_height)

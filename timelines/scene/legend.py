@@ -20,7 +20,12 @@ ENTRIES = (
     ("fringe:dots", "possible: the date lies somewhere in the dotted part"),
     ("open", "open: runs on beyond the chart"),
     ("continues", "continues beyond the window shown"),
-    ("unknown", "not recorded: could lie anywhere in the dashed part"),
+    ("unknown", "not recorded: an empty cell, drawn short; it could lie anywhere beyond"),
+    ("unknown bounded", "not recorded: anywhere in the dashed part, within the longest "
+                        "duration set"),
+    ("unbounded", "no limit on this side: drawn short, it could lie further on"),
+    ("unbounded bounded", "no limit recorded: anywhere in the dashed part, within the longest "
+                          "duration set"),
     ("before", "before: no later than the bracket"),
     ("after", "after: no earlier than the bracket"),
     ("approximate", "approximate (c., ~)"),
@@ -84,7 +89,7 @@ def _sample(key: str, theme: Theme, color: str):
                     + marks.continues_mark(8, "end", scale, box, style))
         if key == "band fringe":
             return _band_sample(x, box, theme)
-        if key == "unknown":
+        if key.startswith(("unknown", "unbounded")):
             return marks.unknown_stretch(EndWindow(0, 10, "end"), scale, box, style)
         if key == "before":
             return (fringe(EndWindow(0, 7, "start"), scale, box, style)

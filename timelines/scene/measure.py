@@ -15,7 +15,7 @@ import numpy as np
 from ..errors import UsageError
 from ..layout import GroupNode, LaneRules, TimeWindow, group_tree
 from ..model import Record
-from .bars import drawn_spans, qualifier_kind
+from .bars import drawn_spans, qualifier_kind, stub_days
 from .compose import SUBGROUP_INDENT
 from .scale import TimeScale, nice_domain
 from .textsize import text_width
@@ -51,6 +51,7 @@ def drawn_measure(scale: TimeScale, theme: Theme):
     mark_room = (text_width("~?", theme.small_font_size, "bold") + 3) * per_px
     marker = theme.bar_height * 0.6 * per_px
     domain = (scale.start, scale.end)
+    stub = stub_days(scale, theme)
     sign_room: dict[frozenset, float] = {}   # by an endpoint's qualifiers: few distinct sets
 
     def room_for_sign(endpoint) -> float:
@@ -61,7 +62,7 @@ def drawn_measure(scale: TimeScale, theme: Theme):
         return found
 
     def measure_spans(spans: list) -> np.ndarray:
-        drawn = drawn_spans(spans, domain)
+        drawn = drawn_spans(spans, domain, stub)
         count = len(spans)
         before = np.fromiter((room_for_sign(span.start) for span in spans), float, count)
         after = np.fromiter((room_for_sign(span.end) for span in spans), float, count)

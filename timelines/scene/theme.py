@@ -42,6 +42,9 @@ class Theme:
     bar_height: float = 12.0
     group_gap: float = 10.0
     label_pad: float = 4.0
+    # A side with no far bound (an empty cell, `after 1780`) is drawn this long: short, so
+    # that its length cannot be read as a duration.
+    stub_length: float = 24.0
     axis_height: float = 28.0
     legend_row_height: float = 18.0
     text_color: str = "#1a1a1a"

@@ -33,7 +33,9 @@ THIRD_PARTY = {
     "matplotlib": {"render.mpl", "render.axes"},
     "svgwrite": {"render.svg"},
     "dateutil": {"dates"},
-    "fontTools": {"render.outlines"},
+    "fontTools": {"render.outlines", "scene.fonts"},
+    "uharfbuzz": {"scene.shaping"},
+    "bidi": {"scene.shaping"},
 }
 # The stages as the tree shows them: the root holds only the model and the pipeline.
 ROOT_MODULES = {"__init__", "__main__", "errors", "calendar", "model"}
@@ -110,8 +112,10 @@ def test_the_tree_shows_the_pipeline():
 
 def test_renderers_know_only_the_primitives():
     """The file renderers draw a Scene's primitives and nothing else of the scene stage; the
-    matplotlib Axes helpers also take the scale's tick rules, so both axes tick alike."""
-    allowed = {"scene.primitives", "render", "errors"}
+    matplotlib Axes helpers also take the scale's tick rules, so both axes tick alike. Text
+    is drawn as the scene stage shaped and measured it: the fonts and the shaping are shared
+    (docs/design.md, "Text in any script")."""
+    allowed = {"scene.primitives", "scene.fonts", "scene.shaping", "render", "errors"}
     wrong = []
     for name, parts, tree in _modules():
         if parts[0] != "render":

@@ -17,6 +17,7 @@ from __future__ import annotations
 
 import datetime
 import io
+from collections.abc import Sequence
 from dataclasses import fields, replace
 from os import PathLike
 from pathlib import Path
@@ -26,7 +27,9 @@ from ..dates import DateSettings, settings_from_options
 from ..errors import TimelineError, UsageError, did_you_mean
 from ..layout import LaneSettings
 from ..render import output_format, write, write_to
+from ..scene.coverage import missing_glyph_notes
 from ..scene.encodings import FRINGES
+from ..scene.fonts import font_list
 from ..scene.page import font_note, parse_font_size, parse_size, png_dpi
 from ..scene.primitives import TEXT_MODES, Scene
 from ..scene.theme import PALETTES
@@ -34,7 +37,7 @@ from ..calendar import ERAS
 from ..sources import ColumnMap
 from ..sources.serials import DATE_NUMBERS
 from .pipeline import (
-    Arranged, ChartOptions, Privacy, ReadTable, arrange_read, arranged_page, duration_days,
+    Arranged, ChartOptions, Privacy, ReadTable, duration_days, arrange_read, arranged_page,
     page_options, parse_window, read_source,
 )
 
@@ -133,17 +136,21 @@ class Chart:
         return self._with(**changes)
 
     def style(self, *, fringe: str | None = None, era: str | None = None,
-              palette: str | tuple[str, ...] | None = None, font: str | None = None,
+              palette: str | tuple[str, ...] | None = None,
+              font: str | Sequence[str] | None = None,
               font_size: float | str | None = None, width: float | None = None) -> "Chart":
         """How the marks look: fringe ("fade", "whisker", "hatch", "dots": the possible
         parts), era ("bce", "bc", "astronomical", "bp": year labels), palette (a name such as
-        "okabe-ito", or colours), font (a family), font_size (points, or "12px"), width
+        "okabe-ito", or colours), font (a family or a list of families, "A, B" or ["A", "B"],
+        each character set in the first that has it), font_size (points, or "12px"), width
         (px)."""
         _check_choice(fringe, sorted(FRINGES), "fringe")
         _check_choice(era, ERAS, "era")
         if isinstance(palette, str):
             _check_choice(palette, sorted(PALETTES), "palette")
             palette = PALETTES[palette]
+        if font is not None and not isinstance(font, str):
+            font = ", ".join(font)
         theme = self._options.theme.with_options(fringe=fringe, era=era, width=width,
                                                  palette=palette, font_family=font)
         if font_size is not None:
@@ -244,7 +251,9 @@ class Chart:
     def warnings(self) -> tuple[str, ...]:
         """About the page: a chart taller than its size, a font other than the measured one."""
         page = self._fitted()
-        return tuple(w for w in (page.warning, font_note(self.options.theme.font_family)) if w)
+        first_font = font_list(self.options.theme.font_family)[0]   # the list's first family
+        return tuple(w for w in (page.warning, font_note(first_font),
+                                 *missing_glyph_notes(page.scene)) if w)
 
     def save(self, target: str | PathLike | object, format: str | None = None
              ) -> Path | None:

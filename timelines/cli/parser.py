@@ -198,9 +198,10 @@ def _page_options(parser: argparse.ArgumentParser) -> None:
                       help="page size such as 180x120mm, 7x5in or 1200x800px; the chart "
                            "fills the height, bars closer together if it must (overrides "
                            "--width)")
-    page.add_argument("--font", default=DEFAULT_THEME.font_family, metavar="FAMILY",
-                      help=f"font family (default {DEFAULT_THEME.font_family}, whose "
-                           "metrics label room is always measured with)")
+    page.add_argument("--font", default=DEFAULT_THEME.font_family, metavar="FAMILIES",
+                      help="font families, comma-separated, each character set in the first "
+                           f"that has it (default {DEFAULT_THEME.font_family}, then Noto "
+                           "families for other scripts where installed)")
     page.add_argument("--font-size", metavar="SIZE", type=_checked(parse_font_size),
                       help="label size in pt (9) or px (12px); other text scales with it "
                            "(default 9pt)")

@@ -16,16 +16,20 @@ file is written from Agg's pixels by `png.write_png`.
 """
 from __future__ import annotations
 
+import contextlib
 import dataclasses
 import functools
 import math
 import threading
+import warnings
 from dataclasses import dataclass
 from pathlib import Path
 
 import numpy
 
 from timelines.render.png import PNG_KEYWORD, write_png
+from timelines.scene.fonts import faces, font_list
+from timelines.scene.shaping import needs_shaping, shape_line
 from timelines.scene.primitives import (
     PX_PER_INCH, GradientRect, Group, Line, Polygon, Rect, Scene, Text, clean_text, drawable_text,
     walk,
@@ -51,7 +55,7 @@ _PDF_INFO_KEYS = {"author": "Author", "subject": "Subject", "keywords": "Keyword
 
 def render_png(scene: Scene, path: str | Path, dpi: float = 150) -> None:
     """Write the scene as PNG; the image is width*dpi/96 by height*dpi/96 pixels."""
-    with _local_settings():
+    with _local_settings(), _quiet_fonts():
         figure = _figure(scene, raster=True)
         figure.dpi = dpi              # as savefig(dpi=...) sets it for the drawing
         figure.canvas.draw()
@@ -63,11 +67,28 @@ def render_png(scene: Scene, path: str | Path, dpi: float = 150) -> None:
 
 def render_pdf(scene: Scene, path: str | Path) -> None:
     """Write the scene as a one-page PDF of width/96 by height/96 inches, fonts embedded."""
-    with _local_settings():
+    with _local_settings(), _quiet_fonts():
         figure = _figure(scene)
         figure.savefig(
             path, format="pdf", facecolor=figure.get_facecolor(), metadata=_pdf_metadata(scene),
         )
+
+
+@contextlib.contextmanager
+def _quiet_fonts():
+    """matplotlib's per-glyph "Glyph N missing from font(s)" warnings and "findfont" log lines
+    silenced: missing characters are reported once per script by `scene.fonts` instead."""
+    import logging
+
+    logger = logging.getLogger("matplotlib.font_manager")
+    level = logger.level
+    with warnings.catch_warnings():
+        warnings.filterwarnings("ignore", message="Glyph .* missing from", category=UserWarning)
+        logger.setLevel(logging.ERROR)
+        try:
+            yield
+        finally:
+            logger.setLevel(level)
 
 
 def _local_settings():
@@ -92,8 +113,9 @@ def _figure(scene: Scene, raster: bool = False):
     axes.set_axis_off()
     axes.set_xlim(0, scene.width)
     axes.set_ylim(scene.height, 0)  # y grows downward, as on the page
-    fonts = list(dict.fromkeys([scene.font_family, "DejaVu Sans"]))
-    page = _Page(axes, fonts, TransformedPatchPath(axes.patch), raster and _glyph_cache_works())
+    fonts = list(dict.fromkeys([font_list(scene.font_family)[0], "DejaVu Sans"]))
+    page = _Page(axes, fonts, TransformedPatchPath(axes.patch), raster and _glyph_cache_works(),
+                 scene.font_family)
     for artist in _artists(scene.children, page):
         artist.set_zorder(DRAW_ORDER)
         # The page edge clips anyway; one shared clip path spares add_artist making one each.
@@ -111,6 +133,7 @@ class _Page:
     font_family: list[str]
     clip: object
     cached_glyphs: bool = False     # draw text from the glyph cache (raster output)
+    families: str | None = None     # the scene's family list, for text that needs shaping
 
 
 def _artists(items, page: _Page):
@@ -181,12 +204,37 @@ def _draw_text(text: Text, page: _Page):
         raise ValueError(f"{text.anchor!r} is not one of start, middle, end")
     if page.cached_glyphs:
         return dataclasses.replace(text, text=content)
+    families = page.font_family
+    if needs_shaping(content):
+        runs = shape_line(content, text.weight, page.families).runs
+        families = list(dict.fromkeys([*_registered_families(page.families, text.weight),
+                                       *_registered(run.face for run in runs)]))
     return TextArtist(
         text.x, text.y, content, fontsize=text.size * POINTS_PER_PX,
         horizontalalignment=HORIZONTAL_ALIGNMENT[text.anchor], verticalalignment="baseline",
-        fontfamily=page.font_family, fontweight=text.weight, fontstyle=text.style,
+        fontfamily=families, fontweight=text.weight, fontstyle=text.style,
         color=text.fill, parse_math=False, usetex=False, wrap=False,
     )
+
+
+@functools.lru_cache(maxsize=16)
+def _registered_families(families: str | None, weight: str) -> list[str]:
+    """The installed families of the chart's list, each face made known to matplotlib's font
+    manager (whose cached list may predate a font installed since), so matplotlib's own
+    layout (libraqm: bidi and shaping) falls back through the fonts our measurement used."""
+    return _registered(faces(font_list(families), "bold" if weight == "bold" else "normal"))
+
+
+def _registered(installed) -> list[str]:
+    """The families of `installed` faces, each made known to matplotlib's font manager."""
+    from matplotlib.font_manager import fontManager
+
+    installed = list(installed)
+    known = {entry.fname for entry in fontManager.ttflist}
+    for face in installed:
+        if face.path not in known and not face.path.lower().endswith((".ttc", ".otc")):
+            fontManager.addfont(face.path)
+    return list(dict.fromkeys(face.family for face in installed))
 
 
 def _draw_group(group: Group, page: _Page):
@@ -392,6 +440,10 @@ def _paint_texts(texts: list[Text], renderer, affine, page: _Page):
     canvas_height = int(renderer.height)
     gc = renderer.new_gc()
     for text, (x, y) in zip(texts, anchors):
+        if needs_shaping(text.text):
+            _paint_shaped(text, x, y, renderer, gc, page)
+            yield
+            continue
         font, size = glyphs.font(page.font_family, text)
         font.set_size(size, renderer.dpi)
         offsets, width = glyphs.laid_out(font, size, renderer.dpi, text.text)
@@ -403,6 +455,24 @@ def _paint_texts(texts: list[Text], renderer, affine, page: _Page):
             renderer._renderer.draw_text_image(image, column, baseline + below, 0, gc)
         yield
     gc.restore()
+
+
+def _paint_shaped(text: Text, x: float, y: float, renderer, gc, page: _Page) -> None:
+    """Text that needs shaping (`scene.shaping`: direction, fallback, HarfBuzz), each run's
+    glyphs from its own face where HarfBuzz put them; (x, y) is the anchor in device px."""
+    from matplotlib.font_manager import FontPath, get_font
+
+    line = shape_line(text.text, text.weight, page.families)
+    em = text.size * renderer.dpi / PX_PER_INCH          # device px per em
+    left = x - ANCHOR_SHIFT[text.anchor] * line.width * em
+    baseline = int(renderer.height) - math.floor(y)
+    gc.set_foreground(text.fill)
+    for run in line.runs:
+        font = get_font(FontPath(run.face.path, run.face.index))
+        placed = _glyph_cache().placed_shaped(font, text.size * POINTS_PER_PX, renderer.dpi, [
+            (glyph.id, left + glyph.x * em, y + glyph.y * em) for glyph in run.glyphs], y)
+        for image, column, below in _glyph_images(placed):
+            renderer._renderer.draw_text_image(image, column, baseline + below, 0, gc)
 
 
 def _glyph_images(placed: list[tuple]) -> list[tuple]:
@@ -504,6 +574,23 @@ class _GlyphCache:
             buffer, left, top = rendered[key]
             if buffer.size:                                  # a space has no ink
                 placed.append((buffer, math.floor(gx) + left, top))
+        return placed
+
+    def placed_shaped(self, font, size, dpi, positions: list[tuple], y: float) -> list[tuple]:
+        """(bitmap, column, rows above the baseline at `y`) of each inked glyph, from (glyph
+        index, x, y) device positions (y up), as `placed` does for one face of a ttc too."""
+        placed = []
+        for index, gx, gy in positions:
+            phase_y = round(4 * (gy % 1)) / 4
+            rendered = self._glyphs.setdefault((font.fname, font.face_index, size, dpi,
+                                                phase_y), {})
+            key = (index, round(4 * (gx % 1)) / 4)
+            if key not in rendered:
+                rendered[key] = self._render(font, size, dpi, key, phase_y)
+            buffer, left, top = rendered[key]
+            if buffer.size:
+                placed.append((buffer, math.floor(gx) + left,
+                               top + math.floor(gy) - math.floor(y)))
         return placed
 
     def _render(self, font, size, dpi, key: tuple[int, float], phase_y: float) -> tuple:

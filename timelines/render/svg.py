@@ -14,6 +14,7 @@ from __future__ import annotations
 import hashlib
 import math
 import re
+import unicodedata
 from dataclasses import dataclass, field
 from pathlib import Path
 from xml.etree import ElementTree
@@ -21,6 +22,7 @@ from xml.etree import ElementTree
 import svgwrite
 from svgwrite.base import Desc, Title
 
+from timelines.scene.fonts import font_list
 from timelines.scene.primitives import (
     TEXT_MODES, GradientRect, Group, Line, Polygon, Rect, Scene, Text, clean_text, drawable_text,
 )
@@ -39,7 +41,8 @@ GRADIENT_ID_PREFIX = "f"                # scene ids are group-N and panel-N: no 
 _UNUSED_ROOT_ATTRIBUTES = ("xmlns:xlink", "xmlns:ev", "baseProfile")
 _BASE36 = "0123456789abcdefghijklmnopqrstuvwxyz"
 # Metric-compatible fallbacks after the scene's font, so text measured for DejaVu Sans fits.
-FONT_FALLBACKS = ("DejaVu Sans", "Bitstream Vera Sans", "sans-serif")
+FONT_FALLBACKS = ("Bitstream Vera Sans", "sans-serif")
+_RTL_CLASSES = frozenset({"R", "AL", "AN"})   # UAX #9 bidirectional classes of RTL text
 XML_DECLARATION = '<?xml version="1.0" encoding="utf-8"?>\n'
 
 # Hex colours and CSS colour keywords only: nothing that could be url(...) or a script.
@@ -63,7 +66,8 @@ def render_svg(scene: Scene, *, text: str = "text") -> str:
     without the font); labels stay readable in each record's `<title>`."""
     digest = _chart_digest(scene)
     context = _Context(_new_drawing(scene, digest),
-                       outlines=_choice(text, TEXT_MODES) == "paths", id_suffix=digest)
+                       outlines=_choice(text, TEXT_MODES) == "paths", id_suffix=digest,
+                       font_family=scene.font_family)
     for item in scene.children:
         _draw_into(context.drawing, item, context)
     if not context.gradients:
@@ -100,6 +104,7 @@ class _Context:
     outlines: bool = False          # draw text as glyph outlines
     texts: list = field(default_factory=list)       # the <text> elements, for _text_style_rules
     id_suffix: str = ""             # ends every scene id (_chart_digest)
+    font_family: str | None = None  # the scene's families, for text drawn as outlines
 
 
 def _new_drawing(scene: Scene, digest: str) -> svgwrite.Drawing:
@@ -289,7 +294,7 @@ def _draw_text(text: Text, context: _Context):
     if context.outlines:
         return _draw_text_outline(text, content, context)
     element = context.drawing.text(
-        content, insert=(_coordinate(text.x), _coordinate(text.y)), font_size=_number(text.size),
+        _isolated(content), insert=(_coordinate(text.x), _coordinate(text.y)), font_size=_number(text.size),
     )
     # Defaults are left out (SVG's own initial values) to keep large charts small.
     if text.anchor != "start":
@@ -310,7 +315,8 @@ def _draw_text_outline(text: Text, content: str, context: _Context):
 
     weight = _choice(text.weight, ("normal", "bold"))
     anchor = _choice(text.anchor, ("start", "middle", "end"))
-    data = outliner(weight).path_data(content, text.x, text.y, text.size, anchor)
+    data = outliner(weight).path_data(content, text.x, text.y, text.size, anchor,
+                                      context.font_family)
     if not data:
         return None     # only spaces
     element = context.drawing.path(d=data)
@@ -356,11 +362,21 @@ def _set_common(element, opacity: float, css_class: str) -> None:
 
 
 def font_family_list(font_family: str) -> str:
-    """The scene's font first, then metric-compatible fallbacks, ending in a generic family."""
-    first = _FONT_NAME_UNSAFE.sub("", font_family).strip()
-    names = [first] if first else []
-    names += [name for name in FONT_FALLBACKS if name.lower() != first.lower()]
-    return ", ".join(names)
+    """The scene's families, then the default fallback list our own renderers use (so a
+    browser falls back to the fonts the text was measured with), ending in a generic one."""
+    names = [_FONT_NAME_UNSAFE.sub("", name).strip() for name in font_list(font_family)]
+    names += FONT_FALLBACKS
+    return ", ".join(dict.fromkeys(name for name in names if name))
+
+
+def _isolated(content: str) -> str:
+    """Text holding right-to-left characters inside FIRST STRONG ISOLATE ... POP DIRECTIONAL
+    ISOLATE (UAX #9, 2.4): a browser then sets its direction from its first strong character
+    as our shaping does (P2-P3), while the SVG's own direction, and so its anchors, stay
+    left to right."""
+    if any(unicodedata.bidirectional(c) in _RTL_CLASSES for c in content):
+        return f"\u2068{content}\u2069"
+    return content
 
 
 def _paint(colour: str | None) -> str:

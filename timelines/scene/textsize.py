@@ -8,7 +8,10 @@ it moves ordinary labels by well under 2%, tightly kerned capitals such as "AV" 
 in ten of DejaVu's kerning pairs tighten, so the estimate errs wide, which keeps labels apart.
 Oblique DejaVu Sans has the regular advances.
 
-Characters not in the table, in this order:
+Text with characters beyond the tables (Hebrew, Arabic, Devanagari, CJK, ...) is shaped with
+the fonts that draw it (`shaping.shape_line`: direction, font fallback, HarfBuzz) and measured
+as shaped, once per string. Only if no font file can be read is it estimated from the tables
+(`estimated_width`), characters not in the table in this order:
 - combining marks, format and control characters take no width (renderers draw none);
 - an accented letter is measured by its base letter (canonical decomposition: ǎ -> a);
 - East Asian wide and fullwidth characters (CJK, most emoji) take 1 em, the square cell their
@@ -20,19 +23,47 @@ Characters not in the table, in this order:
 from __future__ import annotations
 
 import unicodedata
+from functools import lru_cache
 
 _ZERO_WIDTH_CATEGORIES = frozenset({"Mn", "Me", "Cf", "Cc"})
 _BOLD_WEIGHTS = frozenset({"bold", "bolder", "600", "700", "800", "900"})
 
 
-def text_width(text: str, size_px: float, weight: str = "normal") -> float:
-    """Advance width in px of one line of `text` set in DejaVu Sans at `size_px`."""
+def text_width(text: str, size_px: float, weight: str = "normal",
+               families: str | None = None) -> float:
+    """Advance width in px of one line of `text` at `size_px`, set in the chart's families
+    (a comma-separated list; None: the default list, DejaVu Sans first)."""
     table = _ADVANCE_BOLD if weight in _BOLD_WEIGHTS else _ADVANCE_REGULAR
     try:
         units = sum(map(table.__getitem__, text))
     except KeyError:
-        units = sum(_advance_units(ch, table) for ch in text)
+        return _shaped_width(text, "bold" if table is _ADVANCE_BOLD else "normal",
+                             families) * size_px
     return units * size_px / UNITS_PER_EM
+
+
+def covered_by_tables(text: str) -> bool:
+    """Whether every character of `text` is in the tables (the fast path, drawn by DejaVu
+    Sans left to right, one glyph per character)."""
+    return all(map(_ADVANCE_REGULAR.__contains__, text))
+
+
+@lru_cache(maxsize=65536)
+def _shaped_width(text: str, weight: str, families: str | None) -> float:
+    """Width in em of text the tables do not cover, as shaped with the fonts that draw it;
+    the table estimate when it cannot be shaped (no font file could be read)."""
+    from .shaping import shape_line
+
+    try:
+        return shape_line(text, weight, families).width
+    except (OSError, IndexError):
+        return estimated_width(text, 1.0, weight)
+
+
+def estimated_width(text: str, size_px: float, weight: str = "normal") -> float:
+    """Width in px from the tables alone, characters outside them estimated (module notes)."""
+    table = _ADVANCE_BOLD if weight in _BOLD_WEIGHTS else _ADVANCE_REGULAR
+    return sum(_advance_units(ch, table) for ch in text) * size_px / UNITS_PER_EM
 
 
 def text_ascent(size_px: float) -> float:

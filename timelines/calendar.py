@@ -11,6 +11,8 @@ from __future__ import annotations
 
 import math
 import re
+from dataclasses import dataclass
+from functools import lru_cache
 
 GREGORIAN_EPOCH = 1  # R.D. of Gregorian 0001-01-01
 JULIAN_EPOCH = -1    # R.D. of Julian 0001-01-01 (= Gregorian 0000-12-30)
@@ -132,57 +134,168 @@ def julian_from_fixed(fixed: int) -> tuple[int, int, int]:
 # The first Gregorian day in the historical (default) reckoning: Gregorian 1582-10-15,
 # which followed Julian 1582-10-04 in the Papal States.
 GREGORIAN_REFORM = 577736
+# A historical reckoning that switches on another day is named "historical:YYYY-MM-DD", the
+# first Gregorian day (`historical_calendar`): Britain's is "historical:1752-09-14".
+_REFORM_MARK = ":"
+
+
+@dataclass(frozen=True, slots=True)
+class Reform:
+    """Where a historical reckoning switches from the Julian to the Gregorian calendar."""
+
+    first_day: int                          # fixed day of the first Gregorian date
+    last_julian: tuple[int, int, int]       # the last date written in the Julian calendar
+    first_gregorian: tuple[int, int, int]   # the first date written in the Gregorian calendar
+
+    def reckoning_of(self, year: int, month: int, day: int) -> str:
+        """JULIAN or GREGORIAN for a date written in this reckoning; ValueError for a date in
+        the days the switch skipped."""
+        if (year, month, day) <= self.last_julian:
+            return JULIAN
+        if (year, month, day) >= self.first_gregorian:
+            return GREGORIAN
+        raise ValueError(f"{self.skipped_days()} do not exist in the historical reckoning "
+                         f"(Julian {_day_month(self.last_julian)} was followed by Gregorian "
+                         f"{_day_month(self.first_gregorian)})")
+
+    def skipped_days(self) -> str:
+        """The dates the switch skipped: '1582-10-05..14', '1753-02-18..28'."""
+        first = iso_from_fixed_julian(self.first_day)
+        last = iso_from_fixed(self.first_day - 1)
+        return f"{first}..{last[8:]}" if first[:7] == last[:7] else f"{first}..{last}"
+
+
+_MONTH_NAMES = ("January", "February", "March", "April", "May", "June", "July", "August",
+                "September", "October", "November", "December")
+
+
+def _day_month(date: tuple[int, int, int]) -> str:
+    return f"{date[2]} {_MONTH_NAMES[date[1] - 1]}"
+
+
+def iso_from_fixed_julian(fixed: int) -> str:
+    """The Julian date of a fixed day written as ISO 8601 writes dates (YYYY-MM-DD)."""
+    year, month, day = julian_from_fixed(fixed)
+    return f"{year:04d}-{month:02d}-{day:02d}"
+
+
+def historical_calendar(first_gregorian_day: int) -> str:
+    """The name of the historical reckoning that is Julian before `first_gregorian_day` (a
+    fixed day) and Gregorian from it on: "historical" for the 1582 reform, otherwise
+    "historical:YYYY-MM-DD" (Britain's is "historical:1752-09-14")."""
+    if first_gregorian_day == GREGORIAN_REFORM:
+        return HISTORICAL
+    return f"{HISTORICAL}{_REFORM_MARK}{iso_from_fixed(first_gregorian_day)}"
+
+
+@lru_cache(maxsize=64)
+def reform_of(calendar: str) -> Reform | None:
+    """The reform of a historical calendar name; None for the Gregorian and Julian calendars.
+    Raises ValueError for a name that is no calendar."""
+    if calendar in (GREGORIAN, JULIAN):
+        return None
+    if calendar == HISTORICAL:
+        return _reform(GREGORIAN_REFORM)
+    name, mark, day = calendar.partition(_REFORM_MARK) if isinstance(calendar, str) else ("",) * 3
+    if name != HISTORICAL or not mark:
+        raise ValueError(f"unknown calendar {calendar!r}; choose one of {', '.join(CALENDARS)}")
+    return _reform(first_gregorian_day(day))
+
+
+def first_gregorian_day(text: str) -> int:
+    """The fixed day of a reform's first Gregorian date written YYYY-MM-DD; ValueError for a
+    date that is no day or falls before the 1582 reform (no calendar switched earlier)."""
+    parts = text.split("-")
+    if len(parts) != 3 or not all(part.isdigit() for part in parts) or len(parts[0]) != 4:
+        raise ValueError(f"a reform day is written YYYY-MM-DD, such as 1752-09-14, not {text!r}")
+    year, month, day = map(int, parts)
+    check_calendar_date(year, month, day, GREGORIAN)
+    fixed = fixed_from_gregorian(year, month, day)
+    if fixed < GREGORIAN_REFORM:
+        raise ValueError(f"the reform day {text} comes before the first Gregorian day, "
+                         "1582-10-15")
+    return fixed
+
+
+def _reform(first_day: int) -> Reform:
+    return Reform(first_day, julian_from_fixed(first_day - 1), gregorian_from_fixed(first_day))
+
+
+def reform_day(calendar: str) -> int | None:
+    """The first Gregorian fixed day of a historical calendar; None for gregorian and julian."""
+    reform = reform_of(calendar)
+    return None if reform is None else reform.first_day
 
 
 def fixed_from_calendar(year: int, month: int, day: int, calendar: str = HISTORICAL) -> int:
     """R.D. of a date written in `calendar`, checking that the date exists there.
 
+    `calendar` is "gregorian", "julian", "historical" (Julian before 1582-10-15, Gregorian
+    from then on) or a historical reckoning with another reform day (`historical_calendar`).
     Raises ValueError with a plain reason (month 13, 29 February in a common year, or a day in
-    the ten days the 1582 reform skipped)."""
-    check_calendar_date(year, month, day, calendar)
-    if calendar == GREGORIAN:
-        return fixed_from_gregorian(year, month, day)
-    if calendar == JULIAN:
-        return fixed_from_julian(year, month, day)
-    if (year, month, day) >= (1582, 10, 15):
+    the days the reform skipped)."""
+    if _reckoning_of_date(year, month, day, calendar) == GREGORIAN:
         return fixed_from_gregorian(year, month, day)
     return fixed_from_julian(year, month, day)
 
 
 def _checked(calendar: str) -> str:
-    if calendar not in CALENDARS:
-        raise ValueError(f"unknown calendar {calendar!r}; choose one of {', '.join(CALENDARS)}")
+    reform_of(calendar)   # raises for a name that is no calendar
     return calendar
 
 
 def check_calendar_date(year: int, month: int, day: int, calendar: str = HISTORICAL) -> None:
-    _checked(calendar)
+    _reckoning_of_date(year, month, day, calendar)
+
+
+def _reckoning_of_date(year: int, month: int, day: int, calendar: str) -> str:
+    """GREGORIAN or JULIAN: the calendar a date written in `calendar` is reckoned in, once
+    checked that it exists there."""
+    reform = reform_of(calendar)
     if not 1 <= month <= 12:
         raise ValueError(f"month {month} does not exist")
-    reckoning = calendar
-    if calendar == HISTORICAL:
-        if (1582, 10, 5) <= (year, month, day) <= (1582, 10, 14):
-            raise ValueError(
-                "1582-10-05..14 do not exist in the historical reckoning "
-                "(Julian 4 October was followed by Gregorian 15 October)")
-        reckoning = GREGORIAN if (year, month) >= (1582, 10) else JULIAN
+    reckoning = calendar if reform is None else reform.reckoning_of(year, month, day)
     length = days_in_month(year, month, reckoning)
     if not 1 <= day <= length:
         if month == 2 and day == 29:
             raise ValueError(f"{year_label(year)} is not a leap year in the {reckoning} calendar")
         raise ValueError(f"day {day} does not exist in month {month} (it has {length} days)")
+    return reckoning
 
 
 def month_range(year: int, month: int, calendar: str = HISTORICAL) -> tuple[int, int]:
     """First and last fixed day of a month written in `calendar`."""
-    first = fixed_from_calendar(year, month, 1, calendar)
-    last_day = days_in_month(year, month, _reckoning_for(year, month, calendar))
-    return first, fixed_from_calendar(year, month, last_day, calendar)
+    if not 1 <= month <= 12:
+        raise ValueError(f"month {month} does not exist")
+    return _unit_range((year, month, 1), (year, month, days_in_month(year, month, JULIAN)),
+                       (year, month, days_in_month(year, month, GREGORIAN)), calendar)
 
 
 def year_range(year: int, calendar: str = HISTORICAL) -> tuple[int, int]:
     """First and last fixed day of a year (1 January .. 31 December) written in `calendar`."""
-    return fixed_from_calendar(year, 1, 1, calendar), fixed_from_calendar(year, 12, 31, calendar)
+    return _unit_range((year, 1, 1), (year, 12, 31), (year, 12, 31), calendar)
+
+
+def _unit_range(first: tuple[int, int, int], julian_last: tuple[int, int, int],
+                gregorian_last: tuple[int, int, int], calendar: str) -> tuple[int, int]:
+    """First and last fixed day of a unit from its first date and its last (as each calendar
+    writes it). In a historical reckoning the unit begins in Julian unless its Julian start
+    falls on or after the reform, and ends in Gregorian unless its Gregorian end falls before
+    it: so a unit that holds the reform keeps only the days that existed."""
+    reform = reform_of(calendar)
+    if reform is None:
+        last = gregorian_last if calendar == GREGORIAN else julian_last
+        return fixed_from_calendar(*first, calendar), fixed_from_calendar(*last, calendar)
+    julian_first = fixed_from_julian(*first)
+    earliest = (julian_first if julian_first < reform.first_day
+                else max(fixed_from_gregorian(*first), reform.first_day))
+    gregorian_end = fixed_from_gregorian(*gregorian_last)
+    latest = (gregorian_end if gregorian_end >= reform.first_day
+              else min(fixed_from_julian(*julian_last), reform.first_day - 1))
+    if earliest > latest:
+        raise ValueError(f"the unit lies wholly in the days the reform skipped "
+                         f"({reform.skipped_days()})")
+    return earliest, latest
 
 
 def gregorian_year_range(year: int) -> tuple[int, int]:
@@ -190,9 +303,10 @@ def gregorian_year_range(year: int) -> tuple[int, int]:
 
 
 def _reckoning_for(year: int, month: int, calendar: str) -> str:
-    if calendar != HISTORICAL:
+    reform = reform_of(calendar)
+    if reform is None:
         return calendar
-    return GREGORIAN if (year, month) >= (1582, 10) else JULIAN
+    return GREGORIAN if (year, month) >= reform.first_gregorian[:2] else JULIAN
 
 
 def jdn_from_fixed(fixed: int) -> int:

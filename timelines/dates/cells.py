@@ -75,7 +75,7 @@ def _integer_text(number: int) -> str:
 
 def _year_cell(year: int, text: str, settings: DateSettings) -> Endpoint:
     with reading(text):
-        return years(year, year, settings.calendar, Precision.YEAR)
+        return years(year, year, settings.reckoning, Precision.YEAR)
 
 
 def _number_cell(number: float, settings: DateSettings) -> Endpoint:

@@ -76,7 +76,7 @@ def counted_unit(number: int, size: int, era: str | None, marker: str | None,
     low, high = unit_numbers(number, size, settings.century)
     first, last = counted_years(low, high, era)
     precision = Precision.CENTURY if size == 100 else Precision.MILLENNIUM
-    endpoint = years(first, last, marker or settings.calendar, precision,
+    endpoint = years(first, last, marker or settings.reckoning, precision,
                      {Qualifier.CONVENTION_DEPENDENT})
     if trace.on:
         unit = "century" if size == 100 else "millennium"

@@ -9,7 +9,7 @@ only against the forms that take one.
 """
 from __future__ import annotations
 
-from ..calendar import GREGORIAN, HISTORICAL
+from ..calendar import GREGORIAN, iso_from_fixed, reform_of
 from ..model import Endpoint
 from . import trace
 from .centuries import CENTURY_FORMS
@@ -51,7 +51,7 @@ def read_core(core: str, era: str | None, marker: str | None, settings: DateSett
         return None
     # A reader returns the calendar too when it chose one itself (dual years are Julian).
     endpoint, calendar = result if type(result) is tuple else (
-        result, marker or (GREGORIAN if form.gregorian else settings.calendar))
+        result, marker or (GREGORIAN if form.gregorian else settings.reckoning))
     if trace.on:
         trace.note_at(place, f"{core!r}{f' ({era})' if era else ''}: {form.name}, "
                              f"{calendar_words(calendar)}: {trace.bounds(endpoint)}")
@@ -68,8 +68,10 @@ def iso_date(text: str, settings: DateSettings, marker: str | None = None) -> En
 
 
 def calendar_words(calendar: str) -> str:
-    if calendar == HISTORICAL:
-        return "historical calendar (Julian before 1582-10-15, Gregorian after)"
+    reform = reform_of(calendar)
+    if reform is not None:
+        return (f"historical calendar (Julian before {iso_from_fixed(reform.first_day)}, "
+                "Gregorian after)")
     if calendar == GREGORIAN:
         return "proleptic Gregorian calendar"
     return "Julian calendar"

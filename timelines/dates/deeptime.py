@@ -121,7 +121,7 @@ def read_year_with_error(match: re.Match[str], era: str | None, marker: str | No
                          settings: DateSettings) -> Endpoint:
     year = written_year(match["year"], era)
     error = int(match["error"])
-    calendar = marker or settings.calendar
+    calendar = marker or settings.reckoning
     nominal = year_bounds(year, calendar)
     endpoint = Endpoint(year_bounds(year - error, calendar)[0],
                         year_bounds(year + error, calendar)[1], Precision.YEAR,

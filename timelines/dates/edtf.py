@@ -26,7 +26,7 @@ import re
 from itertools import product
 from typing import Iterator
 
-from ..calendar import GREGORIAN, days_in_month, fixed_from_calendar
+from ..calendar import GREGORIAN, days_in_month, fixed_from_calendar, month_range, reform_of
 from ..model import Endpoint, Precision, Qualifier
 from . import trace
 from .grammar import FLAGS, Form
@@ -129,7 +129,7 @@ def _first_in_year(year: int, months: list[int] | None, days: list[int] | None, 
     for month in months:
         length = days_in_month(year, month, calendar)
         if days is None:
-            return fixed_from_calendar(year, month, 1 if forward else length, calendar)
+            return month_range(year, month, calendar)[0 if forward else 1]
         for day in days:
             if day <= length and not _skipped_in_reform(year, month, day, calendar):
                 return fixed_from_calendar(year, month, day, calendar)
@@ -137,7 +137,8 @@ def _first_in_year(year: int, months: list[int] | None, days: list[int] | None, 
 
 
 def _skipped_in_reform(year: int, month: int, day: int, calendar: str) -> bool:
-    return calendar == "historical" and (1582, 10, 5) <= (year, month, day) <= (1582, 10, 14)
+    reform = reform_of(calendar)
+    return reform is not None and reform.last_julian < (year, month, day) < reform.first_gregorian
 
 
 def _matching(pattern: str, low: int, high: int, forward: bool) -> list[int]:

@@ -102,7 +102,7 @@ def read_month_year(match: re.Match[str], era: str | None, marker: str | None,
     month = MONTHS[match["month"].lower()]
     if "next" not in match.re.groupindex:
         return month_window(written_year(match["year"], era), month,
-                            marker or settings.calendar, settings)
+                            marker or settings.reckoning, settings)
     return _in_year(match, era, marker, settings,
                     lambda year, calendar: month_window(year, month, calendar, settings))
 
@@ -123,7 +123,7 @@ def _in_year(match: re.Match[str], era: str | None, marker: str | None, settings
              unit) -> Endpoint | tuple[Endpoint, str]:
     """The unit in a plain year, or in the New Style year of a dual year (Julian)."""
     if match["next"] is None:
-        return unit(written_year(match["year"], era), marker or settings.calendar)
+        return unit(written_year(match["year"], era), marker or settings.reckoning)
     new_year = dual_year(match["year"], match["next"])
     if marker not in (None, JULIAN):
         raise Unreadable("a dual year belongs to the Old Style (Julian) calendar",
@@ -153,12 +153,12 @@ def read_year_month_day(match: re.Match[str], era: str | None, marker: str | Non
                         settings: DateSettings) -> Endpoint:
     year = written_year(match["year"], era)
     month = MONTHS[match["month"].lower()]
-    return day_endpoint(year, month, _day_number(match), marker or settings.calendar, settings)
+    return day_endpoint(year, month, _day_number(match), marker or settings.reckoning, settings)
 
 
 def read_numeric_date(match: re.Match[str], era: str | None, marker: str | None,
                       settings: DateSettings) -> Endpoint:
-    calendar = marker or settings.calendar
+    calendar = marker or settings.reckoning
     if match["long_year"]:
         year = written_year(match["long_year"], era)
         return day_endpoint(year, _month(match["month_2"]), int(match["day_2"]), calendar,
@@ -213,7 +213,7 @@ def _month(text: str) -> int:
 def read_numeric_month(match: re.Match[str], era: str | None, marker: str | None,
                        settings: DateSettings) -> Endpoint:
     year = written_year(match["year"], era)
-    return month_window(year, _month(match["month"]), marker or settings.calendar, settings)
+    return month_window(year, _month(match["month"]), marker or settings.reckoning, settings)
 
 
 def read_season(match: re.Match[str], era: str | None, marker: str | None,
@@ -224,14 +224,14 @@ def read_season(match: re.Match[str], era: str | None, marker: str | None,
         if season != "winter" or not names_next_year(match["year"], match["next"]):
             raise Unreadable("only a winter is written with two years (winter 1650/51)",
                              fragment=match[0])
-    return season_endpoint(year, season, marker or settings.calendar, settings)
+    return season_endpoint(year, season, marker or settings.reckoning, settings)
 
 
 def read_quarter(match: re.Match[str], era: str | None, marker: str | None,
                  settings: DateSettings) -> Endpoint:
     quarter = int(match["quarter"] or match["quarter_2"])
     year = written_year(match["year"] or match["year_first"], era)
-    return consecutive_months(year, 3 * quarter - 2, 3, marker or settings.calendar)
+    return consecutive_months(year, 3 * quarter - 2, 3, marker or settings.reckoning)
 
 
 def misspelt_month(text: str) -> tuple[str, str] | None:

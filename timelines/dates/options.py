@@ -14,8 +14,8 @@ from typing import Callable, Mapping
 
 from ..calendar import CALENDARS
 from .settings import (
-    BOUND_READINGS, CENTURY_READINGS, DEFAULT_SETTINGS, HEMISPHERES, MAX_CIRCA, PART_READINGS,
-    DateSettings,
+    BOUND_READINGS, CENTURY_READINGS, DEFAULT_SETTINGS, HEMISPHERES, HUNDREDS_READINGS,
+    MAX_CIRCA, NAMED_REFORMS, PART_READINGS, SINGLE_VALUE_READINGS, TODAY, DateSettings,
 )
 
 
@@ -70,6 +70,30 @@ def _year_start(name: str, value: object) -> object:
     return text
 
 
+def _reform(name: str, value: object) -> object:
+    """A named reform (britain) or the first Gregorian day written YYYY-MM-DD."""
+    text = value.strip().lower() if isinstance(value, str) else value
+    text = NAMED_REFORMS.get(text, text)
+    try:
+        replace(DEFAULT_SETTINGS, reform=text)
+    except ValueError as error:
+        if isinstance(text, str) and text[:1].isdigit():
+            raise ValueError(f"{name} {value!r}: {error}") from None
+        raise ValueError(f"{name} is the first Gregorian day, YYYY-MM-DD, or one of "
+                         f"{', '.join(NAMED_REFORMS)}, not {value!r}") from None
+    return text
+
+
+def _present(name: str, value: object) -> object:
+    text = value.strip().lower() if isinstance(value, str) else value
+    try:
+        replace(DEFAULT_SETTINGS, present=text)
+    except ValueError:
+        raise ValueError(f"{name} is today or a day written YYYY-MM-DD, "
+                         f"not {value!r}") from None
+    return text
+
+
 _DAYS, _YEARS = _whole_number(MAX_CIRCA), _whole_number(MAX_CIRCA)
 OPTIONS: dict[str, _Option] = {
     "calendar": _Option("calendar", "calendar of free-text dates: historical (Julian before "
@@ -103,6 +127,17 @@ OPTIONS: dict[str, _Option] = {
                           "e.g. 03-25 for Lady Day (default: 01-01)", _year_start),
     "hemisphere": _Option("hemisphere", "months of the seasons: northern or southern "
                           "(default: northern)", _choice(HEMISPHERES)),
+    "reform": _Option("reform", "first Gregorian day of the historical calendar, YYYY-MM-DD, "
+                      f"or {', '.join(NAMED_REFORMS)} (default: 1582-10-15; britain is "
+                      "1752-09-14)", _reform),
+    "single-value": _Option("single_value", "a single value in a when column (1650, 19th "
+                            "century) covers its whole unit (unit) or is one moment in it "
+                            "(moment) (default: unit)", _choice(SINGLE_VALUE_READINGS)),
+    "hundreds": _Option("hundreds", "1600s (an s on a century year) is the century 1600-1699 "
+                        "or the decade 1600-1609 (default: century)",
+                        _choice(HUNDREDS_READINGS)),
+    "present": _Option("present", "the day present/now/today/ongoing in an end cell stand "
+                       f"for: {TODAY} or YYYY-MM-DD (default: {TODAY})", _present),
 }
 
 SETTING_HELP: dict[str, str] = {name: option.help for name, option in OPTIONS.items()}

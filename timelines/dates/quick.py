@@ -124,13 +124,16 @@ def quick_span(text: str, settings: DateSettings) -> Span | None:
     return _READERS[found.lastgroup](text.lower(), settings)
 
 
+_PLAIN_CALENDARS = frozenset({GREGORIAN, JULIAN, HISTORICAL})
+
+
 @lru_cache(maxsize=1 << 14)
 def _year_point(year: int, calendar: str) -> Span:
     return Span.point(plain_year(year, calendar))
 
 
 def _year(text: str, settings: DateSettings) -> Span:
-    return _year_point(int(text), settings.calendar)
+    return _year_point(int(text), settings.reckoning)
 
 
 def _iso(text: str, settings: DateSettings) -> Span | None:
@@ -154,7 +157,9 @@ def _month_day_year(text: str, settings: DateSettings) -> Span | None:
 def _day(year: int, month: int, day: int, settings: DateSettings) -> Span | None:
     if not 1 <= day <= 28 or not 1 <= month <= 12 or year == 1582 and month == 10:
         return None   # the general reader says why a day does not exist
-    return day_point(_day_number(year, month, day, settings.calendar))
+    if settings.reckoning not in _PLAIN_CALENDARS:
+        return None   # another reform day: its skipped days are the general reader's
+    return day_point(_day_number(year, month, day, settings.reckoning))
 
 
 def _day_number(year: int, month: int, day: int, calendar: str) -> int:
@@ -178,15 +183,15 @@ def _month_year(text: str, settings: DateSettings) -> Span | None:
     number = MONTHS.get(month)
     if number is None:
         return None
-    earliest, latest = month_bounds(int(year), number, settings.calendar)
+    earliest, latest = month_bounds(int(year), number, settings.reckoning)
     return point(checked_window(earliest, latest, Precision.MONTH))
 
 
 def _decade(text: str, settings: DateSettings) -> Span:
     number = int(text[:-1])
     if number % 100 == 0:
-        return Span.point(years(number, number + 99, settings.calendar, Precision.CENTURY))
-    return Span.point(years(number, number + 9, settings.calendar, Precision.DECADE))
+        return Span.point(years(number, number + 99, settings.reckoning, Precision.CENTURY))
+    return Span.point(years(number, number + 9, settings.reckoning, Precision.DECADE))
 
 
 def _worded(text: str, settings: DateSettings) -> Span:
@@ -198,7 +203,7 @@ def _worded(text: str, settings: DateSettings) -> Span:
 
 def _bounded_year(year: int, word: str, settings: DateSettings) -> Endpoint:
     """windows.before or windows.after of plain_year(year): one side left open."""
-    first, last = year_bounds(year, settings.calendar)
+    first, last = year_bounds(year, settings.reckoning)
     is_before, marks, inclusive = _BOUNDS[word]
     if inclusive is None:
         inclusive = settings.before_after == "inclusive"
@@ -209,21 +214,21 @@ def _bounded_year(year: int, word: str, settings: DateSettings) -> Endpoint:
 
 def _circa_year(year: int, settings: DateSettings, qualifiers=_APPROXIMATE) -> Endpoint:
     """windows.approximate(plain_year(year)): the years around it, no likely day."""
-    amount, calendar = settings.circa_years_for_year, settings.calendar
+    amount, calendar = settings.circa_years_for_year, settings.reckoning
     return checked_window(year_bounds(year - amount, calendar)[0],
                           year_bounds(year + amount, calendar)[1], Precision.YEAR, qualifiers)
 
 
 def _bc(text: str, settings: DateSettings) -> Span:
     year = 1 - int(text.split(" ")[0])
-    return point(plain_year(year, settings.calendar))
+    return point(plain_year(year, settings.reckoning))
 
 
 def _years(text: str, settings: DateSettings) -> Span | None:
     first, last = int(text[:4]), int(text[-4:])
     if last < first:
         return None   # the general reader says the end comes before the start
-    return checked_span(plain_year(first, settings.calendar), plain_year(last, settings.calendar))
+    return checked_span(plain_year(first, settings.reckoning), plain_year(last, settings.reckoning))
 
 
 def _interval(text: str, settings: DateSettings) -> Span | None:
@@ -251,7 +256,7 @@ def _part_decade(text: str, settings: DateSettings) -> Span:
 def _part(endpoint: Endpoint, words: list[str], settings: DateSettings) -> Endpoint:
     if not words:
         return endpoint
-    return part_of(endpoint, part_from_words(words[0]), settings.calendar, settings)
+    return part_of(endpoint, part_from_words(words[0]), settings.reckoning, settings)
 
 
 def _worded_bc(text: str, settings: DateSettings) -> Span:
@@ -262,7 +267,7 @@ def _worded_bc(text: str, settings: DateSettings) -> Span:
 def _marked(text: str, settings: DateSettings) -> Span:
     marks = _MARKS[text[-1]]
     if marks is _UNCERTAIN:
-        first, last = year_bounds(int(text[:-1]), settings.calendar)
+        first, last = year_bounds(int(text[:-1]), settings.reckoning)
         return point(checked_window(first, last, Precision.YEAR, marks))
     return point(_circa_year(int(text[:-1]), settings, marks))
 
@@ -281,7 +286,7 @@ def _between(text: str, settings: DateSettings) -> Span | None:
     first, last = int(text[8:12]), int(text[-4:])
     if last < first:
         return None   # the general reader says to write the earlier first
-    calendar = settings.calendar
+    calendar = settings.reckoning
     return point(checked_window(year_bounds(first, calendar)[0], year_bounds(last, calendar)[1],
                                 Precision.YEAR, _ONE_OF))
 
@@ -291,20 +296,20 @@ def _months(text: str, settings: DateSettings) -> Span | None:
     first, last = (MONTHS.get(name, 0) for name in months.split("\u2013"))
     if last < first or not first:
         return None   # written backwards: the general reader says so
-    start = month_bounds(int(year), first, settings.calendar)
-    end = month_bounds(int(year), last, settings.calendar)
+    start = month_bounds(int(year), first, settings.reckoning)
+    end = month_bounds(int(year), last, settings.reckoning)
     return checked_span(checked_window(*start, Precision.MONTH),
                         checked_window(*end, Precision.MONTH))
 
 
 def _circa_decade(text: str, settings: DateSettings) -> Span:
     decade = _decade(text.split(" ")[1], settings).start
-    return point(approximate(decade, settings, settings.calendar))
+    return point(approximate(decade, settings, settings.reckoning))
 
 
 def _year_error(text: str, settings: DateSettings) -> Span:
     year_text, _sign, error_text = text.split(" ")
-    year, error, calendar = int(year_text), int(error_text), settings.calendar
+    year, error, calendar = int(year_text), int(error_text), settings.reckoning
     nominal = year_bounds(year, calendar)
     return point(checked_window(year_bounds(year - error, calendar)[0],
                                 year_bounds(year + error, calendar)[1], Precision.YEAR,

@@ -5,15 +5,35 @@ default (docs/dates.md); a result that depended on one carries `convention_depen
 """
 from __future__ import annotations
 
+import datetime
 from dataclasses import dataclass
 from functools import lru_cache
 
-from ..calendar import CALENDARS, HISTORICAL
+from ..calendar import CALENDARS, HISTORICAL, first_gregorian_day, historical_calendar
 
 CENTURY_READINGS = ("common", "strict")
 BOUND_READINGS = ("exclusive", "inclusive")
 PART_READINGS = ("thirds", "overlapping")
 HEMISPHERES = ("northern", "southern")
+SINGLE_VALUE_READINGS = ("unit", "moment")
+HUNDREDS_READINGS = ("century", "decade")
+TODAY = "today"
+# The first Gregorian day of published reforms, by name: the date that followed the last Julian
+# one. From the list of adoption dates of the Gregorian calendar by country (Wikipedia,
+# checked against a second table, sci.aha.ru); 1582 and 1752 also in Reingold & Dershowitz,
+# *Calendrical Calculations*. Sweden's own calendar of 1700-1712 is not modelled; Prussia is
+# left out (1610 and 1612 are both published).
+NAMED_REFORMS = {
+    "papal": "1582-10-15",               # after Julian 4 October 1582: Italy, Spain, Portugal
+    "france": "1582-12-20",              # after 9 December 1582
+    "protestant-germany": "1700-03-01",  # after 18 February 1700
+    "denmark-norway": "1700-03-01",      # after 18 February 1700
+    "britain": "1752-09-14",             # after 2 September 1752 (Calendar (New Style) Act 1750)
+    "sweden": "1753-03-01",              # after 17 February 1753
+    "russia": "1918-02-14",              # after 31 January 1918
+    "greece": "1923-03-01",              # after 15 February 1923
+}
+DEFAULT_REFORM = NAMED_REFORMS["papal"]
 MAX_CIRCA = 1_000_000  # years or days: far beyond any sensible widening, small enough for int64
 
 
@@ -51,6 +71,18 @@ class DateSettings:
     year_start: str = "01-01"
     # Months of the seasons: ISO 8601-2 codes 21-24 and words like "spring 1650".
     hemisphere: str = "northern"
+    # The first Gregorian day of the historical calendar, YYYY-MM-DD: Julian before it.
+    # 1582-10-15 (the papal reform) by default; 1752-09-14 in Britain and its colonies.
+    reform: str = DEFAULT_REFORM
+    # A single value in a span column (`1650`, `19th century` in a when column): "unit"
+    # covers the whole unit (1650-01-01 .. 1650-12-31, all of it certain); "moment" reads it
+    # as one moment somewhere in the unit. An explicit day is a moment either way.
+    single_value: str = "unit"
+    # `1600s`, an s on a century year: "century" (1600-1699) or "decade" (1600-1609).
+    hundreds: str = "century"
+    # The day `present`, `now`, `today`, `ongoing` in an end cell stand for: "today" (the
+    # local date when the table is read) or YYYY-MM-DD.
+    present: str = TODAY
 
     def __post_init__(self) -> None:
         _check_choice("calendar", self.calendar, CALENDARS)
@@ -58,6 +90,10 @@ class DateSettings:
         _check_choice("before_after", self.before_after, BOUND_READINGS)
         _check_choice("early_mid_late", self.early_mid_late, PART_READINGS)
         _check_choice("hemisphere", self.hemisphere, HEMISPHERES)
+        _check_choice("single_value", self.single_value, SINGLE_VALUE_READINGS)
+        _check_choice("hundreds", self.hundreds, HUNDREDS_READINGS)
+        if self.present != TODAY:
+            present_setting_day(self.present)
         if self.day_first not in (None, True, False):
             raise ValueError(f"day_first must be None, True or False, not {self.day_first!r}")
         for name in _CIRCA_FIELDS:
@@ -68,6 +104,14 @@ class DateSettings:
         if self.circa_percent_for_deep_time > 100:
             raise ValueError("circa_percent_for_deep_time is a percentage: 0 to 100")
         year_start_parts(self.year_start)
+        _reckoning(self.calendar, self.reform)   # raises for a reform day that is no day
+
+    @property
+    def reckoning(self) -> str:
+        """The calendar name the readers use: the calendar setting with its reform day."""
+        if self.reform == DEFAULT_REFORM:
+            return self.calendar
+        return _reckoning(self.calendar, self.reform)
 
     @property
     def year_start_month_day(self) -> tuple[int, int]:
@@ -93,6 +137,33 @@ def year_start_parts(text: str) -> tuple[int, int]:
     if not 1 <= month <= 12 or not 1 <= day <= _LONGEST_MONTHS[month - 1]:
         raise ValueError(f"year_start {text!r} is not a day of the year")
     return month, day
+
+
+@lru_cache(maxsize=64)
+def _reckoning(calendar: str, reform: str) -> str:
+    """The calendar name of the readers: a historical calendar carries its reform day."""
+    if not isinstance(reform, str):
+        raise ValueError(f"reform is a day written YYYY-MM-DD, not {reform!r}")
+    first_day = first_gregorian_day(reform)
+    return historical_calendar(first_day) if calendar == HISTORICAL else calendar
+
+
+@lru_cache(maxsize=64)
+def present_setting_day(text: str) -> int:
+    """The fixed day of a present setting written YYYY-MM-DD (proleptic Gregorian)."""
+    try:
+        if isinstance(text, str) and len(text) == 10:
+            return datetime.date.fromisoformat(text).toordinal()
+    except ValueError:
+        pass
+    raise ValueError(f"present is 'today' or a day written YYYY-MM-DD, not {text!r}")
+
+
+def present_day(settings: "DateSettings") -> int:
+    """The fixed day `present` stands for: the present setting, or today (the local date)."""
+    if settings.present == TODAY:
+        return datetime.date.today().toordinal()
+    return present_setting_day(settings.present)
 
 
 def _check_choice(name: str, value: object, choices: tuple[str, ...]) -> None:

@@ -55,7 +55,7 @@ def read_digits(match: re.Match[str], era: str | None, marker: str | None,
     if era is None and len(digits) > 4:
         raise Unreadable("a year of more than four digits needs a sign (+12000) "
                          "or an era (12000 BC)", fragment=digits)
-    return year_window(written_year(digits, era), marker or settings.calendar, settings)
+    return year_window(written_year(digits, era), marker or settings.reckoning, settings)
 
 
 def _grouped_year(grouped: str, era: str | None, marker: str | None,
@@ -64,7 +64,7 @@ def _grouped_year(grouped: str, era: str | None, marker: str | None,
         raise Unreadable("a year grouped in thousands needs an era (12,000 BC) or a sign "
                          "(-11999, +12000)", fragment=grouped)
     return year_window(written_year(grouped.replace(",", ""), era),
-                       marker or settings.calendar, settings)
+                       marker or settings.reckoning, settings)
 
 
 def read_dual_year(match: re.Match[str], era: str | None, marker: str | None,
@@ -82,7 +82,7 @@ def read_dual_year(match: re.Match[str], era: str | None, marker: str | None,
 def read_decade(match: re.Match[str], era: str | None, marker: str | None,
                 settings: DateSettings) -> Endpoint:
     number = int(match["digits"])
-    calendar = marker or settings.calendar
+    calendar = marker or settings.reckoning
     if number % 100 == 0:
         first, last = counted_years(number, number + 99, era)
         return years(first, last, calendar, Precision.CENTURY)

@@ -13,7 +13,7 @@ from typing import Iterable
 from ..calendar import (
     GREGORIAN, GREGORIAN_REFORM, HISTORICAL, JULIAN, fixed_from_calendar, fixed_from_gregorian,
     fixed_from_julian, gregorian_from_fixed, gregorian_year_from_fixed, is_gregorian_leap_year,
-    is_julian_leap_year, julian_from_fixed, month_range, year_range,
+    is_julian_leap_year, julian_from_fixed, month_range, reform_day, reform_of, year_range,
 )
 from ..errors import DateError
 from ..model import Endpoint, Precision, Qualifier, Span
@@ -29,6 +29,7 @@ PRESENT_YEAR = 1950  # "before present" (BP, ka, Ma) counts back from 1950 (radi
 
 # Days in each month of a common year; February gains the leap day.
 _MONTH_DAYS = (31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31)
+_PAPAL_REFORM_MONTH = (1582, 10)   # the month of calendar.GREGORIAN_REFORM
 _PRECISION_ORDER = {precision: rank for rank, precision in enumerate(Precision)}
 _APPROXIMATE_MARKS = frozenset({Qualifier.APPROXIMATE, Qualifier.CONVENTION_DEPENDENT})
 
@@ -67,10 +68,11 @@ def digits_about(number: int) -> str:
 def year_bounds(year: int, calendar: str) -> tuple[int, int]:
     """First and last fixed day of a year; columns repeat years, so this is remembered."""
     check_year(year)
-    if calendar == HISTORICAL:
-        if year == 1582:
+    reform = reform_of(calendar)
+    if reform is not None:
+        if reform.last_julian[0] <= year <= reform.first_gregorian[0]:
             return year_range(year, calendar)   # Julian January, Gregorian December
-        calendar = GREGORIAN if year > 1582 else JULIAN
+        calendar = GREGORIAN if year > reform.first_gregorian[0] else JULIAN
     if calendar == GREGORIAN:
         first = fixed_from_gregorian(year, 1, 1)
         return first, first + 364 + is_gregorian_leap_year(year)
@@ -87,7 +89,7 @@ def month_bounds(year: int, month_number: int, calendar: str) -> tuple[int, int]
     if 1 <= month_number <= 12:
         calendar = _reckoning(year, month_number, calendar)
     if not 1 <= month_number <= 12 or calendar not in (GREGORIAN, JULIAN):
-        return month_range(year, month_number, calendar)   # its errors, or the 1582 reform
+        return month_range(year, month_number, calendar)   # its errors, or the reform month
     if calendar == GREGORIAN:
         first, leap = fixed_from_gregorian(year, month_number, 1), is_gregorian_leap_year(year)
     else:
@@ -97,9 +99,9 @@ def month_bounds(year: int, month_number: int, calendar: str) -> tuple[int, int]
 
 def day_fixed(year: int, month_number: int, day_number: int, calendar: str) -> int:
     """The fixed day of a date that must exist in `calendar`; raises ValueError."""
-    if 1 <= month_number <= 12 and 1 <= day_number <= 28 and (
-            calendar != HISTORICAL or (year, month_number) != (1582, 10)):
-        # Every month has a 28th: only the reform month of the historical reckoning lacks days.
+    if 1 <= month_number <= 12 and 1 <= day_number <= 28:
+        # Every month has a 28th: only the reform months of a historical reckoning lack days,
+        # and _reckoning leaves them to fixed_from_calendar.
         reckoning = _reckoning(check_year(year), month_number, calendar)
         if reckoning == GREGORIAN:
             return fixed_from_gregorian(year, month_number, day_number)
@@ -109,10 +111,18 @@ def day_fixed(year: int, month_number: int, day_number: int, calendar: str) -> i
 
 
 def _reckoning(year: int, month_number: int, calendar: str) -> str:
-    """The calendar a month is written in: the historical reckoning's side of the reform."""
-    if calendar != HISTORICAL or (year, month_number) == (1582, 10):
+    """The calendar a month is written in: a historical reckoning's side of the reform, or
+    the historical calendar itself for the months the reform falls in."""
+    if calendar == GREGORIAN or calendar == JULIAN:
         return calendar
-    return GREGORIAN if (year, month_number) > (1582, 10) else JULIAN
+    if calendar == HISTORICAL:
+        first = last = _PAPAL_REFORM_MONTH   # the default, without a look-up
+    else:
+        reform = reform_of(calendar)
+        first, last = reform.last_julian[:2], reform.first_gregorian[:2]
+    if (year, month_number) < first:
+        return JULIAN
+    return GREGORIAN if (year, month_number) > last else calendar
 
 
 def years(first: int, last: int, calendar: str, precision: Precision,
@@ -197,16 +207,23 @@ def _widened(endpoint: Endpoint, field: str, amount: int, calendar: str) -> tupl
 
 def year_of(fixed: int, calendar: str) -> int:
     """The year, as `calendar` numbers it, that holds a fixed day."""
-    if calendar == GREGORIAN or (calendar == HISTORICAL and fixed >= GREGORIAN_REFORM):
+    if _written_gregorian(fixed, calendar):
         return gregorian_year_from_fixed(fixed)
     return julian_from_fixed(fixed)[0]
 
 
 def date_of(fixed: int, calendar: str) -> tuple[int, int, int]:
     """(year, month, day) of a fixed day as `calendar` writes it."""
-    if calendar == GREGORIAN or (calendar == HISTORICAL and fixed >= GREGORIAN_REFORM):
+    if _written_gregorian(fixed, calendar):
         return gregorian_from_fixed(fixed)
     return julian_from_fixed(fixed)
+
+
+def _written_gregorian(fixed: int, calendar: str) -> bool:
+    if calendar == GREGORIAN or calendar == JULIAN:
+        return calendar == GREGORIAN
+    first_day = GREGORIAN_REFORM if calendar == HISTORICAL else reform_day(calendar)
+    return fixed >= first_day
 
 
 def before(endpoint: Endpoint, settings: DateSettings, inclusive: bool | None = None) -> Endpoint:

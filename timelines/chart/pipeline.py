@@ -30,7 +30,7 @@ from ..layout.distances import DAYS_PER_UNIT, Distance, parse_distance
 from ..model import Record
 from ..render import output_format, writable, write
 from ..scene.bands import on_axis
-from ..scene.compose import ChartText, color_key, compose, title_height
+from ..scene.compose import ChartText, colors_of, compose, title_height
 from ..scene.facets import Panel, compose_facets, panel_width
 from ..scene.measure import LABEL_CLEARANCE, chart_scale, days_per_px, drawn_measure, label_width
 from ..scene.page import FittedPage, PageSize, fit_height, font_note
@@ -337,7 +337,8 @@ def arranged_page(arranged: Arranged, options: ChartOptions) -> FittedPage:
     report = arranged.report
     text = ChartText(options.title, tuple(r for r in records if r.span is None),
                      report.not_drawn - report.undated, subtitle=options.subtitle,
-                     credit=options.credit, notes=options.notes, outside=arranged.outside)
+                     credit=options.credit, notes=options.notes, outside=arranged.outside,
+                     color_title=arranged.columns.color or "")
     bands = arranged.bands.records if arranged.bands else ()
     if arranged.panels:
         facet = options.facet or ""
@@ -351,11 +352,24 @@ def arranged_page(arranged: Arranged, options: ChartOptions) -> FittedPage:
 
 def _colors(records, arranged: Arranged, theme: Theme):
     """(colour of a record, the colour key) for the records drawn, in table order."""
-    drawn = {id(p.record) for placement in arranged.placements
+    return _drawn_colors(records, arranged.placements, theme)
+
+
+def _drawn_colors(records, placements, theme: Theme):
+    drawn = {id(p.record) for placement in placements
              for _, group in placement.leaves() for p in group.records}
-    colors = color_key([r for r in records if id(r) in drawn], theme)
-    by_value = dict(colors)
-    return (lambda r: by_value.get(r.color, theme.bar_color)), colors
+    return colors_of([r for r in records if id(r) in drawn], theme)
+
+
+def color_warning(arranged: Arranged, options: ChartOptions) -> str | None:
+    """A warning when the colour column has more values than the palette has colours."""
+    theme = options.theme
+    values = len({r.color for r in arranged.loaded.records if r.color and r.span})
+    if theme.max_colors is not None or values <= len(theme.palette):
+        return None
+    return (f"the colour column {arranged.columns.color!r} has {values} values and the "
+            f"palette {len(theme.palette)} colours, so colours repeat; --max-colors "
+            f"{len(theme.palette)} gives the smallest values one colour, 'other'")
 
 
 def build_scene(records: Iterable[Record], theme: Theme = DEFAULT_THEME, title: str = "",
@@ -381,12 +395,9 @@ def placement_scene(records: Iterable[Record], placement: Placement, scale: Time
                     theme: Theme, title: str = "", not_drawn: int = 0, *,
                     text: ChartText | None = None, bands: Iterable[Record] = ()) -> Scene:
     # Colours in order of first appearance in the table, for the records drawn.
-    drawn = {id(p.record) for _, group in placement.leaves() for p in group.records}
-    colors = color_key([r for r in records if id(r) in drawn], theme)
+    color_of, colors = _drawn_colors(records, (placement,), theme)
     text = text or ChartText(title, placement.undated, not_drawn)
-    by_value = dict(colors)
-    return compose(placement, scale, theme, text,
-                   lambda r: by_value.get(r.color, theme.bar_color), colors,
+    return compose(placement, scale, theme, text, color_of, colors,
                    plot_top=title_height(text, theme) + 8, bands=tuple(bands))
 
 

@@ -37,8 +37,8 @@ from ..calendar import ERAS
 from ..sources import ColumnMap
 from ..sources.serials import DATE_NUMBERS
 from .pipeline import (
-    Arranged, ChartOptions, Privacy, ReadTable, duration_days, arrange_read, arranged_page,
-    page_options, parse_window, read_source,
+    Arranged, ChartOptions, Privacy, ReadTable, arrange_read, arranged_page, color_warning,
+    duration_days, page_options, parse_window, read_source,
 )
 
 _COLUMN_PARTS = tuple(f.name for f in fields(ColumnMap))
@@ -138,12 +138,14 @@ class Chart:
     def style(self, *, fringe: str | None = None, era: str | None = None,
               palette: str | tuple[str, ...] | None = None,
               font: str | Sequence[str] | None = None,
-              font_size: float | str | None = None, width: float | None = None) -> "Chart":
+              font_size: float | str | None = None, width: float | None = None,
+              max_colors: int | None = None) -> "Chart":
         """How the marks look: fringe ("fade", "whisker", "hatch", "dots": the possible
         parts), era ("bce", "bc", "astronomical", "bp": year labels), palette (a name such as
         "okabe-ito", or colours), font (a family or a list of families, "A, B" or ["A", "B"],
         each character set in the first that has it), font_size (points, or "12px"), width
-        (px)."""
+        (px), max_colors (at most this many colours for the colour column: the smallest
+        values beyond share one, 'other')."""
         _check_choice(fringe, sorted(FRINGES), "fringe")
         _check_choice(era, ERAS, "era")
         if isinstance(palette, str):
@@ -151,7 +153,10 @@ class Chart:
             palette = PALETTES[palette]
         if font is not None and not isinstance(font, str):
             font = ", ".join(font)
+        if max_colors is not None and max_colors < 2:
+            raise UsageError(f"max_colors must be at least 2, not {max_colors}")
         theme = self._options.theme.with_options(fringe=fringe, era=era, width=width,
+                                                 max_colors=max_colors,
                                                  palette=palette, font_family=font)
         if font_size is not None:
             theme = theme.with_font_size(parse_font_size(str(font_size)))
@@ -253,7 +258,8 @@ class Chart:
         page = self._fitted()
         first_font = font_list(self.options.theme.font_family)[0]   # the list's first family
         return tuple(w for w in (page.warning, font_note(first_font),
-                                 *missing_glyph_notes(page.scene)) if w)
+                                 *missing_glyph_notes(page.scene),
+                                 color_warning(self.layout(), self.options)) if w)
 
     def save(self, target: str | PathLike | object, format: str | None = None
              ) -> Path | None:

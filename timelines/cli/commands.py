@@ -183,7 +183,8 @@ def _laid_out(chart: Chart, progress: Progress):
 
 def _render_options(args) -> ChartOptions:
     theme = DEFAULT_THEME.with_options(fringe=args.fringe, era=args.era, width=args.width,
-                                       palette=PALETTES[args.palette], font_family=args.font)
+                                       palette=PALETTES[args.palette], font_family=args.font,
+                                       max_colors=args.max_colors)
     if args.font_size:
         theme = theme.with_font_size(parse_font_size(args.font_size))
     title = args.title or ("The Fenwold organ builders, 1600–1720 (invented demo data)"

@@ -33,7 +33,9 @@ UNSET = {**{part: "found from the header names" for part in
          "sheet": "the first sheet", "subgroup": "none", "lane-column": "none",
          "max-lanes": "no limit", "from": "the earliest record", "to": "the latest record",
          "bands": "none", "facet": "none", "size": "--width wide, as tall as the chart",
-         "font-size": "9pt", "dpi": "150, or 96 with --size in px", "note": "none"}
+         "font-size": "9pt", "dpi": "150, or 96 with --size in px", "note": "none",
+         "max-colors": "every value its own colour", "longest": "none: open ends drawn short",
+         "longest-column": "none"}
 
 
 class _Parser(argparse.ArgumentParser):
@@ -65,6 +67,10 @@ def build_parser() -> argparse.ArgumentParser:
                       help=f"chart width in px (default {DEFAULT_THEME.width:g})")
     draw.add_argument("--palette", choices=sorted(PALETTES), default="okabe-ito",
                       help="colours for --color (default okabe-ito; tol-* are Paul Tol's)")
+    draw.add_argument("--max-colors", metavar="N", type=_count(2), default=None,
+                      help="at most N colours for --color: the smallest values beyond share "
+                           "one, 'other' (default: every value its own, repeating past the "
+                           "palette's end, with a warning)")
     _page_options(draw)
     draw.add_argument("--text", dest="text_mode", choices=TEXT_MODES, default="text",
                       help="SVG text as text (default) or as glyph outlines (paths) for print")

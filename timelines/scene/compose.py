@@ -8,6 +8,7 @@ which small multiples (`facets`) draw once per panel.
 """
 from __future__ import annotations
 
+from collections import Counter
 from dataclasses import dataclass
 from typing import Callable, Sequence
 
@@ -38,6 +39,7 @@ class ChartText:
     credit: str = ""            # a source or credit line, the last line of the page
     notes: tuple[str, ...] = ()  # the user's notes, each its own paragraph
     outside: tuple[Record, ...] = ()  # records wholly outside the --from/--to window
+    color_title: str = ""       # the column the colours stand for, heading the colour key
 
 
 def compose(placement: Placement, scale: TimeScale, theme: Theme, text: ChartText,
@@ -215,6 +217,26 @@ def slug(name: str) -> str:
 
 
 def color_key(records: list[Record], theme: Theme) -> tuple[tuple[str, str], ...]:
-    """(value, colour) for each value of the colour column, in order of first appearance."""
-    values = list(dict.fromkeys(r.color for r in records if r.color))
-    return tuple((value, theme.color_for(i)) for i, value in enumerate(values))
+    """(value, colour) for each value of the colour column, in order of first appearance;
+    with `theme.max_colors`, the smallest values beyond it share one colour as 'other'."""
+    return colors_of(records, theme)[1]
+
+
+def colors_of(records: list[Record], theme: Theme
+              ) -> tuple[Callable[[Record], str], tuple[tuple[str, str], ...]]:
+    """(a record's colour, the colour key) for `records`, in order of first appearance."""
+    counts = Counter(r.color for r in records if r.color)
+    values = list(counts)                          # a Counter keeps first-appearance order
+    limit = theme.max_colors
+    merged: list[str] = []
+    if limit is not None and len(values) > limit:
+        kept = set(sorted(values, key=lambda v: -counts[v])[:max(limit - 1, 0)])
+        merged = [value for value in values if value not in kept]
+        values = [value for value in values if value in kept]
+    key = [(value, theme.color_for(i)) for i, value in enumerate(values)]
+    by_value = dict(key)
+    if merged:
+        other = theme.color_for(len(values))
+        key.append((f"other ({len(merged)} values)", other))
+        by_value.update(dict.fromkeys(merged, other))
+    return (lambda record: by_value.get(record.color, theme.bar_color)), tuple(key)

@@ -45,20 +45,32 @@ def legend_and_notes(used: set[str], color_key, text, theme: Theme, top: float,
     items: list[Primitive] = []
     y = top + 6
     if entries or color_key:
-        legend, y = _legend(entries, color_key, theme, y, width)
+        legend, y = _legend(entries, color_key, text, theme, y, width)
         items.append(legend)
     notes, y = _notes(text, theme, y, width)
     items += notes
     return items, y
 
 
-def _legend(entries, color_key, theme: Theme, top: float, width: float):
+def _legend(entries, color_key, text, theme: Theme, top: float, width: float):
+    """The marks that occur, then the colour key under a heading naming its column, each
+    sample with its words, wrapped to `width`."""
+    # Where colour stands for a column, the marks are shown neutral: their colour means nothing.
+    mark_color = theme.neutral_color if color_key else theme.bar_color
+    samples = [(_sample(key, theme, color=mark_color), words) for key, words in entries]
+    samples += [(_color_sample(color, theme), value) for value, color in color_key]
+    heading_at = len(entries) if color_key and text.color_title else None
     children: list[Primitive] = []
     x, y = theme.margin, top
     row = theme.legend_row_height
-    samples = [(_sample(key, theme, color=theme.bar_color), words) for key, words in entries]
-    samples += [(_color_sample(color, theme), value) for value, color in color_key]
-    for draw, words in samples:
+    for index, (draw, words) in enumerate(samples):
+        if index == heading_at:
+            x, y = (theme.margin, y + row) if x > theme.margin else (x, y)
+            title = f"{text.color_title}:"
+            children.append(Text(x, y + row / 2 + theme.small_font_size * 0.36, title,
+                                 theme.small_font_size, weight="bold", fill=theme.text_color,
+                                 css_class="legend-text legend-heading"))
+            x += text_width(title, theme.small_font_size, "bold") + 10
         needed = SWATCH + 6 + text_width(words, theme.small_font_size) + 18
         if x + needed > width - theme.margin and x > theme.margin:
             x, y = theme.margin, y + row

@@ -45,10 +45,14 @@ class Theme:
     # A side with no far bound (an empty cell, `after 1780`) is drawn this long: short, so
     # that its length cannot be read as a duration.
     stub_length: float = 24.0
+    # At most this many colours for the colour column: the smallest values beyond share one
+    # ('other'). None: every value its own colour, repeating past the palette's end.
+    max_colors: int | None = None
     axis_height: float = 28.0
     legend_row_height: float = 18.0
     text_color: str = "#1a1a1a"
     muted_color: str = "#666666"
+    neutral_color: str = "#8c8c8c"   # the legend's marks when colour stands for a column
     grid_color: str = "#e3e3e3"
     grid_minor_color: str = "#f0f0f0"
     separator_color: str = "#bbbbbb"

@@ -190,7 +190,8 @@ def test_a_when_column_reads_as_spans():
     assert list(read["period_earliest"][:3]) == ["1800-01-01", "1650-01-01", "1695-01-01"]
     assert list(read["period_start_latest"][:2]) == ["1800-12-31", "1650-12-31"]
     assert list(read["period_end_earliest"][:2]) == ["1899-01-01", "1660-01-01"]
-    # c. 1700 is a moment: its window overlaps itself, no part of it is certain
+    # c. 1700 covers about the year 1700: each end is approximate, and the windows of its two
+    # ends overlap, so no part of it is certain
     assert read[["period_start_latest", "period_end_earliest"]].iloc[2:].isna().all().all()
     assert read["period_earliest"].isna().tolist() == [False, False, False, True]
 

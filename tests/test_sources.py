@@ -388,7 +388,10 @@ def test_chronology_when_column():
         "Harbour wall rebuilt", "Works", "1650-1660", "")
     assert wall.span.possible_extent == (day(1650, 1, 1), day(1660, 12, 31))
     fire = records[6].span
-    assert fire.is_point and fire.start.earliest == day(1712, 1, 1)
+    # Changed with issue 10 (item 6): a single value in a when column is covering dates, the
+    # whole year 1712 (it was read as a moment somewhere in 1712, drawn at mid-year).
+    assert not fire.is_point
+    assert fire.certain_core == (day(1712, 1, 1), day(1712, 12, 31))
     assert records[5].span is None and records[5].label == "Bell recast"
 
 

@@ -19,6 +19,7 @@ from ..errors import DateError
 from ..model import Endpoint, Span
 from .built import days as day_endpoints
 from .cells import endpoint_from_cell, span_from_cell
+from .covering import covering, without_circa
 from .settings import DEFAULT_SETTINGS, DateSettings
 
 Result = Endpoint | Span | DateError | None
@@ -52,9 +53,22 @@ def parse_column(values: Iterable[object], settings: DateSettings = DEFAULT_SETT
 
 def parse_span_column(values: Iterable[object],
                       settings: DateSettings = DEFAULT_SETTINGS) -> list[Span | DateError | None]:
-    """The span (or None, or the DateError) of each cell of a single date column."""
+    """The span (or None, or the DateError) of each cell of a single date column (a `when`
+    column): a range as written, a single value as covering dates (covering.py) unless the
+    single-value setting is `moment`."""
     values = values if isinstance(values, list) else list(values)
-    return _each_distinct_once(values, span_from_cell, settings)
+    if settings.single_value == "moment":
+        return _each_distinct_once(values, span_from_cell, settings)
+    return _each_distinct_once(values, covering_span_from_cell, settings)
+
+
+def covering_span_from_cell(value: object,
+                            settings: DateSettings = DEFAULT_SETTINGS) -> Span | None:
+    """span_from_cell with a single value read as covering its whole unit."""
+    span = span_from_cell(value, settings)
+    if span is None:
+        return None
+    return covering(span, lambda: span_from_cell(value, without_circa(settings)), settings)
 
 
 def _each_distinct_once(values: list[object], parse: Callable[[object, DateSettings], Result],

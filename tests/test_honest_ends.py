@@ -101,3 +101,40 @@ def test_open_ends_still_run_to_the_edge():
 def test_the_duration_must_be_a_time():
     with pytest.raises(UsageError, match="is a page length, not a time"):
         _chart().ends(longest="40px").records
+
+
+# --- tall charts ------------------------------------------------------------------------------
+
+def _register(rows: int, groups: int) -> list[dict]:
+    return [{"name": f"Member {i}", "craft": f"Craft {i % groups}",
+             "start": str(1600 + (i * 7) % 150), "end": str(1610 + (i * 7) % 150)}
+            for i in range(rows)]
+
+
+def _axes(chart: Chart) -> list[Group]:
+    return [g for g in walk(chart.scene().children)
+            if isinstance(g, Group) and g.css_class.startswith("axis")]
+
+
+def test_a_short_chart_has_one_axis_at_its_foot():
+    [axis] = _axes(Chart(ROWS, start="born", end="died", label="name"))
+    assert axis.css_class == "axis"
+
+
+def test_a_tall_chart_repeats_its_axis_above_and_at_group_breaks():
+    chart = Chart(_register(600, 12), group="craft", label="name")
+    axes = _axes(chart)
+    kinds = [a.css_class for a in axes]
+    assert kinds[0] == "axis axis-top" and kinds[-1] == "axis"
+    repeats = [a for a in axes if a.css_class == "axis axis-repeat"]
+    assert repeats                                 # the lanes are several pages tall
+    labels = [t.text for t in repeats[0].children]
+    assert labels == [t.text for t in axes[-1].children if t.css_class == "tick-label"]
+    ys = [a.children[0].y for a in repeats]
+    assert all(b - a > 1000 for a, b in zip(ys, ys[1:]))   # a page apart, no closer
+
+
+def test_a_chart_taller_than_viewers_show_says_what_to_do():
+    chart = Chart(_register(3000, 3), group="craft", label="name").lanes(pack="single")
+    [note] = [w for w in chart.warnings if "more than many viewers show" in w]
+    assert "--max-lanes" in note and "--facet" in note

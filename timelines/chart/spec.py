@@ -30,7 +30,7 @@ from ..render import output_format, write, write_to
 from ..scene.coverage import missing_glyph_notes
 from ..scene.encodings import FRINGES
 from ..scene.fonts import font_list
-from ..scene.page import font_note, parse_font_size, parse_size, png_dpi
+from ..scene.page import font_note, parse_font_size, parse_size, png_dpi, tall_note
 from ..scene.primitives import TEXT_MODES, Scene
 from ..scene.theme import PALETTES
 from ..calendar import ERAS
@@ -259,7 +259,8 @@ class Chart:
         first_font = font_list(self.options.theme.font_family)[0]   # the list's first family
         return tuple(w for w in (page.warning, font_note(first_font),
                                  *missing_glyph_notes(page.scene),
-                                 color_warning(self.layout(), self.options)) if w)
+                                 color_warning(self.layout(), self.options),
+                                 tall_note(page.scene)) if w)
 
     def save(self, target: str | PathLike | object, format: str | None = None
              ) -> Path | None:

@@ -1,4 +1,6 @@
-"""The time axis under the lanes and the light grid behind them.
+"""The time axis under the lanes and the light grid behind them; on a tall chart the axis
+again above the lanes, and its labels at group breaks a page apart, so a reader never scrolls
+far to find a year.
 
 Major ticks carry labels and a grid line in `theme.grid_color`; the minor ticks between them
 (`scale.ticks(minor=True)`) are shorter, and their grid lines thinner and paler, so the eye
@@ -29,6 +31,29 @@ def draw_axis(scale: TimeScale, theme: Theme, top: float, bottom: float
             axis.append(_tick_label(tick, scale, theme, bottom))
     return (Group(tuple(grid), css_class="grid"), Group(tuple(axis), css_class="axis"),
             bottom + theme.axis_height)
+
+
+def draw_top_axis(scale: TimeScale, theme: Theme, top: float) -> tuple[Group, float]:
+    """The axis again above the lanes, labels upward: (the axis, the y below it)."""
+    line_y = top + theme.axis_height - 4
+    axis: list[Primitive] = [Line(scale.x0, line_y, scale.x1, line_y, theme.muted_color, 1.0,
+                                  css_class="axis-line")]
+    for tick in axis_ticks(scale, theme):
+        length = 5.0 if tick.major else 2.5
+        axis.append(Line(scale.x(tick.day), line_y - length, scale.x(tick.day), line_y,
+                         theme.muted_color, 1.0 if tick.major else 0.75,
+                         css_class=f"tick {'major' if tick.major else 'minor'}"))
+        if tick.major and tick.label:
+            axis.append(_tick_label(tick, scale, theme, line_y - 12 - theme.small_font_size
+                                    - 2 - theme.small_font_size * 0.3))
+    return Group(tuple(axis), css_class="axis axis-top"), top + theme.axis_height
+
+
+def axis_labels_row(scale: TimeScale, theme: Theme, top: float) -> Group:
+    """The axis's labels alone, in a row at `top` between two groups of a very tall chart."""
+    labels = [_tick_label(tick, scale, theme, top - 12 + 2)
+              for tick in axis_ticks(scale, theme) if tick.major and tick.label]
+    return Group(tuple(labels), css_class="axis axis-repeat")
 
 
 def axis_ticks(scale: TimeScale, theme: Theme) -> list[Tick]:

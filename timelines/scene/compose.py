@@ -15,7 +15,7 @@ from typing import Callable, Sequence
 from ..calendar import gregorian_year_from_fixed, year_text
 from ..layout import GroupPlacement, Placement
 from ..model import Record
-from .axis import draw_axis
+from .axis import axis_labels_row, draw_axis, draw_top_axis
 from .bands import draw_bands, place_bands, strip_height
 from .bars import draw_record, drawn_spans, stub_days
 from .encodings import LaneBox
@@ -25,6 +25,12 @@ from .scale import TimeScale
 from .theme import Theme
 
 SUBGROUP_INDENT = 10.0      # px: subgroup names sit a little right of their group's header
+# Lanes taller than a screen shows at once (a laptop's browser window is 700-900 px tall;
+# common practice, no source) get the axis above them as well as below.
+TOP_AXIS_FROM = 600.0
+# And the axis labels again at the group break after each page's height (an A4 page is 1123 px
+# at 96 px an inch: CSS Values and Units Level 3, 1in = 96px; ISO 216 A4 = 297 mm).
+REPEAT_AXIS_EVERY = 1123.0
 
 
 @dataclass(frozen=True, slots=True)
@@ -68,19 +74,33 @@ def draw_plot(placement: Placement, scale: TimeScale, theme: Theme, top: float,
     back to front: bands, grid, lanes, axis."""
     placed_bands = place_bands(bands, scale, theme)
     lanes_top = top + strip_height(placed_bands, theme)
-    lanes, lanes_bottom = _draw_groups(placement, scale, theme, lanes_top, color_of, used)
+    tall = lanes_height(placement, theme) > TOP_AXIS_FROM
+    above: list[Primitive] = []
+    if tall:
+        top_axis, lanes_top = draw_top_axis(scale, theme, lanes_top)
+        above.append(top_axis)
+    lanes, lanes_bottom = _draw_groups(placement, scale, theme, lanes_top, color_of, used,
+                                       repeat_axis=tall)
     grid, axis, bottom = draw_axis(scale, theme, lanes_top, lanes_bottom)
     behind = [draw_bands(placed_bands, scale, theme, top, lanes_bottom + 4, used)
               ] if placed_bands else []
-    return [*behind, grid, *lanes, axis], bottom
+    return [*behind, grid, *above, *lanes, axis], bottom
 
 
-def _draw_groups(placement, scale, theme, top, color_of, used):
+def lanes_height(placement: Placement, theme: Theme) -> float:
+    """The height of the lanes, near enough to decide whether a chart is tall: one lane height
+    per lane of each group (at least one), and the gaps between groups."""
+    rows = sum(max(group.lanes, 1) for _, group in placement.leaves())
+    return rows * theme.lane_height + (len(placement.groups) - 1) * theme.group_gap
+
+
+def _draw_groups(placement, scale, theme, top, color_of, used, repeat_axis: bool = False):
     """Each group's lanes top to bottom, a separator line between groups. A group with
     subgroups gets a header row of its own, then its subgroups with their names at the left
-    and a lighter, dashed separator between them."""
+    and a lighter, dashed separator between them. With `repeat_axis`, the axis labels again
+    at the first group break a page's height after the last axis."""
     items: list[Primitive] = []
-    y = top
+    y = last_axis = top
     captions = _Captions(scale.x0 - theme.margin - 12, theme,
                          named=any(group.name for group in placement.groups))
     for index, group in enumerate(placement.groups):
@@ -88,6 +108,10 @@ def _draw_groups(placement, scale, theme, top, color_of, used):
             items.append(Line(theme.margin, y - theme.group_gap / 2, theme.width - theme.margin,
                               y - theme.group_gap / 2, theme.separator_color, 1.0,
                               css_class="separator"))
+        if index and repeat_axis and y - last_axis > REPEAT_AXIS_EVERY:
+            items.append(axis_labels_row(scale, theme, y))
+            y += theme.small_font_size + 10
+            last_axis = y
         block, y = _group_block(group, f"group-{index + 1}", scale, theme, y, color_of, used,
                                 captions)
         items.append(block)

@@ -97,6 +97,21 @@ def font_note(family: str) -> str | None:
             "run a little wider or narrower than the room kept for them")
 
 
+# Taller than this, a chart shows badly or not at all in many viewers: 16,384 px is a common
+# largest image or texture side (from memory, not one standard); it is 4.3 m printed at 96 px
+# an inch.
+TALLEST_VIEWABLE = 16_384
+
+
+def tall_note(scene: Scene) -> str | None:
+    """Advice when the page is taller than most viewers show."""
+    if scene.height <= TALLEST_VIEWABLE:
+        return None
+    return (f"the chart is {scene.height:,.0f} px tall ({scene.height / 96 * 0.0254:.1f} m at "
+            "96 px an inch), more than many viewers show; fewer lanes fit with --max-lanes or "
+            "--labels inside, --facet sets groups side by side, --from/--to shows a part")
+
+
 @dataclass(frozen=True, slots=True)
 class FittedPage:
     scene: Scene

@@ -8,10 +8,14 @@ HERE = Path(__file__).parent
 TABLE = HERE / "harbour-commission.csv"
 
 
+def chart() -> Chart:
+    return (Chart(TABLE, when="dates", label="series", group="kind", id="ref")
+            .titles("Tollbridge Harbour Commission: series and covering dates (invented)"))
+
+
 def make(out: Path = HERE) -> list[Path]:
-    chart = (Chart(TABLE, when="dates", label="series", group="kind", id="ref")
-             .titles("Tollbridge Harbour Commission: series and covering dates (invented)"))
-    return [chart.save(out / f"archive{suffix}") for suffix in (".svg", ".png")]
+    drawn = chart()
+    return [drawn.save(out / f"archive{suffix}") for suffix in (".svg", ".png")]
 
 
 if __name__ == "__main__":

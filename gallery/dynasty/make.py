@@ -8,10 +8,14 @@ HERE = Path(__file__).parent
 TABLE = HERE / "essar-kings.csv"
 
 
+def chart() -> Chart:
+    return (Chart(TABLE, label="ruler", group="house").style(era="bc")
+            .titles("Kings of Essar, 720–400 BC (invented)"))
+
+
 def make(out: Path = HERE) -> list[Path]:
-    chart = (Chart(TABLE, label="ruler", group="house").style(era="bc")
-             .titles("Kings of Essar, 720–400 BC (invented)"))
-    return [chart.save(out / f"dynasty{suffix}") for suffix in (".svg", ".png")]
+    drawn = chart()
+    return [drawn.save(out / f"dynasty{suffix}") for suffix in (".svg", ".png")]
 
 
 if __name__ == "__main__":

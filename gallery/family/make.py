@@ -12,10 +12,14 @@ HERE = Path(__file__).parent
 TABLE = HERE / "marrable.csv"
 
 
+def chart() -> Chart:
+    return (Chart(TABLE, group="generation").style(width=1100)   # room for long names
+            .titles("The Marrable family of Cressing, four generations (invented)"))
+
+
 def make(out: Path = HERE) -> list[Path]:
-    chart = (Chart(TABLE, group="generation").style(width=1100)   # room for long names
-             .titles("The Marrable family of Cressing, four generations (invented)"))
-    return [chart.save(out / f"family{suffix}") for suffix in (".svg", ".png")]
+    drawn = chart()
+    return [drawn.save(out / f"family{suffix}") for suffix in (".svg", ".png")]
 
 
 if __name__ == "__main__":

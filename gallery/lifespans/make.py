@@ -8,10 +8,14 @@ HERE = Path(__file__).parent
 TABLE = HERE / "bellfounders.csv"
 
 
+def chart() -> Chart:
+    return (Chart(TABLE, group="foundry")
+            .titles("Bell founders of Sallowby, 1700–1820 (invented)"))
+
+
 def make(out: Path = HERE) -> list[Path]:
-    chart = (Chart(TABLE, group="foundry")
-             .titles("Bell founders of Sallowby, 1700–1820 (invented)"))
-    return [chart.save(out / f"lifespans{suffix}") for suffix in (".svg", ".png")]
+    drawn = chart()
+    return [drawn.save(out / f"lifespans{suffix}") for suffix in (".svg", ".png")]
 
 
 if __name__ == "__main__":

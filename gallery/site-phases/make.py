@@ -8,10 +8,14 @@ HERE = Path(__file__).parent
 TABLE = HERE / "hollow-barrow.csv"
 
 
+def chart() -> Chart:
+    return (Chart(TABLE, label="phase", group="context").style(era="bp")
+            .titles("Hollow Barrow valley: site phases (invented)"))
+
+
 def make(out: Path = HERE) -> list[Path]:
-    chart = (Chart(TABLE, label="phase", group="context").style(era="bp")
-             .titles("Hollow Barrow valley: site phases (invented)"))
-    return [chart.save(out / f"site-phases{suffix}") for suffix in (".svg", ".png")]
+    drawn = chart()
+    return [drawn.save(out / f"site-phases{suffix}") for suffix in (".svg", ".png")]
 
 
 if __name__ == "__main__":

@@ -8,9 +8,10 @@ from .encodings import EndWindow, LaneBox, MarkStyle
 from .primitives import Group, Primitive, Text
 from .scale import TimeScale
 from .textsize import text_width
-from .theme import Theme
+from .theme import DEFAULT_THEME, Theme
 
-SWATCH = 34.0   # page width of a legend sample
+SWATCH = 34.0   # page width of a legend sample beside text of the default small size
+SWATCH_HEIGHT = 10.0
 # Legend entries in reading order: key used while drawing -> plain words.
 ENTRIES = (
     ("core", "certain: the span surely covers this"),
@@ -63,6 +64,8 @@ def _legend(entries, color_key, text, theme: Theme, top: float, width: float):
     children: list[Primitive] = []
     x, y = theme.margin, top
     row = theme.legend_row_height
+    scale = swatch_scale(theme)
+    swatch, gap, space = SWATCH * scale, 6 * scale, 18 * scale
     for index, (draw, words) in enumerate(samples):
         if index == heading_at:
             x, y = (theme.margin, y + row) if x > theme.margin else (x, y)
@@ -70,16 +73,22 @@ def _legend(entries, color_key, text, theme: Theme, top: float, width: float):
             children.append(Text(x, y + row / 2 + theme.small_font_size * 0.36, title,
                                  theme.small_font_size, weight="bold", fill=theme.text_color,
                                  css_class="legend-text legend-heading"))
-            x += text_width(title, theme.small_font_size, "bold") + 10
-        needed = SWATCH + 6 + text_width(words, theme.small_font_size) + 18
-        if x + needed > width - theme.margin and x > theme.margin:
+            x += text_width(title, theme.small_font_size, "bold") + gap
+        words = fit_text(words, theme.small_font_size, width - 2 * theme.margin - swatch - gap)
+        needed = swatch + gap + text_width(words, theme.small_font_size) + space
+        if x + needed - space > width - theme.margin and x > theme.margin:
             x, y = theme.margin, y + row
-        box = LaneBox(y + (row - 10) / 2, 10)
+        box = LaneBox(y + (row - SWATCH_HEIGHT * scale) / 2, SWATCH_HEIGHT * scale)
         children += draw(x, box)
-        children.append(Text(x + SWATCH + 6, box.middle + theme.small_font_size * 0.36, words,
+        children.append(Text(x + swatch + gap, box.middle + theme.small_font_size * 0.36, words,
                              theme.small_font_size, fill=theme.text_color, css_class="legend-text"))
         x += needed
     return Group(tuple(children), css_class="legend"), y + row
+
+
+def swatch_scale(theme: Theme) -> float:
+    """How much the legend's samples grow or shrink: with its text, never above full size."""
+    return min(theme.small_font_size / DEFAULT_THEME.small_font_size, 1.0)
 
 
 def _sample(key: str, theme: Theme, color: str):
@@ -88,7 +97,7 @@ def _sample(key: str, theme: Theme, color: str):
     fringe = marks.fringe_encoder(theme.fringe)   # bound and likely samples use the chart's
 
     def draw(x: float, box: LaneBox) -> list[Primitive]:
-        scale = TimeScale(0.0, 10.0, x, x + SWATCH)
+        scale = TimeScale(0.0, 10.0, x, x + SWATCH * swatch_scale(theme))
         if key == "core":
             return marks.core(0, 10, scale, box, style)
         if key.startswith("fringe:"):
@@ -122,7 +131,7 @@ def _sample(key: str, theme: Theme, color: str):
 
 
 def _band_sample(x: float, box: LaneBox, theme: Theme) -> list[Primitive]:
-    scale = TimeScale(0.0, 10.0, x, x + SWATCH)
+    scale = TimeScale(0.0, 10.0, x, x + SWATCH * swatch_scale(theme))
     tall = LaneBox(box.y - 3, box.height + 6)
     start, end = EndWindow(0, 4, "start"), EndWindow(10, 10, "end")
     return marks.band(start, end, scale, tall, theme.band_color, theme.band_opacities[0])
@@ -132,7 +141,8 @@ def _color_sample(color: str, theme: Theme):
     style = MarkStyle(color)
 
     def draw(x: float, box: LaneBox) -> list[Primitive]:
-        return marks.core(0, 10, TimeScale(0.0, 10.0, x, x + SWATCH * 0.6), box, style)
+        return marks.core(0, 10, TimeScale(0.0, 10.0, x, x + SWATCH * 0.6 * swatch_scale(theme)),
+                          box, style)
     return draw
 
 
@@ -176,12 +186,14 @@ def _names(records) -> str:
 
 
 def heading(text, theme: Theme, width: float) -> tuple[list[Primitive], float]:
-    """The title and, under it, the subtitle (wrapped); the y where the plot may begin."""
+    """The title and, under it, the subtitle, each wrapped to the page; the y where the plot
+    may begin."""
     items: list[Primitive] = []
     y = theme.margin
-    if text.title:
-        y += theme.title_size
-        items.append(Text(theme.margin, y, text.title, theme.title_size, weight="bold",
+    for number, line in enumerate(wrap(text.title, theme.title_size, width - 2 * theme.margin,
+                                       "bold")):
+        y += theme.title_size * (1.0 if number == 0 else 1.2)
+        items.append(Text(theme.margin, y, line, theme.title_size, weight="bold",
                           fill=theme.text_color, css_class="title"))
     size = theme.font_size * 1.1
     for line in wrap(text.subtitle, size, width - 2 * theme.margin):
@@ -191,17 +203,19 @@ def heading(text, theme: Theme, width: float) -> tuple[list[Primitive], float]:
     return items, y + (14 if items else 0)
 
 
-def wrap(text: str, size: float, width: float) -> list[str]:
-    """Greedy word wrap by measured width."""
+def wrap(text: str, size: float, width: float, weight: str = "normal") -> list[str]:
+    """Greedy word wrap by measured width; a word wider than a line alone is cut short with
+    an ellipsis, so no line is wider than `width`."""
     lines, current = [], ""
     for word in text.split():
         candidate = f"{current} {word}" if current else word
-        if current and text_width(candidate, size) > width:
+        if current and text_width(candidate, size, weight) > width:
             lines.append(current)
             current = word
         else:
             current = candidate
-    return lines + ([current] if current else [])
+    lines += [current] if current else []
+    return [fit_text(line, size, width, weight) for line in lines]
 
 
 def fit_text(text: str, size: float, width: float, weight: str = "normal") -> str:

@@ -9,7 +9,8 @@ from timelines.dates.quick import QUICK, quick_span
 from timelines.dates.ranges import general_span
 
 _SETTINGS = [DateSettings(), DateSettings(calendar="julian"), DateSettings(calendar="gregorian"),
-             DateSettings(before_after="inclusive", circa_years_for_year=2)]
+             DateSettings(before_after="inclusive", circa_years_for_year=2),
+             DateSettings(hundreds="decade"), DateSettings(reform="1752-09-14")]
 _MONTHS = ["April", "Apr", "may", "SEPT", "7ber", "Xber", "February", "feb"]
 _YEARS = st.integers(min_value=0, max_value=9999).map(str) | st.sampled_from(
     ["1582", "1583", "1700", "1600", "0", "04", "44"])

@@ -52,7 +52,9 @@ TEXT_DATES = [
     ("1650s", "1650-01-01", "1659-12-31", DECADE, set()),       # DESIGN §3: 1650s = 1650..1659
     ("1650's", "1650-01-01", "1659-12-31", DECADE, set()),      # common practice, no source
     ("1650\u2019s", "1650-01-01", "1659-12-31", DECADE, set()), # common practice, no source: typographic apostrophe
-    ("1600s", "1600-01-01", "1699-12-31", CENTURY, set()),      # common practice, no source: "the 1600s" is a century
+    # common practice, no source: "the 1600s" is a century to most, a decade to some; issue 10
+    # made the reading a setting (hundreds, default century), so it is convention_dependent.
+    ("1600s", "1600-01-01", "1699-12-31", CENTURY, {C}),
     ("17th century", "1600-01-01", "1699-12-31", CENTURY, {C}), # DESIGN §3 common usage (settings default)
     ("17th c.", "1600-01-01", "1699-12-31", CENTURY, {C}),      # common practice, no source
     ("17th c", "1600-01-01", "1699-12-31", CENTURY, {C}),       # common practice, no source

@@ -2,7 +2,7 @@
 
 The Quillon Vale cloth guild never existed: every name, ward and date is made up by a seeded
 random generator, so the same arguments always write the same file. Dates are written the ways
-a register's transcriber writes them (`c. 1640`, `1650s`, `before 1690`, `164X`, `1702/1704`,
+a register's transcriber writes them (`c. 1640`, `1650s` or `1700–1709`, `before 1690`, `164X`, `1702/1704`,
 an empty cell when the end was not recorded, `..` when the membership ran on past the register).
 A few rows are wrong on purpose (a month 13, an end before its start) so that the reports show.
 
@@ -47,7 +47,7 @@ def written_year(rng: random.Random, year: int, side: str) -> str:
     if roll < 0.70:
         return f"c. {year}"
     if roll < 0.76:
-        return f"{year // 10 * 10}s"
+        return written_decade(year // 10 * 10)
     if roll < 0.80:
         return f"{year}?"
     if roll < 0.83:
@@ -58,6 +58,12 @@ def written_year(rng: random.Random, year: int, side: str) -> str:
         return f"before {year}" if side == "end" else f"after {year}"
     month, day = rng.randint(1, 12), rng.randint(1, 28)
     return f"{year:04d}-{month:02d}-{day:02d}"
+
+
+def written_decade(first: int) -> str:
+    """A decade as nobody can misread it: `1650s`, but `1600–1609` for the decade that begins
+    a century, since `1600s` is the whole century to most readers."""
+    return f"{first}–{first + 9}" if first % 100 == 0 else f"{first}s"
 
 
 def member(rng: random.Random, number: int) -> tuple[str, ...]:

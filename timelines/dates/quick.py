@@ -38,6 +38,7 @@ from .oldstyle import LAST_DUAL_YEAR, names_next_year, plain_year
 from .ordinals import ordinal_suffix
 from .parts import part_from_words, part_of
 from .settings import DateSettings
+from .text import hundreds
 from .windows import approximate, day_fixed, month_bounds, year_bounds, years
 
 # Any word a month's name could be (the readers look it up, and leave the text to the general
@@ -190,7 +191,7 @@ def _month_year(text: str, settings: DateSettings) -> Span | None:
 def _decade(text: str, settings: DateSettings) -> Span:
     number = int(text[:-1])
     if number % 100 == 0:
-        return Span.point(years(number, number + 99, settings.reckoning, Precision.CENTURY))
+        return Span.point(hundreds(number, None, settings.reckoning, settings))
     return Span.point(years(number, number + 9, settings.reckoning, Precision.DECADE))
 
 

@@ -12,8 +12,10 @@ calendar the text names. Any letter case. Each form may carry an era (`44 BC`, `
 - a dual year `1701/02`, `1699/1700` (Old Style/New Style, see oldstyle.py).
 - a decade `1650s`, `1650's`: 1650..1659. BC decades count down: `1650s BC` is 1659..1650 BC.
   Three or four digits: `'60s` is refused as ambiguous.
-- hundreds `1600s`: read as the century 1600..1699 (the usual meaning of "the 1600s"), not as
-  the decade 1600..1609. `1600s BC` is 1699..1600 BC.
+- hundreds `1600s`, an s on a century year: some writers mean the century 1600..1699, others
+  the decade 1600..1609. The hundreds setting decides (century by default, the usual meaning
+  of "the 1600s" in prose), and the endpoint is `convention_dependent`. `1600s BC` is
+  1699..1600 BC (or 1609..1600 BC).
 Centuries and millennia are in centuries.py, months and days in months.py.
 """
 from __future__ import annotations
@@ -21,7 +23,8 @@ from __future__ import annotations
 import re
 
 from ..calendar import JULIAN, astronomical_year
-from ..model import Endpoint, Precision
+from ..model import Endpoint, Precision, Qualifier
+from . import trace
 from .grammar import FLAGS, Form
 from .oldstyle import LAST_DUAL_YEAR, dual_year, dual_year_endpoint, year_window
 from .reasons import Unreadable
@@ -84,10 +87,32 @@ def read_decade(match: re.Match[str], era: str | None, marker: str | None,
     number = int(match["digits"])
     calendar = marker or settings.reckoning
     if number % 100 == 0:
-        first, last = counted_years(number, number + 99, era)
-        return years(first, last, calendar, Precision.CENTURY)
+        return hundreds(number, era, calendar, settings)
     first, last = counted_years(number, number + 9, era)
     return years(first, last, calendar, Precision.DECADE)
+
+
+def hundreds(number: int, era: str | None, calendar: str, settings: DateSettings) -> Endpoint:
+    """`1600s`: the century 1600..1699 or the decade 1600..1609, as the hundreds setting says."""
+    century = settings.hundreds == "century"
+    first, last = counted_years(number, number + (99 if century else 9), era)
+    endpoint = years(first, last, calendar, Precision.CENTURY if century else Precision.DECADE,
+                     _CONVENTION)
+    if trace.on:
+        trace.note(f"'{number}s', an s on a century year: read as the "
+                   f"{settings.hundreds} (setting hundreds = {settings.hundreds}): "
+                   f"{trace.bounds(endpoint)}")
+    return endpoint
+
+
+_CONVENTION = (Qualifier.CONVENTION_DEPENDENT,)
+# Where a text writes an s on a century year (1600s, 1700's): sources name such cells.
+HUNDREDS_WRITTEN = re.compile(r"(?<![0-9])[1-9][0-9]?00'?s(?![a-z])", re.IGNORECASE)
+
+
+def writes_hundreds(text: str) -> bool:
+    """Whether a text holds an s on a century year, `1600s`, read by the hundreds setting."""
+    return "s" in text.lower() and HUNDREDS_WRITTEN.search(text) is not None
 
 
 def read_short_decade(match: re.Match[str], era: str | None, marker: str | None,

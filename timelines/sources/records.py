@@ -15,6 +15,7 @@ from ..dates.built import checked_span
 from ..dates.settings import DEFAULT_SETTINGS, DateSettings
 from ..errors import UsageError
 from ..model import Endpoint, Provenance, Qualifier, Record, Span, collection_paused, many
+from .conventions import hundreds_notes
 from .columns import ColumnMap, detect_columns, existing_column, column_parts
 from .guarded import internal_error, parsed_column, unknown_value_notes
 from .problems import Problem
@@ -111,7 +112,9 @@ def _load(table: Table, layout: _Layout, settings: DateSettings,
     texts = _Texts(cells, layout)
     records = _records(table.source, layout, texts, numbers, outcomes)
     problems = _problems(table.source, layout, texts, numbers, outcomes)
-    notes = [*table.notes, *unknown_value_notes(table, cells, numbers, layout.date_places)]
+    notes = [*table.notes, *unknown_value_notes(table, cells, numbers, layout.date_places),
+             *hundreds_notes(table.source, layout.header, cells, numbers, layout.date_places,
+                             settings)]
     return LoadResult(tuple(records), (*notes, *problems), len(offsets))
 
 

@@ -16,10 +16,11 @@ from typing import Callable, Iterable, Sequence
 
 from ..calendar import fixed_from_gregorian
 from ..errors import DateError
-from ..model import Endpoint, Span
+from ..model import Endpoint, Qualifier, Span
 from .built import days as day_endpoints
 from .cells import endpoint_from_cell, span_from_cell
 from .covering import covering, without_circa
+from .ranges import RUNNING_ON_WORDS, running_on
 from .settings import DEFAULT_SETTINGS, DateSettings
 
 Result = Endpoint | Span | DateError | None
@@ -35,7 +36,9 @@ def parse_column(values: Iterable[object], settings: DateSettings = DEFAULT_SETT
     """The endpoint (or None, or the DateError) of each cell of a start or end column.
 
     `open_cell`: what a cell holding only ISO 8601-2's open-end sign `..` gives. Only the
-    column says which side is open, so the caller decides; without it `..` is not a date."""
+    column says which side is open, so the caller decides; without it `..` is not a date.
+    With an open end, a cell holding only `present`, `now`, `today` or `ongoing` runs on
+    (ranges.running_on); with an open start such a cell is refused."""
     values = values if isinstance(values, list) else list(values)
     days = _iso_days(values)
     if days is not None:
@@ -44,11 +47,24 @@ def parse_column(values: Iterable[object], settings: DateSettings = DEFAULT_SETT
         return _each_distinct_once(values, endpoint_from_cell, settings)
 
     def endpoint_or_open(value: object, settings: DateSettings) -> Endpoint | None:
-        if type(value) is str and value.strip() == OPEN_CELL:
-            return open_cell
+        if type(value) is str:
+            if value.strip() == OPEN_CELL:
+                return open_cell
+            if value.strip().lower() in RUNNING_ON_WORDS:
+                return _running_on_cell(value, open_cell, settings)
         return endpoint_from_cell(value, settings)
 
     return _each_distinct_once(values, endpoint_or_open, settings)
+
+
+def _running_on_cell(value: str, open_cell: Endpoint, settings: DateSettings) -> Endpoint:
+    """`present` alone in an end cell: the span runs on (ranges.running_on); in a start cell it
+    is refused, since what is still going on cannot begin at the present."""
+    if open_cell.has(Qualifier.OPEN_END):
+        return running_on(value.strip(), settings)
+    raise DateError(value, f"{value.strip()!r} can end a span (it runs on to the present), "
+                           "not start one", hint="leave the start empty when it is not known, "
+                           "or write .. when the span runs on into the past")
 
 
 def parse_span_column(values: Iterable[object],

@@ -13,7 +13,8 @@ Separators, tried in this order:
   is a sign (`-0500 - -0400`). Two hyphens that could each separate are refused as ambiguous.
 
 A side may be `?` (or `unknown`): the side is not known; an end may be `present`, `now`,
-`today`, `ongoing` or `date`: the span runs on (open). The two sides lend each other what
+`today`, `ongoing` or `date`: the span runs on (open), at least until the present setting's
+day (today unless set), which is the end window's earliest day. The two sides lend each other what
 they share (completion.py: `1650–60`, `March–May 1650`, `500–400 BC`, `17th–18th century`).
 """
 from __future__ import annotations
@@ -21,13 +22,14 @@ from __future__ import annotations
 import re
 
 from ..errors import DateError
-from ..model import Endpoint, Qualifier, Span
+from ..calendar import iso_from_fixed
+from ..model import Endpoint, Precision, Qualifier, Span
 from . import trace
 from .completion import completed
 from .intervals import iso_interval
 from .quick import quick_span
 from .reasons import DATE_HINT, RANGE_HINT, date_error, locate
-from .settings import DEFAULT_SETTINGS, DateSettings
+from .settings import DEFAULT_SETTINGS, DateSettings, present_day
 from .frame import read_framed
 from .single import not_a_date, prepared, read_single
 from .windows import collapsed, ordered_span
@@ -42,7 +44,9 @@ _COMPOUND = re.compile(r"[\u2012-\u2015/\[{]|\s(?:to|until|till|or)\s|^(?:bet|bt
                        re.IGNORECASE)
 
 _UNKNOWN_WORDS = ("?", "??", "unknown")
-_RUNNING_ON_WORDS = ("present", "now", "today", "ongoing", "date")
+# An end that has not come: the span runs on past the present setting's day (`1985–present`).
+RUNNING_ON_WORDS = ("present", "now", "today", "ongoing")
+_RUNNING_ON_IN_A_RANGE = (*RUNNING_ON_WORDS, "date")   # 1985–date: "to date"
 
 
 def parse_span(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Span:
@@ -152,6 +156,17 @@ def _text_range(parts: tuple[str, str], text: str, settings: DateSettings) -> Sp
     return ordered_span(start, end, text, hint, locate(text, written_end) if written_end else None)
 
 
+def running_on(word: str, settings: DateSettings) -> Endpoint:
+    """`present`, `now`, `today`, `ongoing` as an end: the span runs on (open end), known to
+    last at least until the present setting's day, which is the window's earliest day."""
+    day = present_day(settings)
+    endpoint = Endpoint(day, None, Precision.DAY, frozenset({Qualifier.OPEN_END}))
+    if trace.on:
+        trace.note(f"{word!r}: the span runs on, at least until {iso_from_fixed(day)} "
+                   f"(setting present = {settings.present}): {trace.bounds(endpoint)}")
+    return endpoint
+
+
 def _reversed_hint(start_text: str, end_text: str) -> str:
     if re.search(r"\b(?:BP|ka|kya|Ma|mya|Ga|ago)\b", end_text, re.IGNORECASE):
         return "ages count back from the present: write the older first (66–56 Ma)"
@@ -165,8 +180,8 @@ def _range_side(part: str, side: str, text: str, settings: DateSettings) -> Endp
     word = part.lower()
     if word in _UNKNOWN_WORDS:
         return Endpoint.open(Qualifier.UNKNOWN_START if side == "start" else Qualifier.UNKNOWN_END)
-    if side == "end" and word in _RUNNING_ON_WORDS:
-        return Endpoint.open(Qualifier.OPEN_END)
+    if side == "end" and word in _RUNNING_ON_IN_A_RANGE:
+        return running_on(part, settings)
     try:
         endpoint = read_single(part, settings)
     except DateError as error:

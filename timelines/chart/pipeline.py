@@ -32,7 +32,9 @@ from ..render import output_format, writable, write
 from ..scene.bands import on_axis
 from ..scene.compose import ChartText, colors_of, compose, title_height
 from ..scene.facets import Panel, compose_facets, panel_width
-from ..scene.measure import LABEL_CLEARANCE, chart_scale, days_per_px, drawn_measure, label_width
+from ..scene.measure import (
+    LABEL_CLEARANCE, chart_scale, days_per_px, drawn_measure, key_width, label_width,
+)
 from ..scene.page import FittedPage, PageSize, fit_height, font_note
 from ..scene.primitives import Scene
 from ..scene.scale import TimeScale
@@ -423,7 +425,8 @@ def lay_out(records: list[Record], scale: TimeScale, theme: Theme,
                      group_key=_GROUP, gap=gap.days(per_px),
                      label_pad=theme.label_pad * per_px,
                      label_clearance=LABEL_CLEARANCE * theme.label_pad * per_px,
-                     labels=labels, rules=rules, tree=tree)
+                     labels=labels, rules=rules, tree=tree,
+                     key_width=key_width(len(records), scale, theme))
     except UnknownGroup as error:
         raise UsageError(str(error), hint=did_you_mean(error.name, error.known)) from error
 

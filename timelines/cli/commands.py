@@ -234,16 +234,22 @@ def _print_run(arranged, args, era: str) -> None:
         _say(f"note: bands not drawn, outside the time shown or undated: {names}",
               file=sys.stderr)
     _say(arranged.summary(args.max_lanes), file=sys.stderr)
-    _print_hidden_labels(arranged.placements)
+    _print_hidden_labels(arranged.placements, getattr(args, "output", None))
 
 
-def _print_hidden_labels(placements) -> None:
+def _print_hidden_labels(placements, output: str | None) -> None:
+    """How many labels are not on the chart: in an SVG they stay in the tooltips; PNG and PDF
+    have none, so there they are simply not shown (labels shown by number are shown)."""
     hidden = sum(s.labels_left_out for placement in placements
                  for s in lane_report.group_summaries(placement) if s.densest is not None)
-    if hidden:
-        labels = "1 label did not fit, is" if hidden == 1 else f"{hidden} labels did not fit, are"
-        print(f"note: {labels} kept in the tooltips only ('timelines lanes' counts them by "
-              "group; --width gives more room)", file=sys.stderr)
+    if not hidden:
+        return
+    labels = "1 label did not fit, is" if hidden == 1 else f"{hidden} labels did not fit, are"
+    where = ("not shown (a PNG or PDF has no tooltips)"
+             if output and Path(output).suffix.lower() in (".png", ".pdf")
+             else "kept in the tooltips only")
+    print(f"note: {labels} {where} ('timelines lanes' counts them by group; --width gives "
+          "more room)", file=sys.stderr)
 
 
 def run_lanes(args, parser) -> int:

@@ -8,6 +8,7 @@ functions of one span.
 """
 from __future__ import annotations
 
+import itertools
 import math
 from collections.abc import Callable, Iterable, Sequence
 from dataclasses import dataclass
@@ -42,12 +43,14 @@ class BoxMeasure:
     once, then each group's boxes from them."""
 
     __slots__ = ("domain", "label_width", "label_pad", "clearance", "mode", "widths",
-                 "measured", "rows")
+                 "measured", "rows", "key_width", "keys")
 
     def __init__(self, domain: tuple[float, float], measure_spans: SpanMeasure,
                  label_width: Callable[[str], float], label_pad: float, clearance: float,
-                 mode: str, records: Iterable[Record]) -> None:
+                 mode: str, records: Iterable[Record], key_width: float | None = None) -> None:
         self.domain, self.label_pad, self.clearance, self.mode = domain, label_pad, clearance, mode
+        self.key_width = key_width
+        self.keys = itertools.count(1)      # the key numbers of labels shown by number
         self.label_width = label_width
         self.widths: dict[str, float] = {}
         # Records of one table share Span objects for equal cells: id names them (the
@@ -66,7 +69,7 @@ class BoxMeasure:
         distinct_labels = dict.fromkeys(labels)
         widths = np.array([self._width(label) for label in distinct_labels], dtype=float)
         found = label_boxes(labels, bars, widths[_codes(labels, distinct_labels)], self.domain,
-                            self.label_pad, rooms, self.clearance, self.mode)
+                            self.label_pad, rooms, self.clearance, self.mode, self.key_width)
         return Boxes(found.start, found.end, bars[:, 0], bars[:, 1], found.side)
 
     def _width(self, label: str) -> float:

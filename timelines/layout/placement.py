@@ -93,7 +93,9 @@ class PlacedRecord:
     box_end: float
     bar_start: float
     bar_end: float
-    label_side: str   # "inside", "right", "left" or "none" (left out; keep it in the tooltip)
+    label_side: str   # "inside", "right", "left", "key right"/"key left" (a number spelled out
+    #                   under the chart) or "none" (left out; kept in the tooltip)
+    key: int = 0      # with a key side: its number, 1, 2, ... in drawing order
 
 
 @dataclass(frozen=True, slots=True)
@@ -149,6 +151,12 @@ class Placement:
         for group in self.groups:
             yield from group.leaves()
 
+    @property
+    def keyed(self) -> tuple[PlacedRecord, ...]:
+        """The records whose labels are shown by key number, in number order."""
+        keyed = [placed for _, group in self.leaves() for placed in group.records if placed.key]
+        return tuple(sorted(keyed, key=attrgetter("key")))
+
 
 @dataclass(frozen=True, slots=True)
 class GroupNode:
@@ -200,8 +208,8 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
           measure_spans: SpanMeasure, label_width: Callable[[str], float],
           group_key: GroupKey | None = None, gap: float = 0.0, label_pad: float = 0.0,
           label_clearance: float = 0.0, labels: str = "beside",
-          rules: LaneRules = LaneRules(), tree: tuple[GroupNode, ...] | None = None
-          ) -> Placement:
+          rules: LaneRules = LaneRules(), tree: tuple[GroupNode, ...] | None = None,
+          key_width: float | None = None) -> Placement:
     """Group dated records, place each label, pack each group's boxes into lanes.
 
     `measure_spans` gives, for a list of spans (each distinct span object once),
@@ -214,7 +222,8 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
     of a label beside its bar; `labels` the label mode ("beside",
     "inside" or "none", see `labels`); `gap` the least distance in days between boxes in one
     lane; `tree` the dated records' groups as `group_tree(records, group_key, rules)` made
-    them, when the caller has them already."""
+    them, when the caller has them already; `key_width` the width in days of a key number
+    put beside a bar whose label finds no room (None: such labels are left out)."""
     low, high = domain
     if not high > low:
         raise ValueError(f"domain end {high} must be after its start {low}")
@@ -231,7 +240,7 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
     notes: list[LayoutNote] = []
     with collection_paused():
         measure = BoxMeasure((low, high), measure_spans, label_width, label_pad, label_clearance,
-                           labels, _tree_records(tree))
+                             labels, _tree_records(tree), key_width)
         groups = tuple(_place_node(node, (), measure, gap, rules, notes) for node in tree)
     return Placement(groups, undated, (low, high), tuple(notes), gap)
 
@@ -256,7 +265,7 @@ def _place_node(node: GroupNode, path: tuple[str, ...], measure: BoxMeasure, gap
     pins = _pins(records, boxes, order, gap, rules, path, notes)
     lanes = _lanes(boxes, order, pins, gap, rules)
     kept = [index for index, lane in enumerate(lanes) if lane != LEFT_OUT]
-    placed = _placed(records, boxes, lanes, kept)
+    placed = _placed(records, boxes, lanes, kept, measure)
     where = f" in {_path_text(path)}" if any(path) else ""
     left_out = []
     for index, lane in enumerate(lanes):
@@ -270,17 +279,19 @@ def _place_node(node: GroupNode, path: tuple[str, ...], measure: BoxMeasure, gap
 
 
 def _placed(records: tuple[Record, ...], boxes: Boxes, lanes: list[int],
-            kept: list[int]) -> list[PlacedRecord]:
-    """The PlacedRecords of the kept records, made column by column (a group may be large)."""
+            kept: list[int], measure: BoxMeasure) -> list[PlacedRecord]:
+    """The PlacedRecords of the kept records, made column by column (a group may be large);
+    a label shown by key number gets the next number of the placement, in drawing order."""
     def column(values) -> list:
         values = values.tolist() if isinstance(values, np.ndarray) else values
         return values if len(kept) == len(records) else [values[index] for index in kept]
 
-    sides = [LABEL_SIDES[side] for side in boxes.side.tolist()]
+    sides = column([LABEL_SIDES[side] for side in boxes.side.tolist()])
+    keys = [next(measure.keys) if side.startswith("key") else 0 for side in sides]
     return many(PlacedRecord, len(kept), record=column(records), lane=column(lanes),
                 box_start=column(boxes.box_start), box_end=column(boxes.box_end),
                 bar_start=column(boxes.bar_start), bar_end=column(boxes.bar_end),
-                label_side=column(sides))
+                label_side=sides, key=keys)
 
 
 def _path_text(path: tuple[str, ...]) -> str:

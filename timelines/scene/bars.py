@@ -269,6 +269,14 @@ def _label(placed: PlacedRecord, geometry: DrawnSpan, scale, theme, box, color) 
     if placed.label_side == "right":
         return [Text(scale.x(placed.bar_end) + theme.label_pad, baseline, label, theme.font_size,
                      fill=theme.text_color, css_class="label")]
+    if placed.label_side.startswith("key"):
+        # no room for the label: its number, spelled out in the key under the chart
+        right = placed.label_side == "key right"
+        x = (scale.x(placed.bar_end) + theme.label_pad if right
+             else scale.x(placed.bar_start) - theme.label_pad)
+        return [Text(x, box.middle + theme.small_font_size * 0.36, str(placed.key),
+                     theme.small_font_size, weight="bold", anchor="start" if right else "end",
+                     fill=theme.text_color, css_class="label key")]
     return [Text(scale.x(placed.bar_start) - theme.label_pad, baseline, label, theme.font_size,
                  anchor="end", fill=theme.text_color, css_class="label")]
 

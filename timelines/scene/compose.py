@@ -9,11 +9,11 @@ which small multiples (`facets`) draw once per panel.
 from __future__ import annotations
 
 from collections import Counter
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from typing import Callable, Sequence
 
 from ..calendar import gregorian_year_from_fixed, year_text
-from ..layout import GroupPlacement, Placement
+from ..layout import GroupPlacement, PlacedRecord, Placement
 from ..model import Record
 from .axis import axis_labels_row, draw_axis, draw_top_axis
 from .bands import draw_bands, place_bands, strip_height
@@ -46,6 +46,8 @@ class ChartText:
     notes: tuple[str, ...] = ()  # the user's notes, each its own paragraph
     outside: tuple[Record, ...] = ()  # records wholly outside the --from/--to window
     color_title: str = ""       # the column the colours stand for, heading the colour key
+    # Labels shown by key number: (panel name or "", those records in number order) each.
+    keyed: tuple[tuple[str, tuple[PlacedRecord, ...]], ...] = ()
 
 
 def compose(placement: Placement, scale: TimeScale, theme: Theme, text: ChartText,
@@ -55,8 +57,9 @@ def compose(placement: Placement, scale: TimeScale, theme: Theme, text: ChartTex
     header, header_bottom = heading(text, theme, theme.width)
     top = plot_top if plot_top is not None else header_bottom
     plot, plot_bottom = draw_plot(placement, scale, theme, top, color_of, used, bands)
-    legend, bottom = legend_and_notes(used, color_key, text, theme, plot_bottom,
-                                      width=theme.width)
+    keyed = (("", placement.keyed),) if placement.keyed else ()
+    legend, bottom = legend_and_notes(used, color_key, replace(text, keyed=keyed), theme,
+                                      plot_bottom, width=theme.width)
     return Scene(theme.width, bottom + theme.margin, tuple(header + plot + legend),
                  title=text.title or "Timeline", desc=describe(placement, scale, theme, text),
                  background=theme.background, font_family=theme.font_family)

@@ -65,8 +65,10 @@ def compose_facets(panels: Sequence[Panel], scale: TimeScale, theme: Theme, text
                  for i, panel in enumerate(row)]
         grid += [shifted(group, i * panel_theme.width, y) for i, (group, _) in enumerate(drawn)]
         y += max(height for _, height in drawn) + PANEL_GAP
-    legend, bottom = legend_and_notes(used, color_key, text, theme, y - PANEL_GAP,
-                                      width=theme.width)
+    keyed = tuple((panel.name or "(none)", panel.placement.keyed) for panel in panels
+                  if panel.placement.keyed)
+    legend, bottom = legend_and_notes(used, color_key, replace(text, keyed=keyed), theme,
+                                      y - PANEL_GAP, width=theme.width)
     return Scene(theme.width, bottom + theme.margin, tuple(header + grid + legend),
                  title=text.title or "Timelines", desc=describe_facets(panels, scale, theme,
                                                                        text, facet),

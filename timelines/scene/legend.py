@@ -172,6 +172,10 @@ def _report_notes(text) -> list[str]:
         rows = "row" if text.not_drawn == 1 else "rows"
         notes.append(f"{text.not_drawn} {rows} with unreadable or contradictory dates not "
                      "drawn; 'timelines check' lists them.")
+    for panel, placed in text.keyed:
+        listed = "; ".join(f"{p.key} {p.record.label}" for p in placed)
+        notes.append(f"{panel}: labels by number: {listed}." if panel
+                     else f"Labels by number: {listed}.")
     if text.outside:
         shown = text.outside[:OUTSIDE_LISTED]
         more = len(text.outside) - len(shown)

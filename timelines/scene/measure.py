@@ -42,6 +42,13 @@ def label_width(scale: TimeScale, theme: Theme) -> Callable[[str], float]:
                           * per_px)
 
 
+def key_width(count: int, scale: TimeScale, theme: Theme) -> float:
+    """The room in days of a key number (as many digits as `count` has) beside a bar."""
+    digits = "8" * len(str(max(count, 1)))
+    return (text_width(digits, theme.small_font_size, "bold") * RENDERED_WIDTH_ALLOWANCE
+            * days_per_px(scale))
+
+
 def drawn_measure(scale: TimeScale, theme: Theme):
     """A `measure_spans` for place(): each span's drawn extent, signs beside it included, and
     the room for a label on it (its solid core, where the label's contrast is known), in

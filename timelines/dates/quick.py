@@ -158,9 +158,10 @@ def _month_day_year(text: str, settings: DateSettings) -> Span | None:
 def _day(year: int, month: int, day: int, settings: DateSettings) -> Span | None:
     if not 1 <= day <= 28 or not 1 <= month <= 12 or year == 1582 and month == 10:
         return None   # the general reader says why a day does not exist
-    if settings.reckoning not in _PLAIN_CALENDARS:
+    calendar = settings.reckoning
+    if calendar not in _PLAIN_CALENDARS:
         return None   # another reform day: its skipped days are the general reader's
-    return day_point(_day_number(year, month, day, settings.reckoning))
+    return day_point(_day_number(year, month, day, calendar))
 
 
 def _day_number(year: int, month: int, day: int, calendar: str) -> int:

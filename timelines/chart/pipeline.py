@@ -35,6 +35,7 @@ from ..scene.facets import Panel, compose_facets, panel_width
 from ..scene.measure import (
     LABEL_CLEARANCE, chart_scale, days_per_px, drawn_measure, key_width, label_width,
 )
+from ..scene.fonts import font_list
 from ..scene.page import FittedPage, PageSize, fit_height, font_note
 from ..scene.primitives import Scene
 from ..scene.scale import TimeScale
@@ -153,7 +154,8 @@ def render(source: str | Path, output: str | Path, options: ChartOptions = Chart
         return RunResult(arranged.loaded, arranged.report, None, None, arranged)
     page = arranged_page(arranged, options)                 # scene, fitted to the page
     write(page.scene, output, dpi=options.dpi, text=options.text)  # draw
-    warnings = tuple(w for w in (page.warning, font_note(options.theme.font_family)) if w)
+    first_font = font_list(options.theme.font_family)[0]     # the list's first family
+    warnings = tuple(w for w in (page.warning, font_note(first_font)) if w)
     return RunResult(arranged.loaded, arranged.report, page.scene, output, arranged, warnings)
 
 

@@ -38,8 +38,8 @@ def days_per_px(scale: TimeScale) -> float:
 def label_width(scale: TimeScale, theme: Theme) -> Callable[[str], float]:
     """A label's width in days, as the renderers set it."""
     per_px = days_per_px(scale)
-    return lambda label: (text_width(label, theme.font_size) * RENDERED_WIDTH_ALLOWANCE
-                          * per_px)
+    return lambda label: (text_width(label, theme.font_size, families=theme.font_family)
+                          * RENDERED_WIDTH_ALLOWANCE * per_px)
 
 
 def key_width(count: int, scale: TimeScale, theme: Theme) -> float:
@@ -115,10 +115,12 @@ def group_column_width(tree: Iterable[GroupNode], theme: Theme) -> float:
     widths = [0.0]
     for node in tree:
         if node.subgroups:
-            widths += [SUBGROUP_INDENT + text_width(_caption(sub.name), theme.group_label_size)
+            widths += [SUBGROUP_INDENT + text_width(_caption(sub.name), theme.group_label_size,
+                                                    families=theme.font_family)
                        for sub in node.subgroups]
         else:
-            widths.append(text_width(_caption(node.name), theme.group_label_size, "bold"))
+            widths.append(text_width(_caption(node.name), theme.group_label_size, "bold",
+                                     families=theme.font_family))
     return min(max(widths) + 12, theme.width * 0.3)
 
 

@@ -76,6 +76,7 @@ def test_an_unexpected_failure_is_that_lines_problem(capsys, monkeypatch):
 def test_a_long_stream_gives_one_line_per_line(tmp_path):
     lines = [f"{1000 + n % 900}" if n % 7 else f"c. {1500 + n % 300}s?" for n in range(50_000)]
     lines[123] = "\x00\x1b[31m"                           # controls in the middle
+    lines[124] = "c. 1650\u2028\x85"                      # line breaks to some readers
     code, out = _parse_process(("\n".join(lines) + "\n").encode(), "--json")
     assert len(out) == len(lines)
     assert [json.loads(line)["input"] for line in out[120:125]] == lines[120:125]
@@ -283,3 +284,59 @@ def test_date_numbers_serials_reads_serials(tmp_path, capsys):
 
     boxes = {row["row"]: row for row in json.loads(out)}
     assert boxes[4]["box_start"] <= dt.date(2008, 1, 1).toordinal()
+
+
+# --- small things a trial found (issue 10, item 11) -------------------------------------------
+
+def test_a_title_above_the_header_is_found_and_named(tmp_path, capsys):
+    from openpyxl import Workbook
+
+    book = Workbook()
+    sheet = book.active
+    for row in (["Register of the Pellory household, copied 1802"], [],
+                ["name", "born", "died"], ["Aldric", "c. 1650", 1702]):
+        sheet.append(row)
+    book.save(tmp_path / "titled.xlsx")
+    code, _, err = run(capsys, "check", str(tmp_path / "titled.xlsx"))
+    assert code == 2 and "hint: if the column names are in row 3, give --header-row 3" in err
+    code, out, _ = run(capsys, "check", str(tmp_path / "titled.xlsx"), "--header-row", "3")
+    assert code == 0 and "1 row read: 1 drawn" in out
+
+
+def test_rows_below_a_header_row_keep_their_spreadsheet_numbers(tmp_path, capsys):
+    path = tmp_path / "t.csv"
+    path.write_text("A note on provenance\n\nlabel,start,end\na,1650,1660\nb,1985-13-01,\n",
+                    encoding="utf-8")
+    code, out, _ = run(capsys, "check", str(path), "--header-row", "3")
+    assert "t.csv:5:start: cannot read '1985-13-01'" in out
+
+
+def test_usage_mistakes_are_usage_errors(tmp_path, capsys):
+    code, _, err = run_exit(capsys, "render", str(DEMO), "--dpi", "0", "-o",
+                            str(tmp_path / "d.png"))
+    assert code == 2 and "expected a resolution from 1 to 2400 dpi" in err
+    code, _, err = run_exit(capsys, "render", str(DEMO), "--facet", "category",
+                            "--facet-order", "Jorneymen", "-o", str(tmp_path / "d.svg"))
+    assert code == 2 and "did you mean 'Journeymen'?" in err
+
+
+def test_parse_reads_a_config_file(tmp_path, capsys):
+    config = tmp_path / "dates.toml"
+    config.write_text('century = "strict"\n', encoding="utf-8")
+    code, out, _ = run(capsys, "parse", "--config", str(config), "17th century")
+    assert "1601-01-01 .. 1700-12-31" in out
+
+
+def test_lanes_measures_the_chart_render_draws(capsys):
+    narrow = run(capsys, "lanes", str(DEMO), "--size", "85x60mm", "--font-size", "6")[1]
+    wide = run(capsys, "lanes", str(DEMO))[1]
+    assert narrow != wide
+
+
+def run_exit(capsys, *argv):
+    try:
+        code = main(list(argv))
+    except SystemExit as stop:
+        code = stop.code
+    out, err = capsys.readouterr()
+    return code, out, err

@@ -12,6 +12,6 @@ from .pipeline import (
 from .spec import Chart
 
 __all__ = ["Arranged", "Chart", "ChartOptions", "Privacy", "ReadTable", "RunResult", "arrange",
-           "arrange_read", "arranged_page", "arranged_scene", "build_scene", "lay_out", "output_path",
-           "parse_window", "placement_scene", "read_bands", "read_records", "read_source",
-           "render"]
+           "arrange_read", "arranged_page", "arranged_scene", "build_scene", "lay_out",
+           "output_path", "parse_window", "placement_scene", "read_bands", "read_records",
+           "read_source", "render"]

@@ -26,6 +26,8 @@ from ..layout import (
     GroupNode, LaneRules, LaneSettings, Placement, TimeWindow, UnknownGroup, group_records,
     group_tree, lane_rules, place, split_by_window,
 )
+from ..layout.grouping import check_listed_names
+from ..layout.settings import group_order
 from ..layout.distances import DAYS_PER_UNIT, Distance, parse_distance
 from ..model import Record
 from ..render import output_format, writable, write
@@ -44,6 +46,7 @@ from ..sources import ColumnMap, LoadResult, detect_columns, load_records, read_
 from ..sources import read_records as read_table_records
 from ..sources.columns import existing_column
 from ..sources.fields import column_reader
+from ..sources.tables import TITLE_ROW, Table
 from ..sources.frames import table_from_data
 
 _GROUP = attrgetter("group")   # a record's group: the C-level getter, called per record
@@ -53,6 +56,7 @@ _GROUP = attrgetter("group")   # a record's group: the C-level getter, called pe
 class ChartOptions:
     columns: ColumnMap = field(default_factory=ColumnMap)
     sheet: str | None = None
+    header_row: int = 1                 # the row naming the columns (titles may stand above)
     settings: DateSettings = DEFAULT_SETTINGS
     theme: Theme = DEFAULT_THEME
     title: str = ""
@@ -68,6 +72,7 @@ class ChartOptions:
     bands: object = None                # a table of named periods drawn behind the lanes
     facet: str | None = None            # a column: one small timeline per value
     size: PageSize | None = None        # the page; its width overrides the theme's
+    facet_order: str = "first"          # first, name, size, or facet values separated by commas
     longest: str | None = None          # a longest plausible duration bounding open sides
     longest_column: str | None = None   # a column giving each record its own
     date_numbers: str = "years"         # a spreadsheet's numbers in date columns: years or serials
@@ -190,18 +195,30 @@ def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTab
     """Read and parse `data`: a table file's path, a pandas DataFrame, an iterable of rows
     (mappings of column name to cell), or an iterable of Records made by the caller."""
     if isinstance(data, (str, PathLike)):
-        table = read_table(data, options.sheet)                          # read
+        table = read_table(data, options.sheet, header_row=options.header_row)   # read
     else:
         table = table_from_data(data)
     if isinstance(table, LoadResult):                                   # records as given
         columns, header, loaded = options.columns, None, table
     else:
-        columns, header = detect_columns(table.header, options.columns), table.header
+        columns, header = _detected_columns(table, options.columns), table.header
         loaded = load_records(table, columns, options.settings,          # parse
                               date_numbers=options.date_numbers)
     loaded, withheld = _withhold(loaded, options.privacy)
     read = ReadTable(loaded, columns, header, withheld)
     return _bound_open_sides(read, options)
+
+
+def _detected_columns(table: Table, given: ColumnMap) -> ColumnMap:
+    """The table's columns by part; when none is a date column and the header looks like a
+    title above the real one, the error says which row to give as --header-row."""
+    try:
+        return detect_columns(table.header, given)
+    except UsageError as error:
+        titles = [note.hint for note in table.notes if TITLE_ROW in note.reason]
+        if titles:
+            raise UsageError(str(error), hint=titles[0]) from error
+        raise
 
 
 def _bound_open_sides(read: ReadTable, options: ChartOptions) -> ReadTable:
@@ -287,8 +304,15 @@ def _arrange_panels(arranged: Arranged, dated: list[Record], options: ChartOptio
                     header, rules: LaneRules, gap: Distance) -> Arranged:
     """One placement per value of the facet column, all on one time scale and one width."""
     facet = existing_column(header, options.facet, "facet") if header else options.facet
+    order = group_order(options.facet_order)
     facets = group_records(dated, column_reader(arranged.columns, header, facet, "facet"),
-                           "first")
+                           order)
+    if isinstance(order, tuple):
+        try:
+            check_listed_names(order, [name for name, _ in facets])
+        except UnknownGroup as error:
+            raise UsageError(f"--facet-order: {error}",
+                             hint=did_you_mean(error.name, error.known)) from error
     theme = replace(options.theme, width=panel_width(options.theme.width, len(facets)))
     # Faceted by the group column, a panel is one group: no group names inside it.
     group_of = (lambda r: None) if facet == arranged.columns.group else _GROUP

@@ -53,18 +53,20 @@ class Chart:
     `end`, `died`, `label`, `name`, `group`, ...) unless named here: `start`/`end`, or `when`
     for one column holding a whole span; `label`, `group` (lanes are packed per group),
     `color` (a column coloured with a colour-blind-safe palette) and `id`. `sheet` picks a
-    spreadsheet's sheet by name or number."""
+    spreadsheet's sheet by name or number; `header_row` is the row naming the columns when a
+    title or notes stand above it."""
 
     __slots__ = ("_data", "_options", "_window_text", "_cache")
 
     def __init__(self, data, *, start: str | None = None, end: str | None = None,
                  when: str | None = None, label: str | None = None, group: str | None = None,
-                 color: str | None = None, id: str | None = None, sheet: str | None = None):
+                 color: str | None = None, id: str | None = None, sheet: str | None = None,
+                 header_row: int = 1):
         columns = ColumnMap(start=start, end=end, when=when, label=label, group=group,
                             color=color, id=id)
         _check_columns(columns)
         self._data = data
-        self._options = ChartOptions(columns=columns, sheet=sheet)
+        self._options = ChartOptions(columns=columns, sheet=sheet, header_row=header_row)
         self._window_text: tuple[str | None, str | None] = (None, None)
         self._cache: dict[str, object] = {}
 
@@ -199,9 +201,11 @@ class Chart:
         rows) with columns label, start, end (or when)."""
         return self._with(bands=data)
 
-    def facet(self, column: str | None) -> "Chart":
-        """One small timeline per value of `column`, all on one time axis (None: one chart)."""
-        return self._with(facet=column)
+    def facet(self, column: str | None, order: str = "first") -> "Chart":
+        """One small timeline per value of `column`, all on one time axis (None: one chart);
+        `order` as a group order: "first" (earliest start), "name", "size" or values
+        separated by commas."""
+        return self._with(facet=column, facet_order=order)
 
     def strict(self, strict: bool = True) -> "Chart":
         """With strict, `save` writes nothing (and raises) when any row is not drawn."""

@@ -181,23 +181,34 @@ def _laid_out(chart: Chart, progress: Progress):
         return chart.layout()
 
 
-def _render_options(args) -> ChartOptions:
-    theme = DEFAULT_THEME.with_options(fringe=args.fringe, era=args.era, width=args.width,
-                                       palette=PALETTES[args.palette], font_family=args.font,
-                                       max_colors=args.max_colors)
+def _theme(args):
+    """The look the options give; lanes takes the page and font options render takes, so both
+    measure the same chart, and the drawing-only ones keep their defaults there."""
+    palette = getattr(args, "palette", None)
+    theme = DEFAULT_THEME.with_options(
+        fringe=getattr(args, "fringe", None), era=args.era, width=args.width,
+        palette=PALETTES[palette] if palette else None, font_family=args.font,
+        max_colors=getattr(args, "max_colors", None))
     if args.font_size:
         theme = theme.with_font_size(parse_font_size(args.font_size))
+    return theme
+
+
+def _render_options(args) -> ChartOptions:
+    theme = _theme(args)
     title = args.title or ("The Fenwold organ builders, 1600–1720 (invented demo data)"
                            if args.demo else "")
     size = parse_size(args.size) if args.size else None
     settings = _settings(args)
     notes = [args.note] if isinstance(args.note, str) else args.note or []  # a config string
     return ChartOptions(
-        columns=_columns(args), sheet=args.sheet, settings=settings, theme=theme, title=title,
+        columns=_columns(args), sheet=args.sheet, header_row=args.header_row,
+        settings=settings, theme=theme, title=title,
         strict=args.strict, dpi=png_dpi(args.dpi, size), lanes=_lane_settings(args),
         text=args.text_mode, privacy=_privacy(args), subtitle=args.subtitle,
         credit=args.credit, notes=tuple(notes), window=_window(args, settings),
-        bands=args.bands, facet=args.facet, size=size, date_numbers=args.date_numbers,
+        bands=args.bands, facet=args.facet, facet_order=args.facet_order, size=size,
+        date_numbers=args.date_numbers,
         longest=args.longest, longest_column=args.longest_column)
 
 
@@ -255,12 +266,16 @@ def _print_hidden_labels(placements, output: str | None) -> None:
 def run_lanes(args, parser) -> int:
     if args.when and (args.start or args.end):
         parser.error("give either --when or --start/--end, not both")
-    theme = DEFAULT_THEME.with_options(era=args.era, width=args.width)
+    if args.size and args.width != DEFAULT_THEME.width:
+        parser.error("give either --size or --width, not both")
+    theme = _theme(args)
     settings = _settings(args)
-    options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=settings,
+    options = ChartOptions(columns=_columns(args), sheet=args.sheet,
+                           header_row=args.header_row, settings=settings,
                            theme=theme, lanes=_lane_settings(args),
                            window=_window(args, settings), date_numbers=args.date_numbers,
-                           longest=args.longest, longest_column=args.longest_column)
+                           longest=args.longest, longest_column=args.longest_column,
+                           size=parse_size(args.size) if args.size else None)
     chart = Chart.from_options(_input_path(args, parser), options)
     arranged = _laid_out(chart, Progress(2, quiet=args.quiet))
     _print_run(arranged, args, theme.era)
@@ -283,7 +298,8 @@ def _print_problems(problems) -> None:
 
 
 def run_check(args, parser) -> int:
-    options = ChartOptions(columns=_columns(args), sheet=args.sheet, settings=_settings(args),
+    options = ChartOptions(columns=_columns(args), sheet=args.sheet,
+                           header_row=args.header_row, settings=_settings(args),
                            date_numbers=args.date_numbers)
     source = _input_path(args, parser)
     with Progress(1, quiet=args.quiet).step(f"reading {source.name}"):
@@ -379,12 +395,18 @@ def _explanation(text: str, result: dict, unreadable: str | None,
 def _json_line(result: dict) -> str:
     """JSON in UTF-8 where it can be, escaped ASCII where the text cannot be encoded (a lone
     surrogate from a command-line argument)."""
-    line = json.dumps(result, ensure_ascii=False)
+    line = json.dumps(result, ensure_ascii=False).translate(_LINE_BREAKS_ESCAPED)
     try:
         line.encode("utf-8")
         return line
     except UnicodeEncodeError:
         return json.dumps(result, ensure_ascii=True)
+
+
+# Characters that end a line for some readers (Python's str.splitlines, JavaScript's line
+# terminators) though JSON leaves them raw: escaped, so one input line is one output line.
+_LINE_BREAKS_ESCAPED = str.maketrans({"\x85": "\\u0085", "\u2028": "\\u2028",
+                                      "\u2029": "\\u2029"})
 
 
 def _print_line(text: str, file=None) -> None:

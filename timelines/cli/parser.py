@@ -26,8 +26,9 @@ ERAS = ("bce", "bc", "astronomical", "bp")
 LANE_DEFAULTS = LaneSettings()
 # Options that say what to run or where output goes, not how: never read from a config file.
 NOT_SETTINGS = frozenset({"help", "input", "output", "demo", "config", "print_config", "json",
-                          "format", "command", "debug", "version", "text", "quiet"})
-CONFIG_COMMANDS = ("render", "check", "lanes")
+                          "format", "command", "debug", "version", "text", "quiet",
+                          "explain"})
+CONFIG_COMMANDS = ("render", "check", "lanes", "parse")
 UNSET = {**{part: "found from the header names" for part in
             ("start", "end", "when", "label", "group", "color", "id")},
          "sheet": "the first sheet", "subgroup": "none", "lane-column": "none",
@@ -85,6 +86,7 @@ def build_parser() -> argparse.ArgumentParser:
     read.add_argument("--explain", action="store_true",
                       help="say how each bound was reached: form, rule, convention setting")
     _date_options(read)
+    _config_options(read)
 
     validate = commands.add_parser("check", help="report what cannot be read in a table")
     validate.add_argument("input", nargs="?", help="CSV, TSV, XLSX or ODS file")
@@ -107,6 +109,7 @@ def build_parser() -> argparse.ArgumentParser:
     report.add_argument("--width", type=float, default=DEFAULT_THEME.width,
                         help=f"chart width in px (default {DEFAULT_THEME.width:g}): "
                              "labels and page distances take room by it")
+    _page_options(report)
     _config_options(report)
     return parser
 
@@ -119,6 +122,9 @@ def _table_options(parser: argparse.ArgumentParser) -> None:
                           ("color", "the colour category"), ("id", "record identifiers")):
         columns.add_argument(f"--{name}", metavar="COL", help=f"column of {meaning}")
     parser.add_argument("--sheet", help="sheet of an XLSX/ODS workbook (default: the first)")
+    parser.add_argument("--header-row", metavar="N", type=_count(1), default=1,
+                        help="the row that names the columns, when a title or notes stand "
+                             "above it (default 1)")
     parser.add_argument("--date-numbers", choices=DATE_NUMBERS, default="years",
                         help="numbers in a spreadsheet's date columns: years (default; a "
                              "number of five digits or more is refused as a likely date "
@@ -196,6 +202,10 @@ def _text_options(parser: argparse.ArgumentParser) -> None:
                             "the lanes")
     words.add_argument("--facet", metavar="COL",
                        help="one small timeline per value of COL, in a grid on one time axis")
+    words.add_argument("--facet-order", metavar="ORDER", type=_group_order_text,
+                       default="first",
+                       help="panel order: first (earliest start, the default), name, size, or "
+                            "values separated by commas")
 
 
 def _page_options(parser: argparse.ArgumentParser) -> None:
@@ -211,7 +221,7 @@ def _page_options(parser: argparse.ArgumentParser) -> None:
     page.add_argument("--font-size", metavar="SIZE", type=_checked(parse_font_size),
                       help="label size in pt (9) or px (12px); other text scales with it "
                            "(default 9pt)")
-    page.add_argument("--dpi", type=float,
+    page.add_argument("--dpi", type=_resolution,
                       help="PNG resolution (default 150, or 96 with --size in px)")
 
 
@@ -266,6 +276,18 @@ def _checked(parse):
 
 
 _distance_text = _checked(parse_distance)
+
+
+def _resolution(text: str) -> float:
+    """A PNG resolution in dots an inch: a positive number, at most 2400 (a print shop's
+    finest; more gives images few programs open)."""
+    try:
+        value = float(text)
+    except ValueError:
+        value = 0.0
+    if not 0 < value <= 2400:
+        raise argparse.ArgumentTypeError(f"expected a resolution from 1 to 2400 dpi, not {text!r}")
+    return value
 
 
 def _count(least: int):

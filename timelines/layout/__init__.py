@@ -34,11 +34,10 @@ from .settings import LaneSettings, lane_rules
 from .window import TimeWindow, split_by_window
 
 __all__ = [
-    "Density", "GROUP_ORDERS", "GroupKey", "GroupNode", "GroupOrder", "GroupPlacement",
-    "LABEL_MODES", "LABEL_SIDES", "LEFT_OUT", "LaneRules", "LaneSettings", "LayoutNote", "NO_GROUP", "PACKINGS",
-    "Placement", "SpanMeasure", "each_span",
-    "PlacedRecord", "SORT_KEYS", "TimeWindow", "UnknownGroup", "collect_groups", "densest_moment",
-    "first_fit", "group_records", "group_tree", "label_box", "max_overlap_depth",
-    "merge_small_groups", "most_that_fit", "natural_key", "order_groups", "pack_lanes", "place",
-    "lane_rules", "split_by_window",
+    "collect_groups", "densest_moment", "Density", "each_span", "first_fit", "GROUP_ORDERS",
+    "group_records", "group_tree", "GroupKey", "GroupNode", "GroupOrder", "GroupPlacement",
+    "label_box", "LABEL_MODES", "LABEL_SIDES", "lane_rules", "LaneRules", "LaneSettings",
+    "LayoutNote", "LEFT_OUT", "max_overlap_depth", "merge_small_groups", "most_that_fit",
+    "natural_key", "NO_GROUP", "order_groups", "pack_lanes", "PACKINGS", "place", "PlacedRecord",
+    "Placement", "SORT_KEYS", "SpanMeasure", "split_by_window", "TimeWindow", "UnknownGroup",
 ]

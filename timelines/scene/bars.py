@@ -169,7 +169,7 @@ def _bar_marks(span, geometry: DrawnSpan, scale, box, style, theme, used) -> lis
             parts += marks.open_arrow(edge, window.side, scale, box, style)
             used.add("open")
         elif endpoint.is_unknown or unbounded(endpoint, window.side):
-            parts += marks.unknown_stretch(window, scale, box, style)
+            parts += marks.unknown_stretch(window, scale, box, style, theme.fringe)
             used.add(_stretch_kind(endpoint, window.side))
         else:
             drawn = fringe(window, scale, box, style)
@@ -190,8 +190,8 @@ def _point_marks(span, geometry: DrawnSpan, scale, box, style, used) -> list[Pri
     parts: list[Primitive] = []
     endpoint = span.start
     if geometry.start_high > geometry.start_low:
-        parts += marks.whisker(EndWindow(geometry.start_low, geometry.start_high, "end"),
-                               scale, box, style)
+        parts += marks.moment_window(EndWindow(geometry.start_low, geometry.start_high, "end"),
+                                     scale, box, style)
         used.add("point window")
     centre = _point_centre(endpoint, geometry)
     if scale.start <= centre <= scale.end:      # a window may leave only the line showing

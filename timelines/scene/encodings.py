@@ -8,7 +8,7 @@ point) are plain functions with the same arguments where they apply.
 from __future__ import annotations
 
 import difflib
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from typing import Callable
 
 from ..errors import UsageError
@@ -83,6 +83,19 @@ def whisker(window: EndWindow, scale: TimeScale, lane: LaneBox,
     ]
 
 
+def moment_window(window: EndWindow, scale: TimeScale, lane: LaneBox,
+                  style: MarkStyle) -> list[Primitive]:
+    """The window a moment lies in: a thin line with a cap at both bounds (either may be the
+    moment's)."""
+    x_low, x_high = scale.x(window.low), scale.x(window.high)
+    if x_high - x_low <= 0:
+        return []
+    cap = lane.height * 0.35
+    return [Line(x_low, lane.middle, x_high, lane.middle, style.color, 1.5, css_class="fringe"),
+            *(Line(x, lane.middle - cap, x, lane.middle + cap, style.color, 1.5,
+                   css_class="fringe") for x in (x_low, x_high))]
+
+
 HATCH_SPACING = 4.0   # px between hatch lines, measured along the bar
 
 
@@ -143,18 +156,24 @@ def fringe_encoder(name: str) -> Encoder:
 
 
 def unknown_stretch(window: EndWindow, scale: TimeScale, lane: LaneBox,
-                    style: MarkStyle) -> list[Primitive]:
+                    style: MarkStyle, fringe: str = "fade") -> list[Primitive]:
     """Where an empty cell leaves a side unknown: a paler fade inside a dashed outline, so it
-    reads apart from a dated window's fade."""
+    reads apart from a dated window's fade; with the hatch or dots fringe (chosen to survive
+    greyscale printing) that pattern inside the outline instead of the fade."""
     x_low, x_high = scale.x(window.low), scale.x(window.high)
     if x_high - x_low <= 0:
         return []
-    near, far = 0.55, style.far_opacity * 0.5
-    left, right = (far, near) if window.side == "start" else (near, far)
     dash = (3.0, 2.0)
+    if fringe in ("hatch", "dots"):
+        inside = [replace(item, css_class="unknown") for item in
+                  FRINGES[fringe](window, scale, lane, style)]
+    else:
+        near, far = 0.55, style.far_opacity * 0.5
+        left, right = (far, near) if window.side == "start" else (near, far)
+        inside = [GradientRect(x_low, lane.y, x_high - x_low, lane.height, style.color, left,
+                               right, css_class="unknown")]
     return [
-        GradientRect(x_low, lane.y, x_high - x_low, lane.height, style.color, left, right,
-                     css_class="unknown"),
+        *inside,
         Line(x_low, lane.y, x_high, lane.y, style.color, 1.0, dash, css_class="unknown"),
         Line(x_low, lane.y + lane.height, x_high, lane.y + lane.height, style.color, 1.0, dash,
              css_class="unknown"),
@@ -169,11 +188,14 @@ def core(low: float, high: float, scale: TimeScale, lane: LaneBox,
                  css_class="core")]
 
 
+OPEN_ARROW_REACH = 0.7   # of the bar's height: how far an open end's arrowhead reaches out
+
+
 def open_arrow(day: float, side: str, scale: TimeScale, lane: LaneBox,
                style: MarkStyle) -> list[Primitive]:
     """An arrowhead at the axis edge: the span runs on past the chart (ISO 8601-2 '..')."""
     x = scale.x(day)
-    reach = lane.height * 0.7
+    reach = lane.height * OPEN_ARROW_REACH
     tip = x - reach if side == "start" else x + reach
     points = ((x, lane.y - 2), (tip, lane.middle), (x, lane.y + lane.height + 2))
     return [Polygon(points, style.color, css_class="open")]

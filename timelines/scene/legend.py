@@ -81,7 +81,8 @@ def _legend(entries, color_key, text, theme: Theme, top: float, width: float):
         box = LaneBox(y + (row - SWATCH_HEIGHT * scale) / 2, SWATCH_HEIGHT * scale)
         children += draw(x, box)
         children.append(Text(x + swatch + gap, box.middle + theme.small_font_size * 0.36, words,
-                             theme.small_font_size, fill=theme.text_color, css_class="legend-text"))
+                             theme.small_font_size, fill=theme.text_color,
+                             css_class="legend-text"))
         x += needed
     return Group(tuple(children), css_class="legend"), y + row
 
@@ -111,7 +112,7 @@ def _sample(key: str, theme: Theme, color: str):
         if key == "band fringe":
             return _band_sample(x, box, theme)
         if key.startswith(("unknown", "unbounded")):
-            return marks.unknown_stretch(EndWindow(0, 10, "end"), scale, box, style)
+            return marks.unknown_stretch(EndWindow(0, 10, "end"), scale, box, style, theme.fringe)
         if key == "before":
             return (fringe(EndWindow(0, 7, "start"), scale, box, style)
                     + marks.bound_bracket(7, "before", scale, box, style))
@@ -124,7 +125,7 @@ def _sample(key: str, theme: Theme, color: str):
         if key == "point":
             return marks.point_marker(5, scale, box, style)
         if key == "point window":
-            return (marks.whisker(EndWindow(1, 9, "end"), scale, box, style)
+            return (marks.moment_window(EndWindow(1, 9, "end"), scale, box, style)
                     + marks.point_marker(5, scale, box, style))
         return marks.qualifier_glyph(3, "end", key, scale, box, style)
     return draw

@@ -17,6 +17,7 @@ from ..layout import GroupNode, LaneRules, TimeWindow, group_tree
 from ..model import Record
 from .bars import drawn_spans, qualifier_kind, stub_days
 from .compose import SUBGROUP_INDENT
+from .encodings import OPEN_ARROW_REACH
 from .scale import TimeScale, nice_domain
 from .textsize import text_width
 from .theme import Theme
@@ -102,7 +103,10 @@ def chart_scale(dated: list[Record], theme: Theme,
                          f"--to {window.end_text!r}", hint="give both --from and --to")
     if tree is None:
         tree = group_tree(dated, attrgetter("group"), LaneRules())
-    left = theme.margin + group_column_width(tree, theme)
+    column = group_column_width(tree, theme)
+    if column and any(record.span.start.is_open for record in dated):
+        column += theme.bar_height * OPEN_ARROW_REACH     # a left arrow keeps off the names
+    left = theme.margin + column
     return TimeScale(low, high, left, theme.width - theme.margin)
 
 

@@ -17,7 +17,7 @@ import csv
 import io
 import re
 from collections.abc import Iterable
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from datetime import date, datetime
 from pathlib import Path
 
@@ -81,12 +81,16 @@ class Table:
 
 
 def read_table(path: str | Path, sheet: str | int | None = None, *,
-               encoding: str = "utf-8") -> Table:
+               encoding: str = "utf-8", header_row: int = 1) -> Table:
     """Read a table file; its format follows the extension (see READABLE).
 
     `sheet` picks a spreadsheet's sheet by name, or by its place counted from 1 when it is a
     number that is not also a sheet's name. Text files are UTF-8 (a byte-order mark is
-    dropped; a UTF-16 mark is honoured) unless `encoding` says otherwise."""
+    dropped; a UTF-16 mark is honoured) unless `encoding` says otherwise. `header_row` is
+    the row that names the columns (a sheet may have a title and notes above it); rows keep
+    their spreadsheet numbers."""
+    if header_row < 1:
+        raise UsageError(f"the header row is counted from 1, not {header_row}")
     path = Path(path)
     suffix = path.suffix.lower()
     if suffix not in TEXT_FORMATS and suffix not in SPREADSHEET_ENGINES:
@@ -96,16 +100,62 @@ def read_table(path: str | Path, sheet: str | int | None = None, *,
         raise SourceError(f"{path}: no such file" if not path.exists() else f"{path}: not a file",
                           hint="check the path and the spelling of the file name")
     if suffix in SPREADSHEET_ENGINES:
-        return _spreadsheet_table(path, SPREADSHEET_ENGINES[suffix], sheet)
+        return _spreadsheet_table(path, SPREADSHEET_ENGINES[suffix], sheet, header_row)
     if sheet is not None:
         raise UsageError(f"{path.name} is a text file and has no sheets",
                          hint="a sheet can be chosen only in an .xlsx, .xlsm or .ods file")
-    cells = _text_cells(path, TEXT_FORMATS[suffix], encoding)
-    return _table_from_cells(path.name, cells)
+    cells = _text_cells(path, TEXT_FORMATS[suffix], encoding, header_row - 1)
+    return _from_header_row(path.name, cells, header_row, skipped=0)
 
 
-def _text_cells(path: Path, delimiter: str | None, encoding: str) -> list[list[object]]:
+def _from_header_row(source: str, columns: list[list[object]], header_row: int,
+                     skipped: int | None = None) -> Table:
+    """The table whose names are in `header_row`; the `skipped` rows above it (all of them
+    unless the reader dropped them already) are set aside, and when the names look like a
+    title above the real header, a note says which row to give."""
+    skipped = header_row - 1 if skipped is None else skipped
+    if columns and skipped >= len(columns[0]):
+        raise SourceError(f"{source}: there is no row {header_row} to take the column names "
+                          f"from; the sheet has {len(columns[0])} rows")
+    table = _table_from_cells(source, [column[skipped:] for column in columns])
+    table = replace(table, first_row=header_row + 1)
+    title = _title_rows_note(source, columns, skipped)
+    return replace(table, notes=table.notes + title) if title else table
+
+
+_LOOKED_AT = 20      # rows searched for a header below a lone title
+TITLE_ROW = "names one column only"
+
+
+def _title_rows_note(source: str, columns: list[list[object]], skipped: int
+                     ) -> tuple[Problem, ...]:
+    """A note when the header row holds one cell (a title, most likely) and a row below it
+    fills several: that row is probably the header."""
+    if len(columns) < 2:
+        return ()
+    filled = [sum(1 for column in columns if cell_text(column[row]))
+              for row in range(skipped, min(len(columns[0]), skipped + _LOOKED_AT))]
+    if not filled or filled[0] > 1:
+        return ()
+    below = next((offset for offset, count in enumerate(filled) if count >= 2), None)
+    if below is None:
+        return ()
+    row = skipped + below + 1
+    hint = f"if the column names are in row {row}, give --header-row {row}"
+    return (Problem(source, skipped + 1, None, None, "", f"row {skipped + 1} {TITLE_ROW}",
+                    "note", hint=hint),)
+
+
+def _text_cells(path: Path, delimiter: str | None, encoding: str, skipped: int = 0
+                ) -> list[list[object]]:
+    """The cells of a text table by column, from its line `skipped` + 1 (the header) on."""
     text = _decoded_text(path, encoding)
+    if skipped:
+        lines = text.split("\n", skipped)
+        if len(lines) <= skipped:
+            raise SourceError(f"{path.name}: there is no line {skipped + 1} to take the column "
+                              f"names from; the file has {len(lines)} lines")
+        text = lines[-1]
     if not text.strip():
         raise SourceError(f"{path.name}: the file is empty",
                           hint="the first row should name the columns, e.g. label,start,end")
@@ -114,8 +164,17 @@ def _text_cells(path: Path, delimiter: str | None, encoding: str) -> list[list[o
     try:
         return text_columns(text, delimiter)
     except _RaggedRow as error:
-        raise SourceError(f"{path.name}: {error}",
-                          hint="every line should have as many cells as the header") from error
+        raise SourceError(f"{path.name}: {error}", hint=_ragged_hint(error, skipped)) from error
+
+
+def _ragged_hint(error: "_RaggedRow", skipped: int) -> str:
+    """Every line as wide as the header; where line 1 is a single cell and a line below is
+    wider (a title above the header, most likely), which --header-row to give."""
+    found = re.match(r"line (\d+) has \d+ cells, the header has 1$", str(error))
+    if found and not skipped and int(found.group(1)) <= _LOOKED_AT:
+        line = int(found.group(1))
+        return f"if the column names are in line {line}, give --header-row {line}"
+    return "every line should have as many cells as the header"
 
 
 class _RaggedRow(ValueError):
@@ -214,16 +273,17 @@ def _plain_parser_message(error: Exception) -> str:
     return str(error).strip()
 
 
-def _spreadsheet_table(path: Path, reader: str, sheet: str | int | None) -> Table:
+def _spreadsheet_table(path: Path, reader: str, sheet: str | int | None,
+                       header_row: int = 1) -> Table:
     if reader == "xlsx":
         from .xlsx import read_xlsx as read_sheet
     else:
         from .ods import read_ods as read_sheet
     cells, date_system = read_sheet(path, sheet)
-    table = _table_from_cells(path.name, cells.columns())
-    notes = _merged_note(table, cells)
-    return Table(table.source, table.header, table.columns, date_system, notes,
-                 frozenset(cells.marked))
+    table = _from_header_row(path.name, cells.columns(), header_row)
+    notes = table.notes + _merged_note(table, cells)
+    return replace(table, date_system=date_system, notes=notes,
+                   marked=frozenset(cells.marked))
 
 
 def _merged_note(table: Table, cells: SheetCells) -> tuple[Problem, ...]:

@@ -4,7 +4,10 @@ An `Endpoint` is a window `[earliest, latest]` of fixed days in which a start or
 `None` on a side means no bound there. A `Span` is a start and an end endpoint; from it follow
 the *possible extent* (where the span may reach) and the *certain core* (where it surely was).
 A `Record` is one row of the user's table: a label, a span (or none: undated), its original
-text, its grouping fields and where it came from.
+text, its grouping fields, where it came from, and what kind of thing it dates: a **span**
+(a life, a reign: the whole interval was occupied) or an **event** (a wreck, a find, a letter:
+one moment somewhere in its window, a point whose window runs from the not-before to the
+not-after; `event_endpoint`).
 """
 from __future__ import annotations
 
@@ -205,6 +208,14 @@ class Record:
     group: str | None = None
     color: str | None = None
     fields: tuple[tuple[str, str], ...] = field(default=())
+    # SPAN or EVENT: what the row dates. Counts of activity weigh the two differently (an
+    # event by the share of its window in a block, aoristically; a span by overlap), so
+    # every output says which a table holds.
+    kind: str = "span"
+
+    @property
+    def is_event(self) -> bool:
+        return self.kind == EVENT
 
     @property
     def date_text(self) -> str:
@@ -212,6 +223,40 @@ class Record:
             start = self.start_text or "?"
             return f"{start} – {self.end_text}"
         return self.start_text
+
+
+SPAN, EVENT = "span", "event"
+RECORD_KINDS = (SPAN, EVENT)
+# Of two bound cells, what an event keeps: its own qualifiers, not the sides' words (an
+# event has no open end; a `before` belongs to the not-after, an `after` to the not-before).
+_SIDE_WORDS = _OPEN_SIDES | _UNKNOWN_SIDES | {Qualifier.BEFORE, Qualifier.AFTER}
+_PRECISIONS = tuple(Precision)
+
+
+def event_endpoint(not_before: Endpoint | None, not_after: Endpoint | None) -> Endpoint:
+    """The window of one moment bounded by two dates (terminus post quem and ante quem, in
+    the archaeologists' words): from the not-before's earliest day to the not-after's latest.
+    A missing or open side is unknown. A likely day is kept only where it is the moment's
+    own (one endpoint for both bounds): a likely not-before is not a likely moment."""
+    if not_before is not None and not_before is not_after and not not_before.is_open:
+        return not_before
+    qualifiers = set()
+    for endpoint, kept in ((not_before, Qualifier.AFTER), (not_after, Qualifier.BEFORE)):
+        if endpoint is not None:
+            qualifiers |= (endpoint.qualifiers - _SIDE_WORDS) | (endpoint.qualifiers & {kept})
+    earliest = None if not_before is None or not_before.is_open else not_before.earliest
+    latest = None if not_after is None or not_after.is_open else not_after.latest
+    if earliest is None:
+        qualifiers.add(Qualifier.UNKNOWN_START)
+    if latest is None:
+        qualifiers.add(Qualifier.UNKNOWN_END)
+    return Endpoint(earliest, latest, _coarser(not_before, not_after), frozenset(qualifiers))
+
+
+def _coarser(*endpoints: Endpoint | None) -> Precision | None:
+    """The coarser precision of the endpoints that have one (year before day)."""
+    known = [e.precision for e in endpoints if e is not None and e.precision is not None]
+    return max(known, key=_PRECISIONS.index, default=None)
 
 
 def _iso_or_open(day: int | None) -> str:

@@ -1,6 +1,10 @@
 """Rows into Records and Problems: every non-blank row is drawn, listed as undated, or
 reported with its row, column, text and reason. Each distinct cell value is parsed once, and
-no cell, whatever it holds, stops the rest of the table (guarded.py)."""
+no cell, whatever it holds, stops the rest of the table (guarded.py).
+
+With `events`, each row dates one moment (a wreck, a find, a letter), not a span: the start
+and end columns are its not-before and not-after, and a `when` cell's whole reading (`1st
+century BC`, `1650–1660`) is the window of one moment (`model.event_endpoint`)."""
 from __future__ import annotations
 
 from collections.abc import Callable, Iterable
@@ -14,7 +18,10 @@ from ..dates import DateError, parse_column, parse_span_column
 from ..dates.built import checked_span
 from ..dates.settings import DEFAULT_SETTINGS, DateSettings
 from ..errors import UsageError
-from ..model import Endpoint, Provenance, Qualifier, Record, Span, collection_paused, many
+from ..model import (
+    EVENT, SPAN, Endpoint, Provenance, Qualifier, Record, Span, collection_paused,
+    event_endpoint, many,
+)
 from .conventions import hundreds_notes
 from .columns import ColumnMap, detect_columns, existing_column, column_parts
 from .guarded import internal_error, parsed_column, unknown_value_notes
@@ -50,13 +57,15 @@ class _Layout:
     color: int | None
     id: int | None
     other: tuple[tuple[int, str], ...]   # (index, name) of the columns kept as fields
+    events: bool = False                 # each row one moment: start = not-before, end = not-after
 
     @property
     def date_places(self) -> set[int]:
         return {place for place in (self.start, self.end, self.when) if place is not None}
 
     @classmethod
-    def of(cls, header: tuple[str, ...], columns: ColumnMap) -> "_Layout":
+    def of(cls, header: tuple[str, ...], columns: ColumnMap, events: bool = False
+           ) -> "_Layout":
         index = {name: place for place, name in reversed(list(enumerate(header)))}
         places = {part: _existing_index(header, index, name, part)
                   for part, name in column_parts(columns)}
@@ -68,7 +77,7 @@ class _Layout:
             raise UsageError("a 'when' column cannot be combined with start or end columns")
         used = set(places.values())
         other = tuple((place, name) for place, name in enumerate(header) if place not in used)
-        return cls(columns, header, **places, other=other)
+        return cls(columns, header, **places, other=other, events=events)
 
 
 def _existing_index(header: tuple[str, ...], index: dict[str, int], name: str | None,
@@ -80,17 +89,18 @@ def _existing_index(header: tuple[str, ...], index: dict[str, int], name: str | 
 
 def load_records(table: Table, columns: ColumnMap,
                  settings: DateSettings = DEFAULT_SETTINGS, *,
-                 date_numbers: str = "years") -> LoadResult:
+                 date_numbers: str = "years", events: bool = False) -> LoadResult:
     """Every non-blank row of `table` as a Record or a Problem, using `columns` as given.
 
     The table is read column by column: each distinct cell value of a date column is parsed
     once (real columns repeat a lot), and the Records are made from whole columns at once.
     `date_numbers`: how a spreadsheet's numbers in date columns are read, "years" or
-    "serials" (see serials.py); the problems begin with the notes of reading the sheet."""
+    "serials" (see serials.py); the problems begin with the notes of reading the sheet.
+    `events`: each row is one moment in a window, not a span (the module's docstring)."""
     if date_numbers not in DATE_NUMBERS:
         raise UsageError(f"date numbers are read as {' or '.join(DATE_NUMBERS)}, "
                          f"not {date_numbers!r}")
-    layout = _Layout.of(table.header, columns)
+    layout = _Layout.of(table.header, columns, events)
     with collection_paused():
         return _load(table, layout, settings, date_numbers)
 
@@ -109,6 +119,7 @@ def _load(table: Table, layout: _Layout, settings: DateSettings,
         outcomes = _start_end_outcomes(cells, layout, settings, sheet)
     else:
         outcomes = _when_outcomes(cells[layout.when], layout.when, settings, sheet)
+        outcomes = _as_events(outcomes) if layout.events else outcomes
     texts = _Texts(cells, layout)
     records = _records(table.source, layout, texts, numbers, outcomes)
     problems = _problems(table.source, layout, texts, numbers, outcomes)
@@ -128,11 +139,12 @@ def _filled_rows(columns: tuple[list[object], ...]) -> list[int]:
 
 def read_records(path: str | Path, columns: ColumnMap = ColumnMap(),
                  settings: DateSettings = DEFAULT_SETTINGS, *, sheet: str | int | None = None,
-                 encoding: str = "utf-8", date_numbers: str = "years") -> LoadResult:
+                 encoding: str = "utf-8", date_numbers: str = "years",
+                 events: bool = False) -> LoadResult:
     """read_table, detect_columns and load_records in one call."""
     table = read_table(path, sheet, encoding=encoding)
     return load_records(table, detect_columns(table.header, columns), settings,
-                        date_numbers=date_numbers)
+                        date_numbers=date_numbers, events=events)
 
 
 DateOutcome = Span | None | list[tuple[int, DateError | None]]  # span, undated, or failures
@@ -180,7 +192,25 @@ def _outcome(start: Endpoint | DateError | None, end: Endpoint | DateError | Non
     end = end or _UNKNOWN_END
     if end.latest is not None and start.earliest is not None and end.latest < start.earliest:
         return [(layout.end, None)]   # a contradiction: the end wholly before the start
+    if layout.events:
+        return Span.point(event_endpoint(start, end))
     return checked_span(start, end)   # in order: checked just above
+
+
+def _as_events(outcomes: list[DateOutcome]) -> list[DateOutcome]:
+    """Each span read from a when cell as one moment in its whole window; equal cells share
+    a span, so each distinct one is made once."""
+    made: dict[int, DateOutcome] = {}
+
+    def moment(outcome: DateOutcome) -> DateOutcome:
+        if type(outcome) is not Span:
+            return outcome
+        found = made.get(id(outcome))
+        if found is None:
+            found = made[id(outcome)] = Span.point(event_endpoint(outcome.start, outcome.end))
+        return found
+
+    return list(map(moment, outcomes))
 
 
 def _when_outcomes(cells: list[object], place: int, settings: DateSettings,
@@ -252,7 +282,8 @@ def _records(source: str, layout: _Layout, texts: _Texts, numbers: list[int],
     return many(Record, count, label=labels, span=pick(outcomes), provenance=provenances,
                 start_text=pick(start_texts), end_text=pick(end_texts), id=ids,
                 group=pick(texts.or_none(layout.group)), color=pick(texts.or_none(layout.color)),
-                fields=pick(_fields(texts, layout.other)))
+                fields=pick(_fields(texts, layout.other)),
+                kind=repeat(EVENT if layout.events else SPAN))
 
 
 def _picker(kept: list[int], count: int) -> Callable[[Iterable], list]:
@@ -298,7 +329,10 @@ def _failure(source: str, number: int, layout: _Layout, texts: _Texts, index: in
         return Problem(source, number, layout.header[place], identifier, text, error.reason,
                        "error", error.hint)
     start = texts.at(layout.start, index)
-    reason = f"the end ({text!r}) lies wholly before the start ({start!r})"
+    if layout.events:
+        reason = f"the not-after ({text!r}) lies before the not-before ({start!r})"
+    else:
+        reason = f"the end ({text!r}) lies wholly before the start ({start!r})"
     return Problem(source, number, layout.header[place], identifier, text, reason,
                    "contradiction")
 

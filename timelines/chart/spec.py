@@ -189,6 +189,20 @@ class Chart:
             duration_days(longest, "longest")          # a bad duration fails here
         return self._with(longest=longest, longest_column=column)
 
+    def events(self, not_before: str | None = None, not_after: str | None = None) -> "Chart":
+        """Each row is an event (a wreck, a find, a letter): one moment somewhere between a
+        not-before and a not-after date (terminus post quem and ante quem), not a span that
+        lasted from one to the other. `not_before`/`not_after` name those columns (else the
+        start and end columns are read as them); a `when` cell is then one moment in its
+        whole window (`1st century BC`). Drawn as a marker in a shaded window, never a bar."""
+        columns = self._options.columns
+        if not_before is not None or not_after is not None:
+            if columns.when:
+                raise UsageError("give either when or not_before/not_after, not both")
+            columns = replace(columns, start=not_before or columns.start,
+                              end=not_after or columns.end)
+        return self._with(columns=columns, events=True)
+
     def withhold_living(self, as_of: int | None = None, years: int = 100) -> "Chart":
         """Show records that may be of living persons without their names and details
         (docs/privacy.md): those that could have started within `years` before `as_of`

@@ -16,7 +16,7 @@ import numpy as np
 
 from ..calendar import iso_from_fixed
 from ..layout import PlacedRecord
-from ..model import Qualifier, Record, Span
+from ..model import Qualifier, Record, Span, event_endpoint
 from . import encodings as marks
 from .encodings import EndWindow, LaneBox, MarkStyle
 from .primitives import Group, Primitive, Text
@@ -123,7 +123,9 @@ def draw_record(placed: PlacedRecord, scale: TimeScale, theme: Theme, box: LaneB
     """The record's marks; `geometry` is where its span is drawn (one of drawn_spans)."""
     record = placed.record
     style = MarkStyle(color, theme.fringe_far_opacity, theme.text_color, theme.small_font_size)
-    if record.span.is_point and not geometry.open_start and not geometry.open_end:
+    if record.is_event:
+        parts = _event_marks(record.span, geometry, scale, box, style, used)
+    elif record.span.is_point and not geometry.open_start and not geometry.open_end:
         parts = _point_marks(record.span, geometry, scale, box, style, used)
     else:
         parts = _bar_marks(record.span, geometry, scale, box, style, theme, used)
@@ -198,6 +200,40 @@ def _point_marks(span, geometry: DrawnSpan, scale, box, style, used) -> list[Pri
         parts += marks.point_marker(centre, scale, box, style)
         used.add("point")
     return parts
+
+
+def _event_marks(span, geometry: DrawnSpan, scale, box, style, used) -> list[Primitive]:
+    """An event: its marker at the likely day or the middle, its window a band fading towards
+    both bounds; a side not recorded is a dashed stretch, drawn short, beyond the marker."""
+    endpoint = event_endpoint(span.start, span.end)    # the same endpoint for a point
+    low, high = geometry.start_low, geometry.end_high
+    centre = _window_centre(endpoint, low, high)
+    middle = min(max(centre, low), high)         # where the parts meet, on the axis shown
+    parts: list[Primitive] = []
+    for side, unknown, window in (("start", endpoint.earliest is None, (low, middle)),
+                                  ("end", endpoint.latest is None, (middle, high))):
+        if unknown and window[1] > window[0]:
+            parts += marks.unknown_stretch(EndWindow(*window, side), scale, box, style)
+            used.add("unknown")
+    known = EndWindow(middle if endpoint.earliest is None else low,
+                      middle if endpoint.latest is None else high, "event", centre)
+    drawn = marks.MOMENT_WINDOWS["event"](known, scale, box, style)
+    if drawn:
+        parts += drawn
+        used.add("event window")
+    if scale.start <= centre <= scale.end:      # a window may leave only the band showing
+        parts += marks.point_marker(centre, scale, box, style)
+        used.add("point" if not drawn else "event window")
+    return parts
+
+
+def _window_centre(endpoint, low: float, high: float) -> float:
+    """The likely day, else the middle of the window as written (a side with no bound: as
+    drawn)."""
+    if endpoint.likely is not None:
+        return endpoint.likely
+    return ((endpoint.earliest if endpoint.earliest is not None else low)
+            + (endpoint.latest if endpoint.latest is not None else high)) / 2
 
 
 def _point_centre(endpoint, geometry: DrawnSpan) -> float:
@@ -284,9 +320,11 @@ def _label(placed: PlacedRecord, geometry: DrawnSpan, scale, theme, box, color) 
 def tooltip(record: Record) -> str:
     lines = [record.label or "(no label)"]
     if record.date_text:
-        lines.append(f"written: {record.date_text}")
+        lines.append(f"written: {_written(record)}")
     span = record.span
-    if span is not None:
+    if span is not None and record.is_event:
+        lines.append(_event_window_text(event_endpoint(span.start, span.end)))
+    elif span is not None:
         lines.append(f"possible: {_far_bound(span.start, 'start')} to "
                      f"{_far_bound(span.end, 'end')}")
         core = span.certain_core
@@ -295,6 +333,28 @@ def tooltip(record: Record) -> str:
             lines.append("limited by the longest duration set for it")
     lines.append(f"source: {record.provenance}")
     return "\n".join(lines)
+
+
+def _written(record: Record) -> str:
+    """The cells as written; an event's two cells named as its bounds."""
+    if not (record.is_event and record.end_text):
+        return record.date_text
+    sides = (("not before", record.start_text), ("not after", record.end_text))
+    return "; ".join(f"{name} {text}" for name, text in sides if text)
+
+
+def _event_window_text(endpoint) -> str:
+    """'one moment between … and …', or what is known where a side is not recorded."""
+    earliest, latest = endpoint.earliest, endpoint.latest
+    if earliest is not None and latest is not None:
+        text = f"one moment between {iso_from_fixed(earliest)} and {iso_from_fixed(latest)}"
+    elif latest is not None:
+        text = f"one moment no later than {iso_from_fixed(latest)}; no earliest date recorded"
+    else:
+        text = f"one moment no earlier than {iso_from_fixed(earliest)}; no latest date recorded"
+    if endpoint.likely is not None:
+        text += f"; most likely {iso_from_fixed(endpoint.likely)}"
+    return text
 
 
 def _far_bound(endpoint, side: str) -> str:

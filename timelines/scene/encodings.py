@@ -2,8 +2,10 @@
 
 Every fringe encoder has one signature, `(window, scale, lane, style) -> list[Primitive]`, and is
 registered by name in `FRINGES`; a new encoding is one function, one registry line and one
-geometry test. The other marks (core, open arrow, bound bracket, likely tick, qualifier glyph,
-point) are plain functions with the same arguments where they apply.
+geometry test. A moment's whole window is drawn by one of `MOMENT_WINDOWS`, by the kind of
+record (a dated moment, or an event dated by a window). The other marks (core, open arrow,
+bound bracket, likely tick, qualifier glyph, point) are plain functions with the same
+arguments where they apply.
 """
 from __future__ import annotations
 
@@ -19,11 +21,13 @@ from .scale import TimeScale
 @dataclass(frozen=True, slots=True)
 class EndWindow:
     """An endpoint's window on the drawn axis, in fixed days, `low <= high`; `side` says
-    which end of the span it is (`start` or `end`), so a fade knows which way to fade."""
+    which end of the span it is (`start` or `end`), so a fade knows which way to fade. A
+    moment's window may name the day its marker stands on (`peak`; None: the middle)."""
 
     low: float
     high: float
     side: str
+    peak: float | None = None
 
 
 @dataclass(frozen=True, slots=True)
@@ -94,6 +98,36 @@ def moment_window(window: EndWindow, scale: TimeScale, lane: LaneBox,
     return [Line(x_low, lane.middle, x_high, lane.middle, style.color, 1.5, css_class="fringe"),
             *(Line(x, lane.middle - cap, x, lane.middle + cap, style.color, 1.5,
                    css_class="fringe") for x in (x_low, x_high))]
+
+
+EVENT_PEAK_OPACITY = 0.55   # where an event's window meets its marker: never a solid bar
+EVENT_BAND = 0.7            # of the bar's height: thinner than a span's fringe, read apart
+
+
+def event_window(window: EndWindow, scale: TimeScale, lane: LaneBox,
+                 style: MarkStyle) -> list[Primitive]:
+    """The window an event lies in (one moment between a not-before and a not-after): a band
+    fading from the marker towards both bounds, a hairline at each bound. Not a bar: nothing
+    of it is certain, and it says nothing of how long the event took."""
+    x_low, x_high = scale.x(window.low), scale.x(window.high)
+    if x_high - x_low <= 0:
+        return []
+    peak = (window.low + window.high) / 2 if window.peak is None else window.peak
+    x_peak = min(max(scale.x(peak), x_low), x_high)
+    y, height = lane.middle - lane.height * EVENT_BAND / 2, lane.height * EVENT_BAND
+    near, far = EVENT_PEAK_OPACITY, style.far_opacity
+    parts: list[Primitive] = [
+        GradientRect(left, y, right - left, height, style.color, *opacities,
+                     css_class="event-window")
+        for left, right, opacities in ((x_low, x_peak, (far, near)),
+                                       (x_peak, x_high, (near, far))) if right > left]
+    cap = lane.height * 0.35
+    return parts + [Line(x, lane.middle - cap, x, lane.middle + cap, style.color, 1.0,
+                         css_class="event-window") for x in (x_low, x_high)]
+
+
+# A moment's whole window, by the kind of record: a dated moment, an event.
+MOMENT_WINDOWS: dict[str, Encoder] = {"span": moment_window, "event": event_window}
 
 
 HATCH_SPACING = 4.0   # px between hatch lines, measured along the bar

@@ -35,6 +35,7 @@ ENTRIES = (
     ("likely", "most likely date"),
     ("point", "a dated moment"),
     ("point window", "a moment somewhere on the line"),
+    ("event window", "an event: one moment somewhere in the shaded window, not a duration"),
     ("band fringe", "shaded period; its edge fades where its start or end is uncertain"),
 )
 OUTSIDE_LISTED = 10     # records outside the window named in the note; the rest counted
@@ -124,6 +125,9 @@ def _sample(key: str, theme: Theme, color: str):
                     + marks.likely_tick(6, scale, box, style))
         if key == "point":
             return marks.point_marker(5, scale, box, style)
+        if key == "event window":
+            return (marks.event_window(EndWindow(0, 10, "event", 5), scale, box, style)
+                    + marks.point_marker(5, scale, box, style))
         if key == "point window":
             return (marks.moment_window(EndWindow(1, 9, "end"), scale, box, style)
                     + marks.point_marker(5, scale, box, style))

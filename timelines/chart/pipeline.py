@@ -76,6 +76,7 @@ class ChartOptions:
     longest: str | None = None          # a longest plausible duration bounding open sides
     longest_column: str | None = None   # a column giving each record its own
     date_numbers: str = "years"         # a spreadsheet's numbers in date columns: years or serials
+    events: bool = False                # each row one moment in a window (not-before, not-after)
 
 
 @dataclass(frozen=True, slots=True)
@@ -203,7 +204,7 @@ def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTab
     else:
         columns, header = _detected_columns(table, options.columns), table.header
         loaded = load_records(table, columns, options.settings,          # parse
-                              date_numbers=options.date_numbers)
+                              date_numbers=options.date_numbers, events=options.events)
     loaded, withheld = _withhold(loaded, options.privacy)
     read = ReadTable(loaded, columns, header, withheld)
     return _bound_open_sides(read, options)

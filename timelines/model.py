@@ -253,6 +253,14 @@ def event_endpoint(not_before: Endpoint | None, not_after: Endpoint | None) -> E
     return Endpoint(earliest, latest, _coarser(not_before, not_after), frozenset(qualifiers))
 
 
+def holds(records: Iterable[Record]) -> str:
+    """What dated records are: "events", "spans" (also for none), or "events and spans"."""
+    kinds = {record.kind for record in records if record.span is not None}
+    if kinds == {EVENT}:
+        return "events"
+    return "events and spans" if EVENT in kinds else "spans"
+
+
 def _coarser(*endpoints: Endpoint | None) -> Precision | None:
     """The coarser precision of the endpoints that have one (year before day)."""
     known = [e.precision for e in endpoints if e is not None and e.precision is not None]

@@ -17,7 +17,12 @@ The rules, few on purpose:
 - duplicate id: an id that occurs on more than one row is reported on every later row;
 - long span: a possible extent longer than `CheckLimits.max_extent_years` (default 1000) is
   worth a second look, the usual sign of a mistyped year (`165` for `1650`). Spans with an
-  endpoint of millennium or deep-time precision are exempt: they are long by nature.
+  endpoint of millennium or deep-time precision are exempt: they are long by nature. An
+  event's window is held to the same limit, in words that say it is one moment.
+
+A table of events (`Record.kind`, one moment in a window) is named so: the summary counts
+"events drawn", and a window whose not-after lies before its not-before is a contradiction
+said in those words (by the reader, `sources.records`).
 """
 from __future__ import annotations
 
@@ -25,7 +30,7 @@ from collections import Counter
 from dataclasses import asdict, dataclass, is_dataclass
 from typing import Iterable, Protocol, Sequence
 
-from ..model import Precision, Record, Span
+from ..model import Precision, Record, Span, holds
 
 DAYS_PER_YEAR = 365.2425  # the mean Gregorian year (97 leap days in 400 years)
 _LONG_BY_NATURE = frozenset({Precision.MILLENNIUM, Precision.DEEP_TIME})
@@ -100,6 +105,7 @@ class Report:
     counts: Counts
     undated_rows: tuple[Reportable, ...] = ()  # load problems of kind "undated"
     notes: tuple[Reportable, ...] = ()     # what reading did to the table (merged cells filled)
+    holds: str = "spans"                   # what the dated records are: spans, events, or both
 
     @property
     def ok(self) -> bool:
@@ -125,7 +131,7 @@ class Report:
         """The report as plain data for JSON: counts, summary and each item with its line."""
         counts = asdict(self.counts) | {"reported": self.counts.reported}
         return {
-            "summary": self.summary(), "counts": counts,
+            "summary": self.summary(), "holds": self.holds, "counts": counts,
             "errors": [_item_dict(item) for item in self.errors],
             "undated": [_item_dict(item) for item in self.undated_rows],
             "warnings": [_item_dict(item) for item in self.warnings],
@@ -135,7 +141,8 @@ class Report:
     def summary(self) -> str:
         """E.g. '12 rows read: 10 drawn, 2 reported (1 unreadable, 1 undated); 1 warning'."""
         counts = self.counts
-        text = f"{_plural(counts.rows_read, 'row')} read: {counts.drawn} drawn"
+        drawn = _drawn(counts.drawn, self.holds)
+        text = f"{_plural(counts.rows_read, 'row')} read: {drawn} drawn"
         if counts.reported:
             parts = [f"{number} {name}" for number, name in (
                 (counts.unreadable, "unreadable"), (counts.contradictory, "contradictory"),
@@ -157,7 +164,7 @@ def check(loaded: Loaded | Iterable[Record], limits: CheckLimits = CheckLimits()
     findings = [*findings, *_duplicate_ids(records, errors), *_long_spans(records, limits)]
     findings = tuple(sorted(findings, key=lambda finding: (finding.source, finding.row)))
     counts = _counts(records, errors, rows_read, len(findings))
-    return Report(errors, findings, counts, undated, notes)
+    return Report(errors, findings, counts, undated, notes, holds(records))
 
 
 def _unpack(loaded: Loaded | Iterable[Record]
@@ -178,6 +185,13 @@ def _counts(records: tuple[Record, ...], errors: tuple[Reportable, ...],
     if rows_read is None:
         rows_read = len(records) + unreadable + contradictory
     return Counts(rows_read, drawn, undated, unreadable, contradictory, warnings)
+
+
+def _drawn(drawn: int, held: str) -> str:
+    """The number drawn, named as events where the table holds events."""
+    if held == "events":
+        return _plural(drawn, "event")
+    return f"{drawn} (events and spans)" if held == "events and spans" else str(drawn)
 
 
 def _duplicate_ids(records: tuple[Record, ...], errors: tuple[Reportable, ...]
@@ -233,9 +247,13 @@ def _extent_days(span: Span | None) -> int | None:
 
 def _long_span(record: Record, days: int, limit: int) -> Finding:
     years = round(days / DAYS_PER_YEAR)
+    if record.is_event:
+        said = (f"{record.date_text!r} dates one moment in a window of about {years} years, "
+                f"more than {limit}")
+    else:
+        said = f"{record.date_text!r} may last about {years} years, more than {limit}"
     return Finding(record.provenance.source, record.provenance.row, None, record.id,
-                   f"{record.date_text!r} may last about {years} years, more than {limit}; "
-                   f"is a year mistyped?", "long span")
+                   f"{said}; is a year mistyped?", "long span")
 
 
 def _item_dict(item: Reportable) -> dict:

@@ -261,6 +261,21 @@ def holds(records: Iterable[Record]) -> str:
     return "events and spans" if EVENT in kinds else "spans"
 
 
+def counted(records: Iterable[Record]) -> str:
+    """How many dated records, named by what they are: "3 events", "1 span", "5 records
+    (2 events, 3 spans)"."""
+    kinds = [record.kind for record in records if record.span is not None]
+    events = kinds.count(EVENT)
+    if events and events < len(kinds):
+        return (f"{len(kinds)} records ({_counted(events, EVENT)}, "
+                f"{_counted(len(kinds) - events, SPAN)})")
+    return _counted(len(kinds), EVENT if events else SPAN)
+
+
+def _counted(number: int, kind: str) -> str:
+    return f"{number} {kind}" if number == 1 else f"{number} {kind}s"
+
+
 def _coarser(*endpoints: Endpoint | None) -> Precision | None:
     """The coarser precision of the endpoints that have one (year before day)."""
     known = [e.precision for e in endpoints if e is not None and e.precision is not None]

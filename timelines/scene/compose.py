@@ -14,7 +14,7 @@ from typing import Callable, Sequence
 
 from ..calendar import gregorian_year_from_fixed, year_text
 from ..layout import GroupPlacement, PlacedRecord, Placement
-from ..model import Record
+from ..model import Record, counted
 from .axis import axis_labels_row, draw_axis, draw_top_axis
 from .bands import draw_bands, place_bands, strip_height
 from .bars import draw_record, drawn_spans, stub_days
@@ -213,10 +213,10 @@ def _left_out_row(records: tuple[Record, ...], scale, theme, y: float) -> Group:
 def describe(placement: Placement, scale: TimeScale, theme: Theme, text: ChartText) -> str:
     """The SVG <desc>: how many records, which span of time, which groups; then the subtitle,
     what was left out, the user's notes and the credit."""
-    drawn = sum(len(group.records) for _, group in placement.leaves())
+    drawn = counted(p.record for _, group in placement.leaves() for p in group.records)
     names = [g.name for g in placement.groups if g.name]
     groups = f" in {len(names)} groups ({', '.join(names)})" if names else ""
-    summary = f"Timeline of {drawn} records{groups}, from {time_range(scale, theme)}"
+    summary = f"Timeline of {drawn}{groups}, from {time_range(scale, theme)}"
     return describe_text(summary, text)
 
 

@@ -116,8 +116,25 @@ def _settings(args) -> DateSettings:
 
 
 def _columns(args) -> ColumnMap:
-    return ColumnMap(start=args.start, end=args.end, when=args.when, label=args.label,
+    start = _bound_column(args.start, args.not_before, "start", "not-before", args.when)
+    end = _bound_column(args.end, args.not_after, "end", "not-after", args.when)
+    return ColumnMap(start=start, end=end, when=args.when, label=args.label,
                      group=args.group, color=args.color, id=args.id)
+
+
+def _bound_column(column: str | None, bound: str | None, part: str, option: str,
+                  when: str | None) -> str | None:
+    """The start (end) column, or the one --not-before (--not-after) names: an event's."""
+    if bound is not None and column is not None:
+        raise UsageError(f"give either --{part} or --{option}, not both")
+    if bound is not None and when is not None:
+        raise UsageError(f"give either --when or --{option}, not both")
+    return column if bound is None else bound
+
+
+def _events(args) -> bool:
+    """Whether each row is one event in a window: --events, or a --not-before/--not-after."""
+    return bool(args.events or args.not_before or args.not_after)
 
 
 def _lane_settings(args) -> LaneSettings:
@@ -208,7 +225,7 @@ def _render_options(args) -> ChartOptions:
         text=args.text_mode, privacy=_privacy(args), subtitle=args.subtitle,
         credit=args.credit, notes=tuple(notes), window=_window(args, settings),
         bands=args.bands, facet=args.facet, facet_order=args.facet_order, size=size,
-        date_numbers=args.date_numbers,
+        date_numbers=args.date_numbers, events=_events(args),
         longest=args.longest, longest_column=args.longest_column)
 
 
@@ -274,6 +291,7 @@ def run_lanes(args, parser) -> int:
                            header_row=args.header_row, settings=settings,
                            theme=theme, lanes=_lane_settings(args),
                            window=_window(args, settings), date_numbers=args.date_numbers,
+                           events=_events(args),
                            longest=args.longest, longest_column=args.longest_column,
                            size=parse_size(args.size) if args.size else None)
     chart = Chart.from_options(_input_path(args, parser), options)
@@ -300,7 +318,7 @@ def _print_problems(problems) -> None:
 def run_check(args, parser) -> int:
     options = ChartOptions(columns=_columns(args), sheet=args.sheet,
                            header_row=args.header_row, settings=_settings(args),
-                           date_numbers=args.date_numbers)
+                           date_numbers=args.date_numbers, events=_events(args))
     source = _input_path(args, parser)
     with Progress(1, quiet=args.quiet).step(f"reading {source.name}"):
         report = check(Chart.from_options(source, options).read().loaded)

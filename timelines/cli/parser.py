@@ -121,6 +121,15 @@ def _table_options(parser: argparse.ArgumentParser) -> None:
                           ("label", "labels"), ("group", "the grouping of lanes"),
                           ("color", "the colour category"), ("id", "record identifiers")):
         columns.add_argument(f"--{name}", metavar="COL", help=f"column of {meaning}")
+    for name, side in (("not-before", "earliest"), ("not-after", "latest")):
+        columns.add_argument(f"--{name}", metavar="COL",
+                             help=f"column of each event's {side} date (terminus "
+                                  f"{'post' if side == 'earliest' else 'ante'} quem); "
+                                  "implies --events")
+    parser.add_argument("--events", action="store_true",
+                        help="each row is one moment (a wreck, a find, a letter) somewhere "
+                             "between its start and end (or in its when cell's window), "
+                             "not a span lasting from one to the other")
     parser.add_argument("--sheet", help="sheet of an XLSX/ODS workbook (default: the first)")
     parser.add_argument("--header-row", metavar="N", type=_count(1), default=1,
                         help="the row that names the columns, when a title or notes stand "

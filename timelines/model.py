@@ -197,7 +197,8 @@ class Provenance:
 @dataclass(frozen=True, slots=True)
 class Record:
     """One row of the user's table: its label, its span (None: no usable date), where it
-    came from, its date cells as written, its id, group, colour value and other cells."""
+    came from, its date cells as written, its id, group, colour value and other cells, and
+    its kind: "span", or "event" (one moment in a window, its span a point)."""
 
     label: str
     span: Span | None             # None: no usable date (undated)

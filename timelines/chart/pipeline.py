@@ -76,6 +76,7 @@ class ChartOptions:
     longest: str | None = None          # a longest plausible duration bounding open sides
     longest_column: str | None = None   # a column giving each record its own
     date_numbers: str = "years"         # a spreadsheet's numbers in date columns: years or serials
+    encoding: str | None = None         # of text tables (and --bands): None, found (decoding.py)
     events: bool = False                # each row one moment in a window (not-before, not-after)
 
 
@@ -173,10 +174,13 @@ def output_path(path: str | Path) -> Path:
 
 
 def page_options(options: ChartOptions) -> ChartOptions:
-    """Options with the page width of `size` in the theme, where the layout measures it."""
-    if options.size is None:
-        return options
-    return replace(options, theme=replace(options.theme, width=options.size.width))
+    """Options with what the drawing takes from elsewhere in its theme: the page width of
+    `size` (where the layout measures it) and the calendar the dates were read in (the
+    axis counts in it)."""
+    theme = replace(options.theme, calendar=options.settings.reckoning)
+    if options.size is not None:
+        theme = replace(theme, width=options.size.width)
+    return replace(options, theme=theme)
 
 
 @dataclass(frozen=True, slots=True)
@@ -196,7 +200,8 @@ def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTab
     """Read and parse `data`: a table file's path, a pandas DataFrame, an iterable of rows
     (mappings of column name to cell), or an iterable of Records made by the caller."""
     if isinstance(data, (str, PathLike)):
-        table = read_table(data, options.sheet, header_row=options.header_row)   # read
+        table = read_table(data, options.sheet, header_row=options.header_row,   # read
+                           encoding=options.encoding)
     else:
         table = table_from_data(data)
     if isinstance(table, LoadResult):                                   # records as given
@@ -284,8 +289,8 @@ def arrange_read(read: ReadTable, options: ChartOptions = ChartOptions()) -> Arr
     loaded, columns, header = read.loaded, read.columns, read.header
     report = check(loaded, findings=read.findings)                       # check
     kept, outside = split_by_window(loaded.records, options.window)      # the window
-    bands = (read_bands(options.bands, options.settings, options.date_numbers)
-             if options.bands is not None else None)
+    bands = (read_bands(options.bands, options.settings, options.date_numbers,
+                        options.encoding) if options.bands is not None else None)
     arranged = Arranged(loaded, report, columns, None, None, read.withheld, tuple(outside),
                         bands, bounded=read.bounded)
     dated = [r for r in kept if r.span is not None]
@@ -326,11 +331,12 @@ def _arrange_panels(arranged: Arranged, dated: list[Record], options: ChartOptio
 
 
 def read_bands(source: object, settings: DateSettings = DEFAULT_SETTINGS,
-               date_numbers: str = "years") -> LoadResult:
+               date_numbers: str = "years", encoding: str | None = None) -> LoadResult:
     """The named periods of a `--bands` table (a path, a DataFrame or rows): columns label,
-    start, end (or when)."""
+    start, end (or when); a text file in `encoding`, or as read_table finds it."""
     if isinstance(source, (str, PathLike)):
-        return read_table_records(source, ColumnMap(), settings, date_numbers=date_numbers)
+        return read_table_records(source, ColumnMap(), settings, encoding=encoding,
+                                  date_numbers=date_numbers)
     given = table_from_data(source)
     if isinstance(given, LoadResult):
         return given

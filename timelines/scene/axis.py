@@ -10,7 +10,8 @@ finds the labelled years first. Every element has a class (`grid major`, `grid m
 from __future__ import annotations
 
 from .primitives import Group, Line, Primitive, Text
-from .scale import Tick, TimeScale, ticks
+from ..calendar import GREGORIAN, JULIAN, iso_from_fixed, reform_day
+from .scale import Tick, TimeScale, choose_unit, ticks
 from .textsize import text_width
 from .theme import Theme
 
@@ -49,6 +50,23 @@ def draw_top_axis(scale: TimeScale, theme: Theme, top: float) -> tuple[Group, fl
     return Group(tuple(axis), css_class="axis axis-top"), top + theme.axis_height
 
 
+def calendar_note(scale: TimeScale, theme: Theme) -> str | None:
+    """Which calendar the axis's days and months are in, when it matters: at day or month
+    scale, where Julian dates are shown (a year label is the same in both calendars)."""
+    unit = choose_unit(scale.start, scale.end, era=theme.era, calendar=theme.calendar)
+    if unit.kind == "year" or theme.calendar == GREGORIAN:
+        return None
+    if theme.calendar == JULIAN:
+        return "Days and months on the axis are in the Julian calendar."
+    switch = reform_day(theme.calendar)
+    if scale.start >= switch:
+        return None
+    if scale.end < switch:
+        return "Days and months on the axis are in the Julian calendar."
+    return (f"Days and months on the axis are Julian before {iso_from_fixed(switch)}, "
+            "Gregorian from it on.")
+
+
 def axis_labels_row(scale: TimeScale, theme: Theme, top: float) -> Group:
     """The axis's labels alone, in a row at `top` between two groups of a very tall chart."""
     labels = [_tick_label(tick, scale, theme, top - 12 + 2)
@@ -60,7 +78,7 @@ def axis_ticks(scale: TimeScale, theme: Theme) -> list[Tick]:
     """Ticks in the finest unit whose labels stand apart (at most MAX_TICKS of them, fewer
     on a narrow axis such as a small multiple's), with the minor ticks between."""
     for most in range(MAX_TICKS, 1, -1):
-        found = ticks(scale, era=theme.era, minor=True, max_ticks=most)
+        found = ticks(scale, era=theme.era, minor=True, max_ticks=most, calendar=theme.calendar)
         if _labels_stand_apart([t for t in found if t.major and t.label], scale, theme):
             return found
     return found

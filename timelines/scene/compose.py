@@ -15,7 +15,7 @@ from typing import Callable, Sequence
 from ..calendar import gregorian_year_from_fixed, year_text
 from ..layout import GroupPlacement, PlacedRecord, Placement
 from ..model import Record, counted
-from .axis import axis_labels_row, draw_axis, draw_top_axis
+from .axis import axis_labels_row, calendar_note, draw_axis, draw_top_axis
 from .bands import draw_bands, place_bands, strip_height
 from .bars import draw_record, drawn_spans, stub_days
 from .encodings import LaneBox
@@ -58,8 +58,11 @@ def compose(placement: Placement, scale: TimeScale, theme: Theme, text: ChartTex
     top = plot_top if plot_top is not None else header_bottom
     plot, plot_bottom = draw_plot(placement, scale, theme, top, color_of, used, bands)
     keyed = (("", placement.keyed),) if placement.keyed else ()
-    legend, bottom = legend_and_notes(used, color_key, replace(text, keyed=keyed), theme,
-                                      plot_bottom, width=theme.width)
+    axis_calendar = calendar_note(scale, theme)
+    text = replace(text, keyed=keyed, notes=(*text.notes, axis_calendar) if axis_calendar
+                   else text.notes)
+    legend, bottom = legend_and_notes(used, color_key, text, theme, plot_bottom,
+                                      width=theme.width)
     return Scene(theme.width, bottom + theme.margin, tuple(header + plot + legend),
                  title=text.title or "Timeline", desc=describe(placement, scale, theme, text),
                  background=theme.background, font_family=theme.font_family)

@@ -17,6 +17,7 @@ from dataclasses import dataclass, replace
 from typing import Callable, Sequence
 
 from ..layout import Placement
+from .axis import calendar_note
 from ..model import Record
 from .compose import ChartText, describe_text, draw_plot, slug, time_range
 from .legend import fit_text, heading, legend_and_notes
@@ -67,8 +68,11 @@ def compose_facets(panels: Sequence[Panel], scale: TimeScale, theme: Theme, text
         y += max(height for _, height in drawn) + PANEL_GAP
     keyed = tuple((panel.name or "(none)", panel.placement.keyed) for panel in panels
                   if panel.placement.keyed)
-    legend, bottom = legend_and_notes(used, color_key, replace(text, keyed=keyed), theme,
-                                      y - PANEL_GAP, width=theme.width)
+    axis_calendar = calendar_note(scale, panel_theme)
+    text = replace(text, keyed=keyed, notes=(*text.notes, axis_calendar) if axis_calendar
+                   else text.notes)
+    legend, bottom = legend_and_notes(used, color_key, text, theme, y - PANEL_GAP,
+                                      width=theme.width)
     return Scene(theme.width, bottom + theme.margin, tuple(header + grid + legend),
                  title=text.title or "Timelines", desc=describe_facets(panels, scale, theme,
                                                                        text, facet),

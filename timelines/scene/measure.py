@@ -95,7 +95,7 @@ def chart_scale(dated: list[Record], theme: Theme,
     bounds = [day for span in dict(zip(map(id, spans), spans)).values()
               for day in (span.start.earliest, span.start.latest, span.end.earliest,
                           span.end.latest) if day is not None]
-    low, high = nice_domain(min(bounds), max(bounds), era=theme.era)
+    low, high = nice_domain(min(bounds), max(bounds), era=theme.era, calendar=theme.calendar)
     if window is not None:
         low, high = window.domain(low, high)
     if high <= low:

@@ -29,9 +29,9 @@ import math
 from dataclasses import dataclass
 
 from ..calendar import (
-    CALENDARS, ERAS, GREGORIAN, GREGORIAN_REFORM, HISTORICAL, JULIAN, PRESENT_YEAR,
+    CALENDARS, ERAS, GREGORIAN, JULIAN, PRESENT_YEAR,
     decimal_year_from_fixed, fixed_from_calendar, fixed_from_decimal_year, gregorian_from_fixed,
-    julian_from_fixed, year_text,
+    julian_from_fixed, reform_day, year_text,
 )
 
 MONTH_ABBREVIATIONS = ("Jan", "Feb", "Mar", "Apr", "May", "Jun",
@@ -203,7 +203,7 @@ def _check_options(era: str, calendar: str, max_ticks: int) -> None:
     if era not in ERAS:
         raise ValueError(f"era must be one of {', '.join(ERAS)}, not {era!r}")
     if calendar not in CALENDARS:
-        raise ValueError(f"calendar must be one of {', '.join(CALENDARS)}, not {calendar!r}")
+        reform_day(calendar)           # a historical reckoning with its own reform day, or not
 
 
 def _minor_unit(unit: TickUnit) -> TickUnit | None:
@@ -283,8 +283,11 @@ def _day_ticks(step: int, first: int, last: int, era: str, calendar: str) -> lis
 
 
 def _date_from_fixed(fixed: int, calendar: str) -> tuple[int, int, int]:
-    """(year, month, day) of a fixed day as `calendar` writes it."""
-    if calendar == JULIAN or (calendar == HISTORICAL and fixed < GREGORIAN_REFORM):
+    """(year, month, day) of a fixed day as `calendar` writes it (a historical reckoning is
+    Julian before its reform day)."""
+    if calendar == JULIAN:
+        return julian_from_fixed(fixed)
+    if calendar != GREGORIAN and fixed < reform_day(calendar):
         return julian_from_fixed(fixed)
     return gregorian_from_fixed(fixed)
 

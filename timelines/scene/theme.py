@@ -62,6 +62,10 @@ class Theme:
     fringe: str = "fade"             # encoding of the possible-but-not-certain parts
     fringe_far_opacity: float = 0.12  # how faint a fade gets at the far end of a window
     era: str = "bce"                 # year labels: bce (44 BCE), bc (44 BC), astronomical (-43)
+    # The calendar the axis counts years, months and days in: the one the dates were read in
+    # ("historical": Julian before its reform day), so a tick falls on the day a reader of the
+    # period calls 1 January.
+    calendar: str = "gregorian"
     band_color: str = "#7f7f7f"      # background bands (--bands), alternating two strengths
     band_opacities: tuple[float, float] = (0.16, 0.09)
 

@@ -85,10 +85,13 @@ def test_utf16_text_export_is_read(tmp_path):
 
 
 def test_text_that_is_not_utf8_is_refused_with_advice(tmp_path):
+    # Changed for issue 17: such a file used to be refused when no encoding was named; now it
+    # is read as Windows-1252 with a note (tests/test_encodings_read.py). Naming UTF-8 still
+    # refuses it, with the same message and advice as before.
     path = tmp_path / "legacy.csv"
     path.write_bytes("name,born\nOdile,1650\nAné,1651\n".encode("cp1252"))  # é = 0xE9
     with pytest.raises(SourceError) as caught:
-        read_table(path)
+        read_table(path, encoding="utf-8")
     assert str(caught.value) == "legacy.csv: line 3 is not utf-8 text (byte 0xe9)"
     assert caught.value.hint == "save the file as UTF-8 (in a spreadsheet program: 'CSV UTF-8')"
     assert read_table(path, encoding="cp1252").rows[1] == ("Ané", "1651")

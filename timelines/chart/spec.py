@@ -35,6 +35,7 @@ from ..scene.primitives import TEXT_MODES, Scene
 from ..scene.theme import PALETTES
 from ..calendar import ERAS
 from ..sources import ColumnMap
+from ..sources.decoding import checked_encoding
 from ..sources.serials import DATE_NUMBERS
 from .pipeline import (
     Arranged, ChartOptions, Privacy, ReadTable, arrange_read, arranged_page, color_warning,
@@ -54,19 +55,23 @@ class Chart:
     for one column holding a whole span; `label`, `group` (lanes are packed per group),
     `color` (a column coloured with a colour-blind-safe palette) and `id`. `sheet` picks a
     spreadsheet's sheet by name or number; `header_row` is the row naming the columns when a
-    title or notes stand above it."""
+    title or notes stand above it; `encoding` names a text table's encoding (and a bands
+    table's), by default found: UTF-8, UTF-16 by its mark, else Windows-1252 with a note."""
 
     __slots__ = ("_data", "_options", "_window_text", "_cache")
 
     def __init__(self, data, *, start: str | None = None, end: str | None = None,
                  when: str | None = None, label: str | None = None, group: str | None = None,
                  color: str | None = None, id: str | None = None, sheet: str | None = None,
-                 header_row: int = 1):
+                 header_row: int = 1, encoding: str | None = None):
         columns = ColumnMap(start=start, end=end, when=when, label=label, group=group,
                             color=color, id=id)
         _check_columns(columns)
+        if encoding is not None:
+            checked_encoding(encoding)
         self._data = data
-        self._options = ChartOptions(columns=columns, sheet=sheet, header_row=header_row)
+        self._options = ChartOptions(columns=columns, sheet=sheet, header_row=header_row,
+                                     encoding=encoding)
         self._window_text: tuple[str | None, str | None] = (None, None)
         self._cache: dict[str, object] = {}
 

@@ -220,6 +220,7 @@ def _render_options(args) -> ChartOptions:
     notes = [args.note] if isinstance(args.note, str) else args.note or []  # a config string
     return ChartOptions(
         columns=_columns(args), sheet=args.sheet, header_row=args.header_row,
+        encoding=args.encoding,
         settings=settings, theme=theme, title=title,
         strict=args.strict, dpi=png_dpi(args.dpi, size), lanes=_lane_settings(args),
         text=args.text_mode, privacy=_privacy(args), subtitle=args.subtitle,
@@ -288,7 +289,8 @@ def run_lanes(args, parser) -> int:
     theme = _theme(args)
     settings = _settings(args)
     options = ChartOptions(columns=_columns(args), sheet=args.sheet,
-                           header_row=args.header_row, settings=settings,
+                           header_row=args.header_row, encoding=args.encoding,
+                           settings=settings,
                            theme=theme, lanes=_lane_settings(args),
                            window=_window(args, settings), date_numbers=args.date_numbers,
                            events=_events(args),
@@ -317,7 +319,8 @@ def _print_problems(problems) -> None:
 
 def run_check(args, parser) -> int:
     options = ChartOptions(columns=_columns(args), sheet=args.sheet,
-                           header_row=args.header_row, settings=_settings(args),
+                           header_row=args.header_row, encoding=args.encoding,
+                           settings=_settings(args),
                            date_numbers=args.date_numbers, events=_events(args))
     source = _input_path(args, parser)
     with Progress(1, quiet=args.quiet).step(f"reading {source.name}"):

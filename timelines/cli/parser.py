@@ -18,6 +18,7 @@ from ..scene.encodings import FRINGES
 from ..scene.page import parse_font_size, parse_size
 from ..scene.primitives import TEXT_MODES
 from ..scene.theme import DEFAULT_THEME, PALETTES
+from ..sources.decoding import checked_encoding
 from ..sources.serials import DATE_NUMBERS
 
 DEMO = "fenwold-organ-builders.csv"
@@ -36,7 +37,7 @@ UNSET = {**{part: "found from the header names" for part in
          "bands": "none", "facet": "none", "size": "--width wide, as tall as the chart",
          "font-size": "9pt", "dpi": "150, or 96 with --size in px", "note": "none",
          "max-colors": "every value its own colour", "longest": "none: open ends drawn short",
-         "longest-column": "none"}
+         "longest-column": "none", "encoding": "found: UTF-8, UTF-16, Windows-1252"}
 
 
 class _Parser(argparse.ArgumentParser):
@@ -134,6 +135,10 @@ def _table_options(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("--header-row", metavar="N", type=_count(1), default=1,
                         help="the row that names the columns, when a title or notes stand "
                              "above it (default 1)")
+    parser.add_argument("--encoding", metavar="NAME", type=_encoding, default=None,
+                        help="encoding of a text table and of --bands, such as cp1252 "
+                             "(default: UTF-8, UTF-16 by its mark, else Windows-1252 with "
+                             "a note)")
     parser.add_argument("--date-numbers", choices=DATE_NUMBERS, default="years",
                         help="numbers in a spreadsheet's date columns: years (default; a "
                              "number of five digits or more is refused as a likely date "
@@ -297,6 +302,14 @@ def _resolution(text: str) -> float:
     if not 0 < value <= 2400:
         raise argparse.ArgumentTypeError(f"expected a resolution from 1 to 2400 dpi, not {text!r}")
     return value
+
+
+def _encoding(text: str) -> str:
+    try:
+        return checked_encoding(text)
+    except UsageError as error:
+        hint = f" ({error.hint})" if error.hint else ""
+        raise argparse.ArgumentTypeError(f"{error}{hint}") from None
 
 
 def _count(least: int):

@@ -107,7 +107,8 @@ def frame_cell(value: object) -> object:
 # --- dates as DataFrame columns -------------------------------------------------------------
 
 def read(data, *, start: str | None = None, end: str | None = None, when: str | None = None,
-         settings: DateSettings = DEFAULT_SETTINGS, sheet: str | None = None):
+         settings: DateSettings = DEFAULT_SETTINGS, sheet: str | None = None,
+         encoding: str | None = None):
     """The table as a DataFrame with the bounds of its dates beside each date column.
 
     `data` is a path, a DataFrame or rows; the date columns are `start`/`end` or `when` as
@@ -116,13 +117,15 @@ def read(data, *, start: str | None = None, end: str | None = None, when: str | 
     `C_earliest_day`, `C_latest_day` (fixed day numbers, R.D.), `C_precision`,
     `C_qualifiers` (comma-separated) and `C_error` (why the cell could not be read) follow C;
     for a `when` column also `C_start_latest` and `C_end_earliest`, the ends of the certain
-    part (empty when there is none). An empty cell has empty bounds and no error."""
+    part (empty when there is none). An empty cell has empty bounds and no error. A text
+    file is read in `encoding` when one is named, else as `read_table` decides (UTF-8, UTF-16
+    by its mark, Windows-1252 for bytes that are not UTF-8)."""
     import pandas as pd
 
     from .tables import read_table
 
     register_accessor()
-    table = read_table(data, sheet) if isinstance(data, (str, bytes)) or hasattr(
+    table = read_table(data, sheet, encoding=encoding) if isinstance(data, (str, bytes)) or hasattr(
         data, "__fspath__") else table_from_data(data)
     if isinstance(table, LoadResult):
         raise UsageError("read() takes a table, not Records")

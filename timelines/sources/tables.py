@@ -22,6 +22,7 @@ from datetime import date, datetime
 from pathlib import Path
 
 from ..errors import SourceError, UsageError
+from .decoding import checked_encoding, decoded_text
 from .problems import Problem, row_ranges
 from .serials import DateSystem
 from .sheets import SheetCells
@@ -81,14 +82,16 @@ class Table:
 
 
 def read_table(path: str | Path, sheet: str | int | None = None, *,
-               encoding: str = "utf-8", header_row: int = 1) -> Table:
+               encoding: str | None = None, header_row: int = 1) -> Table:
     """Read a table file; its format follows the extension (see READABLE).
 
     `sheet` picks a spreadsheet's sheet by name, or by its place counted from 1 when it is a
-    number that is not also a sheet's name. Text files are UTF-8 (a byte-order mark is
-    dropped; a UTF-16 mark is honoured) unless `encoding` says otherwise. `header_row` is
-    the row that names the columns (a sheet may have a title and notes above it); rows keep
-    their spreadsheet numbers."""
+    number that is not also a sheet's name. A text file is read in `encoding` when one is
+    named; else UTF-8, or UTF-16 by its byte-order mark, or, for bytes that are not UTF-8,
+    Windows-1252 with a note (decoding.py). `header_row` is the row that names the columns
+    (a sheet may have a title and notes above it); rows keep their spreadsheet numbers."""
+    if encoding is not None:
+        checked_encoding(encoding)
     if header_row < 1:
         raise UsageError(f"the header row is counted from 1, not {header_row}")
     path = Path(path)
@@ -104,8 +107,10 @@ def read_table(path: str | Path, sheet: str | int | None = None, *,
     if sheet is not None:
         raise UsageError(f"{path.name} is a text file and has no sheets",
                          hint="a sheet can be chosen only in an .xlsx, .xlsm or .ods file")
-    cells = _text_cells(path, TEXT_FORMATS[suffix], encoding, header_row - 1)
-    return _from_header_row(path.name, cells, header_row, skipped=0)
+    decoded = decoded_text(path.read_bytes(), path.name, encoding)
+    cells = _text_cells(path, decoded.text, TEXT_FORMATS[suffix], header_row - 1)
+    table = _from_header_row(path.name, cells, header_row, skipped=0)
+    return replace(table, notes=decoded.notes + table.notes) if decoded.notes else table
 
 
 def _from_header_row(source: str, columns: list[list[object]], header_row: int,
@@ -146,10 +151,9 @@ def _title_rows_note(source: str, columns: list[list[object]], skipped: int
                     "note", hint=hint),)
 
 
-def _text_cells(path: Path, delimiter: str | None, encoding: str, skipped: int = 0
+def _text_cells(path: Path, text: str, delimiter: str | None, skipped: int = 0
                 ) -> list[list[object]]:
     """The cells of a text table by column, from its line `skipped` + 1 (the header) on."""
-    text = _decoded_text(path, encoding)
     if skipped:
         lines = text.split("\n", skipped)
         if len(lines) <= skipped:
@@ -231,22 +235,6 @@ def _pandas_columns(text: str, delimiter: str) -> list[list[object]]:
 def _frame_columns(frame) -> list[list[object]]:
     """Each column's cells, the first row's included, as plain Python lists."""
     return [frame[column].tolist() for column in frame.columns]
-
-
-def _decoded_text(path: Path, encoding: str) -> str:
-    raw = path.read_bytes()
-    if raw.startswith((b"\xff\xfe", b"\xfe\xff")):
-        encoding = "utf-16"  # a spreadsheet's "Unicode text" export announces itself this way
-    elif encoding.lower().replace("-", "").replace("_", "") == "utf8":
-        encoding = "utf-8-sig"  # drops the byte-order mark Excel puts before "CSV UTF-8"
-    try:
-        return raw.decode(encoding)
-    except UnicodeDecodeError as error:
-        line = raw[:error.start].count(b"\n") + 1
-        raise SourceError(
-            f"{path.name}: line {line} is not {encoding.removesuffix('-sig')} text "
-            f"(byte 0x{raw[error.start]:02x})",
-            hint="save the file as UTF-8 (in a spreadsheet program: 'CSV UTF-8')") from error
 
 
 def _delimiter_from_header(first_line: str, default: str | None) -> str:

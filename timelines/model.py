@@ -18,6 +18,7 @@ from collections.abc import Iterable, Iterator
 from contextlib import contextmanager
 from dataclasses import MISSING, dataclass, field
 from enum import StrEnum
+from functools import lru_cache
 from itertools import repeat
 from typing import TypeVar
 
@@ -241,17 +242,30 @@ def event_endpoint(not_before: Endpoint | None, not_after: Endpoint | None) -> E
     own (one endpoint for both bounds): a likely not-before is not a likely moment."""
     if not_before is not None and not_before is not_after and not not_before.is_open:
         return not_before
-    qualifiers = set()
-    for endpoint, kept in ((not_before, Qualifier.AFTER), (not_after, Qualifier.BEFORE)):
-        if endpoint is not None:
-            qualifiers |= (endpoint.qualifiers - _SIDE_WORDS) | (endpoint.qualifiers & {kept})
     earliest = None if not_before is None or not_before.is_open else not_before.earliest
     latest = None if not_after is None or not_after.is_open else not_after.latest
-    if earliest is None:
-        qualifiers.add(Qualifier.UNKNOWN_START)
-    if latest is None:
-        qualifiers.add(Qualifier.UNKNOWN_END)
-    return Endpoint(earliest, latest, _coarser(not_before, not_after), frozenset(qualifiers))
+    precision, qualifiers = _event_terms(
+        *((None, None) if not_before is None else (not_before.precision, not_before.qualifiers)),
+        *((None, None) if not_after is None else (not_after.precision, not_after.qualifiers)),
+        earliest is None, latest is None)
+    return Endpoint(earliest, latest, precision, qualifiers)
+
+
+@lru_cache(maxsize=1024)
+def _event_terms(before_precision: Precision | None, before: frozenset | None,
+                 after_precision: Precision | None, after: frozenset | None,
+                 no_earliest: bool, no_latest: bool) -> tuple[Precision | None, frozenset]:
+    """An event's precision (the coarser of its bounds') and qualifiers (the bounds' own,
+    `after` from the not-before, `before` from the not-after, and the sides not known).
+    Few distinct combinations occur, so each is worked out once (speed alone)."""
+    qualifiers = set()
+    for own, kept in ((before, Qualifier.AFTER), (after, Qualifier.BEFORE)):
+        if own is not None:
+            qualifiers |= (own - _SIDE_WORDS) | (own & {kept})
+    qualifiers |= {Qualifier.UNKNOWN_START} if no_earliest else set()
+    qualifiers |= {Qualifier.UNKNOWN_END} if no_latest else set()
+    known = [p for p in (before_precision, after_precision) if p is not None]
+    return max(known, key=_PRECISIONS.index, default=None), frozenset(qualifiers)
 
 
 def holds(records: Iterable[Record]) -> str:
@@ -275,12 +289,6 @@ def counted(records: Iterable[Record]) -> str:
 
 def _counted(number: int, kind: str) -> str:
     return f"{number} {kind}" if number == 1 else f"{number} {kind}s"
-
-
-def _coarser(*endpoints: Endpoint | None) -> Precision | None:
-    """The coarser precision of the endpoints that have one (year before day)."""
-    known = [e.precision for e in endpoints if e is not None and e.precision is not None]
-    return max(known, key=_PRECISIONS.index, default=None)
 
 
 def _iso_or_open(day: int | None) -> str:

@@ -41,7 +41,10 @@ ISO_DATES = [
     ("1985", "1985-01-01", "1985-12-31", YEAR, set()),          # ISO 8601-1 reduced precision, a year (from memory)
     ("+001985-04-12", "1985-04-12", "1985-04-12", DAY, set()),  # ISO 8601-1 expanded representation (from memory)
     ("+001985", "1985-01-01", "1985-12-31", YEAR, set()),       # ISO 8601-1 expanded, a year (from memory)
-    ("-1985", "-1985-01-01", "-1985-12-31", YEAR, set()),       # EDTF Level 1 negative calendar year (from memory)
+    # Changed for issue 17: a bare -1985 is a signed year number, read by the signed-years
+    # setting (BC/AD by default); EDTF's reading of it, with --signed-years astronomical, is
+    # checked in tests/test_signed_years.py. The zero-padded expanded form is ISO's alone.
+    ("-01985", "-1985-01-01", "-1985-12-31", YEAR, set()),      # ISO 8601-1 expanded negative year (from memory)
     ("-0043", "-0043-01-01", "-0043-12-31", YEAR, set()),       # DESIGN §3: signed years are astronomical
     ("+12000", "+12000-01-01", "+12000-12-31", YEAR, set()),    # DESIGN §5 expanded form
     ("-0043-03-15", "-0043-03-15", "-0043-03-15", DAY, set()),  # DESIGN §5 example

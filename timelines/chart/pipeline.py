@@ -43,8 +43,8 @@ from ..scene.primitives import Scene
 from ..scene.scale import TimeScale
 from ..scene.theme import DEFAULT_THEME, Theme
 from ..sources import ColumnMap, LoadResult, detect_columns, load_records, read_table
-from ..sources import read_records as read_table_records
 from ..sources.columns import existing_column
+from ..sources.conventions import signed_year_notes
 from ..sources.fields import column_reader
 from ..sources.tables import TITLE_ROW, Table
 from ..sources.frames import table_from_data
@@ -208,6 +208,7 @@ def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTab
         columns, header, loaded = options.columns, None, table
     else:
         columns, header = _detected_columns(table, options.columns), table.header
+        table = _with_signed_year_notes(table, columns, options.settings)
         loaded = load_records(table, columns, options.settings,          # parse
                               date_numbers=options.date_numbers, events=options.events)
     loaded, withheld = _withhold(loaded, options.privacy)
@@ -335,13 +336,21 @@ def read_bands(source: object, settings: DateSettings = DEFAULT_SETTINGS,
     """The named periods of a `--bands` table (a path, a DataFrame or rows): columns label,
     start, end (or when); a text file in `encoding`, or as read_table finds it."""
     if isinstance(source, (str, PathLike)):
-        return read_table_records(source, ColumnMap(), settings, encoding=encoding,
-                                  date_numbers=date_numbers)
-    given = table_from_data(source)
+        given = read_table(source, encoding=encoding)
+    else:
+        given = table_from_data(source)
     if isinstance(given, LoadResult):
         return given
-    return load_records(given, detect_columns(given.header, ColumnMap()), settings,
+    columns = detect_columns(given.header, ColumnMap())
+    return load_records(_with_signed_year_notes(given, columns, settings), columns, settings,
                         date_numbers=date_numbers)
+
+
+def _with_signed_year_notes(table: Table, columns: ColumnMap,
+                            settings: DateSettings) -> Table:
+    """The table with a note per date column that writes years as signed numbers (-300)."""
+    notes = signed_year_notes(table, columns, settings)
+    return replace(table, notes=table.notes + notes) if notes else table
 
 
 def _withhold(loaded: LoadResult, privacy: Privacy | None) -> tuple[LoadResult, int]:

@@ -6,7 +6,8 @@
 - a date or date-time (`datetime.date`, `datetime.datetime`, `pandas.Timestamp`: anything with
   year, month and day) -> that day; these types are proleptic Gregorian, as is ISO 8601;
 - a whole number (int, or a float such as 1650.0 as spreadsheets store numbers) -> that year,
-  in the calendar setting like the text `1650`; any other number is refused.
+  in the calendar setting like the text `1650`; a negative number or 0 as the signed-years and
+  year-zero settings read the text `-300` or `0` (signed.py); any other number is refused.
 """
 from __future__ import annotations
 
@@ -19,6 +20,7 @@ from ..model import Endpoint, Precision, Span
 from .ranges import parse_endpoint, parse_span
 from .reasons import DATE_HINT, reading
 from .settings import DEFAULT_SETTINGS, DateSettings
+from .signed import negative_year, zero_year
 from .windows import day, digits_about, years
 
 # What cataloguers write for "no date" (n.d., Latin s.d. sine dato): the cell says no date.
@@ -75,6 +77,10 @@ def _integer_text(number: int) -> str:
 
 def _year_cell(year: int, text: str, settings: DateSettings) -> Endpoint:
     with reading(text):
+        if year < 0:
+            return negative_year(-year, text, None, settings)[0]
+        if year == 0:
+            return zero_year(text, None, settings)[0]
         return years(year, year, settings.reckoning, Precision.YEAR)
 
 

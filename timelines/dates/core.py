@@ -20,10 +20,13 @@ from .iso import ISO_DIGIT_FORMS, ISO_FORMS
 from .months import MONTH_FORMS
 from .reasons import Unreadable
 from .settings import DateSettings
+from .signed import SIGNED_YEAR_FORMS
 from .text import YEAR_FORMS
 
-_FORMS = (ISO_DIGIT_FORMS + YEAR_FORMS[:1] + ISO_FORMS + EDTF_FORMS + YEAR_FORMS[1:]
-          + CENTURY_FORMS + MONTH_FORMS + AGE_FORMS)
+# A bare signed number (-300) before the ISO forms, which would claim -1500 and -12000 as
+# astronomical years: only a zero-padded year (-0300) is left to ISO 8601 (signed.py).
+_FORMS = (ISO_DIGIT_FORMS + YEAR_FORMS[:1] + SIGNED_YEAR_FORMS + ISO_FORMS + EDTF_FORMS
+          + YEAR_FORMS[1:] + CENTURY_FORMS + MONTH_FORMS + AGE_FORMS)
 ALL_FORMS = FormTable(_FORMS)
 # With an era (44 BC) only the forms that take one are tried: 0044 BC is a year, not ISO.
 ERA_FORMS = FormTable(tuple(form for form in _FORMS if form.takes_era))
@@ -41,7 +44,8 @@ def read_core(core: str, era: str | None, marker: str | None, settings: DateSett
         without_era = table.match(core) if era is not None else None
         if without_era is not None:
             name = without_era[0].name
-            raise Unreadable(f"an {name} takes no era (BC, AD)", fragment=core,
+            article = "an" if name[0] in "aeiouAEIOU" else "a"
+            raise Unreadable(f"{article} {name} takes no era (BC, AD)", fragment=core,
                              hint=_ISO_YEARS if name.startswith("ISO") else None)
         return None
     form, match = found

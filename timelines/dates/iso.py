@@ -30,6 +30,7 @@ from .clock import check_time
 from .grammar import FLAGS, Form
 from .reasons import Unreadable
 from .settings import DateSettings
+from .signed import note_iso_year
 from .windows import check_year, day, month, years
 
 _MARK = r"[?~%]"   # ISO 8601-2 qualifiers: uncertain, approximate, both
@@ -100,6 +101,7 @@ def _sub_year(year_text: str, code: int, calendar: str, settings: DateSettings) 
 def _calendar_date(year_text: str, month_text: str, day_text: str, calendar: str) -> Endpoint:
     """A complete date, a year-month or a year; the reasons name the year as it was written."""
     year = int(year_text)
+    note_iso_year(year_text, year)
     if not month_text:
         return years(year, year, calendar, Precision.YEAR)
     month_number = month_of(month_text)
@@ -142,6 +144,7 @@ def read_basic(match: re.Match[str], era: str | None, marker: str | None,
 def read_padded_year(match: re.Match[str], era: str | None, marker: str | None,
                      settings: DateSettings) -> Endpoint:
     year = int(match["year"])
+    note_iso_year(match["year"], year)
     return years(year, year, marker or GREGORIAN, Precision.YEAR)
 
 

@@ -15,7 +15,8 @@ from typing import Callable, Mapping
 from ..calendar import CALENDARS
 from .settings import (
     BOUND_READINGS, CENTURY_READINGS, DEFAULT_SETTINGS, HEMISPHERES, HUNDREDS_READINGS,
-    MAX_CIRCA, NAMED_REFORMS, PART_READINGS, SINGLE_VALUE_READINGS, TODAY, DateSettings,
+    MAX_CIRCA, NAMED_REFORMS, PART_READINGS, SIGNED_YEAR_READINGS, SINGLE_VALUE_READINGS,
+    TODAY, YEAR_ZERO_READINGS, DateSettings,
 )
 
 
@@ -138,6 +139,13 @@ OPTIONS: dict[str, _Option] = {
                         _choice(HUNDREDS_READINGS)),
     "present": _Option("present", "the day present/now/today/ongoing in an end cell stand "
                        f"for: {TODAY} or YYYY-MM-DD (default: {TODAY})", _present),
+    "signed-years": _Option("signed_years", "a bare signed year such as -300 counts BC/AD "
+                            "with no year zero (bc: 300 BC) or astronomically (astronomical: "
+                            "301 BC); -0300 is ISO 8601, always astronomical (default: bc)",
+                            _choice(SIGNED_YEAR_READINGS)),
+    "year-zero": _Option("year_zero", "a bare year 0 with signed-years bc: refuse (no such "
+                         "year) or 1bc (read as 1 BC) (default: refuse)",
+                         _choice(YEAR_ZERO_READINGS)),
 }
 
 SETTING_HELP: dict[str, str] = {name: option.help for name, option in OPTIONS.items()}

@@ -17,6 +17,8 @@ PART_READINGS = ("thirds", "overlapping")
 HEMISPHERES = ("northern", "southern")
 SINGLE_VALUE_READINGS = ("unit", "moment")
 HUNDREDS_READINGS = ("century", "decade")
+SIGNED_YEAR_READINGS = ("bc", "astronomical")
+YEAR_ZERO_READINGS = ("refuse", "1bc")
 TODAY = "today"
 # The first Gregorian day of published reforms, by name: the date that followed the last Julian
 # one. From the list of adoption dates of the Gregorian calendar by country (Wikipedia,
@@ -83,6 +85,13 @@ class DateSettings:
     # The day `present`, `now`, `today`, `ongoing` in an end cell stand for: "today" (the
     # local date when the table is read) or YYYY-MM-DD.
     present: str = TODAY
+    # A year written as a bare signed number (-300) or a number cell: "bc" counts BC/AD with
+    # no year zero (-300 = 300 BC, as historians' and archaeologists' tables mean it);
+    # "astronomical" counts a year 0 (-300 = 301 BC). Zero-padded ISO 8601 years (-0300) are
+    # astronomical whatever this says (signed.py).
+    signed_years: str = "bc"
+    # A bare 0 as a year under "bc": "refuse" (the year does not exist) or "1bc".
+    year_zero: str = "refuse"
 
     def __post_init__(self) -> None:
         _check_choice("calendar", self.calendar, CALENDARS)
@@ -92,6 +101,8 @@ class DateSettings:
         _check_choice("hemisphere", self.hemisphere, HEMISPHERES)
         _check_choice("single_value", self.single_value, SINGLE_VALUE_READINGS)
         _check_choice("hundreds", self.hundreds, HUNDREDS_READINGS)
+        _check_choice("signed_years", self.signed_years, SIGNED_YEAR_READINGS)
+        _check_choice("year_zero", self.year_zero, YEAR_ZERO_READINGS)
         if self.present != TODAY:
             present_setting_day(self.present)
         if self.day_first not in (None, True, False):

@@ -3,8 +3,9 @@
 calendar the text names. Any letter case. Each form may carry an era (`44 BC`, `44 BCE`,
 `44 B.C.`, `AD 1066`, `1066 AD`, `1066 CE`), which `frame.py` takes off first.
 
-- a year `1650`, `44`: digits alone are astronomical years as in ISO 8601 (`0` is 1 BC); with
-  an era there is no year zero (`0 BC` is refused). More than four digits need an era
+- a year `1650`, `44`: digits alone are years AD; `0` alone is the year zero, which BC/AD
+  counting lacks, read as the signed-years and year-zero settings say (signed.py); with an
+  era there is no year zero (`0 BC` is refused). More than four digits need an era
   (`12,000 BC` may group thousands). Digits alone are also ISO 8601 when only ISO could mean
   them (iso.py): a year padded with zeros to four digits (`0044`), seven digits (ordinal
   `1985102`), eight (basic `19850412`). Years are numbered from the year-start setting
@@ -29,6 +30,7 @@ from .grammar import FLAGS, Form
 from .oldstyle import LAST_DUAL_YEAR, dual_year, dual_year_endpoint, year_window
 from .reasons import Unreadable
 from .settings import DateSettings
+from .signed import is_zero_digits, zero_year
 from .windows import MAX_YEAR_DIGITS, years
 
 DIGITS = re.compile(rf"""
@@ -58,6 +60,8 @@ def read_digits(match: re.Match[str], era: str | None, marker: str | None,
     if era is None and len(digits) > 4:
         raise Unreadable("a year of more than four digits needs a sign (+12000) "
                          "or an era (12000 BC)", fragment=digits)
+    if era is None and is_zero_digits(digits):
+        return zero_year(digits, marker, settings)[0]
     return year_window(written_year(digits, era), marker or settings.reckoning, settings)
 
 

@@ -41,8 +41,9 @@ def normalise(text: str) -> str:
     return " ".join(text.split())
 
 
+# U+2212, the minus sign of typeset tables (-300), is a hyphen-minus to the readers.
 _PLAIN_PUNCTUATION = str.maketrans({"\u2019": "'", "\u2018": "'", "\u2010": "-", "\u2011": "-",
-                                    "\u00a0": " ", "\u202f": " "})
+                                    "\u2212": "-", "\u00a0": " ", "\u202f": " "})
 
 
 def check_year(year: int) -> int:

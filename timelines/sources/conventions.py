@@ -4,12 +4,21 @@
 1600-1609 to some (a table written by a program that names decades by their first year). The
 hundreds setting decides; one note per date column names the rows that depend on it, so that
 a reader can check them.
+
+`-300`, a year written as a signed number, is 300 BC to most historians and archaeologists
+and 301 BC to ISO 8601 (dates/signed.py). The signed-years setting decides; one note per date
+column names the rows that depend on it.
 """
 from __future__ import annotations
 
+import re
+
 from ..dates.settings import DateSettings
 from ..dates.text import writes_hundreds
+from .columns import ColumnMap
 from .problems import Problem, row_ranges
+from .serials import LARGEST_YEAR_NUMBER
+from .tables import Table, cell_text
 
 _READINGS = {"century": ("centuries", "1600–1699", "decade", "1600–1609"),
              "decade": ("decades", "1600–1609", "century", "1600–1699")}
@@ -37,3 +46,58 @@ def _note(source: str, column: str, found: list[int], example: str,
               f"{row_ranges(found)})")
     hint = (f"--hundreds {other} reads 1600s as {other_reading}; writing {reading} says which")
     return Problem(source, found[0], column, None, example.strip(), reason, "note", hint)
+
+
+# A year written as a bare signed number inside a cell's text: -300, c. -300, -300 – -200; not
+# the end of a range (1650-1660), a day (12-Apr-1650) or a zero-padded ISO year (-0300).
+SIGNED_NUMBER = re.compile(r"(?<![0-9A-Za-z])[-\u2212][1-9][0-9]*(?![0-9])")
+ZERO_YEAR = re.compile(r"[-+\u2212]?0{1,3}")     # 0, -0, 000; not ISO's 0000
+_SIGN_READINGS = {"bc": ("BC/AD years with no year zero", "300 BC", "astronomical",
+                         "301 BC, as ISO 8601 does", "300 BC"),
+                  "astronomical": ("astronomical years, as ISO 8601 counts them", "301 BC",
+                                   "bc", "300 BC", "301 BC")}
+
+
+def signed_year_notes(table: Table, columns: ColumnMap,
+                      settings: DateSettings) -> tuple[Problem, ...]:
+    """One note for the table when its date columns write years as signed numbers (-300, or
+    a negative number cell), naming the columns and rows: the signed-years setting decided
+    what they mean."""
+    zero_read = settings.signed_years == "astronomical" or settings.year_zero == "1bc"
+    found: dict[str, list[int]] = {}
+    for name in dict.fromkeys((columns.start, columns.end, columns.when)):
+        if name is not None and name in table.header:
+            cells = table.columns[table.header.index(name)]
+            rows = [index + table.first_row for index, value in enumerate(cells)
+                    if _writes_signed_year(value) or zero_read and _writes_zero(value)]
+            if rows:
+                found[name] = rows
+    return (_signed_note(table.source, found, settings),) if found else ()
+
+
+def _writes_signed_year(value: object) -> bool:
+    if type(value) is str:
+        return ("-" in value or "\u2212" in value) and SIGNED_NUMBER.search(value) is not None
+    return type(value) in (int, float) and -LARGEST_YEAR_NUMBER <= value < 0
+
+
+def _writes_zero(value: object) -> bool:
+    """A year 0 that the settings read (as 1 BC): a number cell 0, or 0 written bare."""
+    if type(value) is str:
+        return ZERO_YEAR.fullmatch(value.strip()) is not None
+    return type(value) in (int, float) and value == 0
+
+
+def _signed_note(source: str, found: dict[str, list[int]], settings: DateSettings) -> Problem:
+    reading, meaning, other, other_meaning, written = _SIGN_READINGS[settings.signed_years]
+    count = sum(map(len, found.values()))
+    cells = "a cell writes" if count == 1 else f"{count} cells write"
+    where = "; ".join(f"{name!r} {row_ranges(rows)}" for name, rows in found.items())
+    zero = ", 0 = 1 BC" if settings.signed_years == "astronomical" or (
+        settings.year_zero == "1bc") else ""
+    reason = (f"{cells} a year as a signed number, read as {reading} (-300 = {meaning}"
+              f"{zero}; {where})")
+    hint = (f"--signed-years {other} reads -300 as {other_meaning}; writing {written} "
+            "says which")
+    first = min(min(rows) for rows in found.values())
+    return Problem(source, first, None, None, "", reason, "note", hint)

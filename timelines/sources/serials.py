@@ -4,10 +4,12 @@ A spreadsheet stores a date as a number of days, shown as a date only by the cel
 date-formatted cell arrives as a `datetime`; a number in a "General" cell arrives as the
 number, and 45123 is then either the year 45123 or the day 2023-07-16. `date_numbers` decides:
 
-- "years" (the default): a number is a year, as 1650 in a cell usually is. A number of five
-  digits or more is refused, as the text `45123` is, and the message says which day it would be
-  as a serial: Excel's serials pass 9999 in May 1927, so such a number is far more often a
-  date that lost its format than a year;
+- "years" (the default): a number is a year, as 1650 in a cell usually is; a negative one or
+  0 as the signed-years and year-zero settings read the text `-300` or `0` (dates/signed.py).
+  A number of five digits or more is refused, as the text `45123` is, and the message says
+  which day it would be as a serial: Excel's serials pass 9999 in May 1927, so such a number
+  is far more often a date that lost its format than a year; a negative one (-91246) is a
+  day before 1900 as openpyxl and LibreOffice count them, or a year before 9999 BC;
 - "serials": every number of a date column is a day counted in the workbook's date system.
 
 Date systems (from memory: Microsoft, "Date systems in Excel" and "Excel incorrectly assumes
@@ -115,14 +117,20 @@ def _as_serial(number: int | float, system: DateSystem) -> object:
 
 
 def _as_year(number: int | float, system: DateSystem) -> object:
-    if not number > LARGEST_YEAR_NUMBER or math.isinf(number):
+    """A number as a year (negative ones as the signed-years setting reads them), or why a
+    number of more than four digits is refused: as a date serial it names a day."""
+    if not abs(number) > LARGEST_YEAR_NUMBER or math.isinf(number):
         return number
     text = _number_text(number)
     hint = f"{DATE_NUMBERS_OPTION} serials reads the numbers of date columns as date serials"
     day = day_from_serial(number, system)
-    if isinstance(day, datetime):
-        shown = day.date().isoformat() if day.time() == time() else day.isoformat(sep=" ")
-        return UnreadableCell(text, f"{text} looks like a date serial ({shown} in "
-                              f"{system.name}), not a year", text, hint)
-    return UnreadableCell(text, "a year of more than four digits is written as text with a "
-                          "sign (+12000) or an era (12000 BC)", text)
+    if not isinstance(day, datetime):
+        return UnreadableCell(text, "a year of more than four digits is written as text "
+                              "with a sign (+12000) or an era (12000 BC)", text)
+    shown = day.date().isoformat() if day.time() == time() else day.isoformat(sep=" ")
+    if number < 0:   # openpyxl and LibreOffice write days before 1900 so: 1650 is -91246
+        return UnreadableCell(text, f"{text} is a date serial ({shown} in {system.name}) or "
+                              "a year before 9999 BC", text, "write such a year as text, "
+                              f"such as 12000 BC; {hint}")
+    return UnreadableCell(text, f"{text} looks like a date serial ({shown} in "
+                          f"{system.name}), not a year", text, hint)

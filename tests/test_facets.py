@@ -9,7 +9,8 @@ import pytest
 from timelines.chart import ChartOptions, arrange, arranged_scene
 from timelines.cli.commands import main
 from timelines.errors import UsageError
-from timelines.scene.facets import grid_columns, panel_width, shifted
+from timelines.scene.facets import grid_columns, panel_width
+from timelines.scene.primitives import shifted
 from timelines.scene.primitives import GradientRect, Group, Line, Polygon, Rect, Text, find, walk
 from timelines.sources import ColumnMap
 

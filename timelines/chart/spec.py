@@ -26,7 +26,7 @@ from ..check.report import Report
 from ..dates import DateSettings, settings_from_options
 from ..errors import TimelineError, UsageError, did_you_mean
 from ..layout import LaneSettings
-from ..render import output_format, write, write_to
+from ..render import output_format, write, write_pages, write_to
 from ..scene.coverage import missing_glyph_notes
 from ..scene.encodings import FRINGES
 from ..scene.fonts import font_list
@@ -39,7 +39,7 @@ from ..sources.decoding import checked_encoding
 from ..sources.serials import DATE_NUMBERS
 from .pipeline import (
     Arranged, ChartOptions, Privacy, ReadTable, arrange_read, arranged_page, color_warning,
-    duration_days, page_options, parse_window, read_source,
+    duration_days, page_options, paged_scenes, parse_window, read_source,
 )
 
 _COLUMN_PARTS = tuple(f.name for f in fields(ColumnMap))
@@ -170,10 +170,11 @@ class Chart:
         return self._with(theme=theme)
 
     def page(self, *, size: str | None = None, dpi: float | None = None,
-             text: str | None = None) -> "Chart":
+             text: str | None = None, pages: bool | None = None) -> "Chart":
         """The page: size ("180x120mm", "7x5in", "1200x800px" or a width alone), dpi of a
         PNG (default 150, or 96 for a size in px), and SVG text as "text" or "paths" (glyph
-        outlines, for print shops)."""
+        outlines, for print shops); pages: a PDF split into pages at group breaks, each the
+        size's height (an A4 page of the chart's width without one), the axis on every page."""
         _check_choice(text, TEXT_MODES, "text")
         changes: dict[str, object] = {}
         if size is not None:
@@ -182,6 +183,8 @@ class Chart:
             changes["dpi"] = png_dpi(dpi, changes.get("size", self._options.size))
         if text is not None:
             changes["text"] = text
+        if pages is not None:
+            changes["pages"] = pages
         return self._with(**changes)
 
     def ends(self, *, longest: str | None = None, column: str | None = None) -> "Chart":
@@ -294,13 +297,26 @@ class Chart:
             path = Path(target)
             suffix = output_format(path if format is None else path.with_suffix("." + format))
             self._check_strict()
-            write(self.scene(), path, dpi=self.options.dpi, text=self.options.text,
-                  format=suffix)
+            if self._options.pages:
+                write_pages(self.pages(), path if suffix == ".pdf" else path.with_suffix(suffix))
+            else:
+                write(self.scene(), path, dpi=self.options.dpi, text=self.options.text,
+                      format=suffix)
             return path
         suffix = output_format(Path("chart." + (format or _name_suffix(target))))
         self._check_strict()
-        write_to(self.scene(), target, suffix, dpi=self.options.dpi, text=self.options.text)
+        if self._options.pages and suffix == ".pdf":
+            from ..render.mpl import render_pdf_pages
+            render_pdf_pages(self.pages(), target)
+        else:
+            write_to(self.scene(), target, suffix, dpi=self.options.dpi,
+                     text=self.options.text)
         return None
+
+    def pages(self) -> list[Scene]:
+        """The chart split into pages at group breaks, the axis under each page's lanes (what
+        `save` writes as a PDF with `page(pages=True)`)."""
+        return paged_scenes(self.layout(), self._fitted(), self.options)
 
     def to_svg(self) -> str:
         """The chart as SVG text."""

@@ -173,6 +173,8 @@ def run_render(args, parser) -> int:
     if args.size and args.width != DEFAULT_THEME.width:
         parser.error("give either --size or --width, not both")
     output_path(args.output)                                # fail before any work
+    if args.pages and Path(args.output).suffix.lower() != ".pdf":
+        parser.error("--pages writes a PDF: give -o OUT.pdf")
     chart = Chart.from_options(_input_path(args, parser), _render_options(args))
     progress = Progress(4, quiet=args.quiet)
     arranged = _laid_out(chart, progress)
@@ -226,7 +228,7 @@ def _render_options(args) -> ChartOptions:
         text=args.text_mode, privacy=_privacy(args), subtitle=args.subtitle,
         credit=args.credit, notes=tuple(notes), window=_window(args, settings),
         bands=args.bands, facet=args.facet, facet_order=args.facet_order, size=size,
-        date_numbers=args.date_numbers, events=_events(args),
+        date_numbers=args.date_numbers, pages=args.pages, events=_events(args),
         longest=args.longest, longest_column=args.longest_column)
 
 

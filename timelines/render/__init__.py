@@ -42,6 +42,18 @@ def write(scene: Scene, path: str | Path, dpi: float = 150.0, text: str = "text"
         write_to(scene, file, suffix, dpi=dpi, text=text)
 
 
+def write_pages(scenes: list[Scene], path: str | Path) -> None:
+    """Write `scenes` as the pages of one PDF at `path`, whole or not at all."""
+    from .mpl import render_pdf_pages
+
+    path = Path(path)
+    if output_format(path) != ".pdf":
+        raise UsageError(f"cannot write {path.name!r} in pages: pages are for a PDF",
+                         hint="give an output ending in .pdf")
+    with replacing(path) as file:
+        render_pdf_pages(scenes, file)
+
+
 def write_to(scene: Scene, file: BinaryIO, suffix: str, dpi: float = 150.0,
              text: str = "text") -> None:
     """Write `scene` to a binary file object (a text one takes SVG only)."""

@@ -74,6 +74,18 @@ def render_pdf(scene: Scene, path: str | Path) -> None:
         )
 
 
+def render_pdf_pages(scenes: list[Scene], path) -> None:
+    """Write the scenes as the pages of one PDF, each its own size (the first page's title and
+    description stand for the document)."""
+    from matplotlib.backends.backend_pdf import PdfPages
+
+    with _local_settings(), _quiet_fonts(), PdfPages(
+            path, metadata=_pdf_metadata(scenes[0])) as pages:
+        for scene in scenes:
+            figure = _figure(scene)
+            pages.savefig(figure, facecolor=figure.get_facecolor())
+
+
 @contextlib.contextmanager
 def _quiet_fonts():
     """matplotlib's per-glyph "Glyph N missing from font(s)" warnings and "findfont" log lines

@@ -17,11 +17,11 @@ from dataclasses import dataclass, replace
 from typing import Callable, Sequence
 
 from ..layout import Placement
-from .axis import calendar_note
 from ..model import Record
+from .axis import calendar_note
 from .compose import ChartText, describe_text, draw_plot, slug, time_range
 from .legend import fit_text, heading, legend_and_notes
-from .primitives import GradientRect, Group, Line, Polygon, Primitive, Rect, Scene, Text
+from .primitives import Group, Primitive, Scene, Text, shifted
 from .scale import TimeScale
 from .theme import Theme
 
@@ -100,17 +100,3 @@ def describe_facets(panels: Sequence[Panel], scale: TimeScale, theme: Theme, tex
     summary = (f"Small multiples{by}: {len(panels)} timelines ({names}) of {drawn} records "
                f"in all, each from {time_range(scale, theme)}")
     return describe_text(summary, text)
-
-
-def shifted(item: Primitive, dx: float, dy: float) -> Primitive:
-    """`item` moved by (dx, dy) page px, groups with all they hold."""
-    if isinstance(item, Group):
-        return replace(item, children=tuple(shifted(child, dx, dy) for child in item.children))
-    if isinstance(item, Line):
-        return replace(item, x1=item.x1 + dx, y1=item.y1 + dy, x2=item.x2 + dx,
-                       y2=item.y2 + dy)
-    if isinstance(item, Polygon):
-        return replace(item, points=tuple((x + dx, y + dy) for x, y in item.points))
-    if isinstance(item, (Rect, GradientRect, Text)):
-        return replace(item, x=item.x + dx, y=item.y + dy)
-    raise TypeError(f"cannot move a {type(item).__name__}")

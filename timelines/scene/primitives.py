@@ -7,7 +7,7 @@ downward, as on a page. Colours are `#rrggbb` strings; opacity is a separate num
 from __future__ import annotations
 
 import re
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from typing import Union
 
 PX_PER_INCH = 96.0
@@ -174,3 +174,17 @@ def drawable_text(text: str) -> str:
     """Text as it is drawn: cleaned, XML whitespace collapsed, ends trimmed. Every renderer
     draws this same string, so SVG, PNG and PDF show identical text."""
     return _WHITESPACE.sub(" ", clean_text(text)).strip()
+
+
+def shifted(item: Primitive, dx: float, dy: float) -> Primitive:
+    """`item` moved by (dx, dy) page px, groups with all they hold."""
+    if isinstance(item, Group):
+        return replace(item, children=tuple(shifted(child, dx, dy) for child in item.children))
+    if isinstance(item, Line):
+        return replace(item, x1=item.x1 + dx, y1=item.y1 + dy, x2=item.x2 + dx,
+                       y2=item.y2 + dy)
+    if isinstance(item, Polygon):
+        return replace(item, points=tuple((x + dx, y + dy) for x, y in item.points))
+    if isinstance(item, (Rect, GradientRect, Text)):
+        return replace(item, x=item.x + dx, y=item.y + dy)
+    raise TypeError(f"cannot move a {type(item).__name__}")

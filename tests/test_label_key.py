@@ -8,7 +8,7 @@ import numpy as np
 from timelines import Chart
 from timelines.cli import main
 from timelines.layout.labels import LABEL_SIDES, label_boxes
-from timelines.scene.primitives import Text, walk
+from timelines.scene.primitives import Group, Text, walk
 
 # A bar filling the domain leaves no room beside it for a label, and a bar near its end none
 # for the label on the right.
@@ -36,7 +36,21 @@ ROWS = [{"name": "Hanne Pellory", "start": "1784", "end": "1791"},
         {"name": "Odile Varrin", "start": "1786", "end": "1791"}]
 
 
-def test_key_numbers_are_drawn_and_spelled_out_under_the_chart():
+def test_a_label_too_long_for_its_side_is_shortened_with_an_ellipsis():
+    chart = Chart(ROWS, label="name").page(size="110mm").style(font_size=9)
+    texts = [t for t in walk(chart.scene().children) if isinstance(t, Text)]
+    [short] = [t.text for t in texts if t.text.endswith("…") and t.css_class == "label"]
+    assert ROWS[1]["name"].startswith(short[:-1]) and len(short) > 10
+    assert not [t for t in texts if t.css_class == "label key"]
+    [record] = [g for g in walk(chart.scene().children) if isinstance(g, Group)
+                and g.css_class == "record" and g.title.startswith("Mattias")]
+    assert record.title.splitlines()[0] == ROWS[1]["name"]      # whole in the tooltip
+
+
+def test_key_numbers_are_drawn_and_spelled_out_under_the_chart(monkeypatch):
+    from timelines.layout import boxes
+
+    monkeypatch.setattr(boxes, "SHORTEST_SHOWN", 10_000)     # no label may be shortened
     chart = Chart(ROWS, label="name").page(size="85mm").style(font_size=9)
     texts = [t for t in walk(chart.scene().children) if isinstance(t, Text)]
     keys = [t.text for t in texts if t.css_class == "label key"]

@@ -17,7 +17,7 @@ from operator import attrgetter
 import numpy as np
 
 from ..model import Record, Span
-from .labels import label_boxes
+from .labels import LABEL_SIDES, label_boxes
 
 
 @dataclass(frozen=True, slots=True)
@@ -30,6 +30,7 @@ class Boxes:
     bar_start: np.ndarray
     bar_end: np.ndarray
     side: np.ndarray
+    shown: list[str] | None = None     # a label shortened to fit ("" where it is whole)
 
     def box(self, index: int) -> tuple[float, float]:
         return float(self.box_start[index]), float(self.box_end[index])
@@ -70,7 +71,48 @@ class BoxMeasure:
         widths = np.array([self._width(label) for label in distinct_labels], dtype=float)
         found = label_boxes(labels, bars, widths[_codes(labels, distinct_labels)], self.domain,
                             self.label_pad, rooms, self.clearance, self.mode, self.key_width)
-        return Boxes(found.start, found.end, bars[:, 0], bars[:, 1], found.side)
+        shown = self._shorten(labels, bars, found) if self.mode == "beside" else None
+        return Boxes(found.start, found.end, bars[:, 0], bars[:, 1], found.side, shown)
+
+    def _shorten(self, labels: list[str], bars: np.ndarray, found) -> list[str] | None:
+        """Labels with no room whole beside their bars, shortened with an ellipsis where at
+        least SHORTEST_SHOWN characters fit (right, else left): their boxes and sides are
+        changed in place; the shortened texts are returned ("" for the rest)."""
+        short = np.flatnonzero(np.isin(found.side, _NOT_BESIDE))
+        if not len(short):
+            return None
+        shown = [""] * len(labels)
+        low, high = self.domain
+        for index in short.tolist():
+            label, (start, end) = labels[index], bars[index]
+            for side, room in ((_RIGHT, high - end - self.label_pad),
+                               (_LEFT, start - self.label_pad - low)):
+                text = self._fitting(label, room)
+                if text:
+                    width = self._width(text)
+                    if side == _RIGHT:
+                        found.end[index] = end + self.label_pad + width + self.clearance
+                    else:
+                        found.start[index] = start - self.label_pad - width - self.clearance
+                    found.side[index], shown[index] = side, text
+                    break
+        return shown
+
+    def _fitting(self, label: str, room: float) -> str | None:
+        """The longest start of `label` with an ellipsis that is at most `room` wide, if it
+        keeps SHORTEST_SHOWN characters (a shorter stub says less than a key number)."""
+        if len(label.strip()) <= SHORTEST_SHOWN:
+            return None
+        low, high = SHORTEST_SHOWN, len(label) - 1
+        if self._width(label[:low].rstrip() + "…") > room:
+            return None
+        while low < high:
+            middle = (low + high + 1) // 2
+            if self._width(label[:middle].rstrip() + "…") <= room:
+                low = middle
+            else:
+                high = middle - 1
+        return label[:low].rstrip() + "…"
 
     def _width(self, label: str) -> float:
         if label not in self.widths:
@@ -99,4 +141,9 @@ def _codes(values: list, distinct: dict) -> np.ndarray:
 
 
 _NO_ROOM = (math.nan, math.nan)
+# A label shortened below this many characters says less than a key number: it gets one.
+# Common practice, no source.
+SHORTEST_SHOWN = 10
+_RIGHT, _LEFT = LABEL_SIDES.index("right"), LABEL_SIDES.index("left")
+_NOT_BESIDE = [LABEL_SIDES.index(side) for side in ("none", "key right", "key left")]
 _SPAN, _LABEL = attrgetter("span"), attrgetter("label")

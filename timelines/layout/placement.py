@@ -29,6 +29,7 @@ from __future__ import annotations
 import math
 from collections.abc import Callable, Iterable, Iterator
 from dataclasses import dataclass, field
+from itertools import repeat
 from operator import attrgetter
 
 import numpy as np
@@ -96,6 +97,7 @@ class PlacedRecord:
     label_side: str   # "inside", "right", "left", "key right"/"key left" (a number spelled out
     #                   under the chart) or "none" (left out; kept in the tooltip)
     key: int = 0      # with a key side: its number, 1, 2, ... in drawing order
+    shown: str = ""   # the label as drawn when shortened to fit ("" when whole)
 
 
 @dataclass(frozen=True, slots=True)
@@ -288,10 +290,11 @@ def _placed(records: tuple[Record, ...], boxes: Boxes, lanes: list[int],
 
     sides = column([LABEL_SIDES[side] for side in boxes.side.tolist()])
     keys = [next(measure.keys) if side.startswith("key") else 0 for side in sides]
+    shown = column(boxes.shown) if boxes.shown is not None else repeat("")
     return many(PlacedRecord, len(kept), record=column(records), lane=column(lanes),
                 box_start=column(boxes.box_start), box_end=column(boxes.box_end),
                 bar_start=column(boxes.bar_start), bar_end=column(boxes.bar_end),
-                label_side=sides, key=keys)
+                label_side=sides, key=keys, shown=shown)
 
 
 def _path_text(path: tuple[str, ...]) -> str:

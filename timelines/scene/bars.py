@@ -296,7 +296,7 @@ def _label(placed: PlacedRecord, geometry: DrawnSpan, scale, theme, box, color) 
     if placed.label_side == "none" or not placed.record.label:
         return []
     baseline = box.middle + theme.font_size * 0.36
-    label = placed.record.label
+    label = placed.shown or placed.record.label         # shortened with an ellipsis to fit
     if placed.label_side == "inside":
         # layout puts a label inside only when it fits on the solid core
         x = scale.x(geometry.start_high) + theme.label_pad

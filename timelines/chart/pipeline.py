@@ -39,6 +39,7 @@ from ..scene.measure import (
 )
 from ..scene.fonts import font_list
 from ..scene.page import FittedPage, PageSize, fit_height, font_note
+from ..scene.pages import split_pages
 from ..scene.primitives import Scene
 from ..scene.scale import TimeScale
 from ..scene.theme import DEFAULT_THEME, Theme
@@ -73,6 +74,7 @@ class ChartOptions:
     facet: str | None = None            # a column: one small timeline per value
     size: PageSize | None = None        # the page; its width overrides the theme's
     facet_order: str = "first"          # first, name, size, or facet values separated by commas
+    pages: bool = False                 # a PDF split into pages at group breaks
     longest: str | None = None          # a longest plausible duration bounding open sides
     longest_column: str | None = None   # a column giving each record its own
     date_numbers: str = "years"         # a spreadsheet's numbers in date columns: years or serials
@@ -164,6 +166,19 @@ def render(source: str | Path, output: str | Path, options: ChartOptions = Chart
     first_font = font_list(options.theme.font_family)[0]     # the list's first family
     warnings = tuple(w for w in (page.warning, font_note(first_font)) if w)
     return RunResult(arranged.loaded, arranged.report, page.scene, output, arranged, warnings)
+
+
+def paged_scenes(arranged: Arranged, page: FittedPage, options: ChartOptions) -> list[Scene]:
+    """The chart as pages at group breaks (`scene.pages`), each as tall as the --size height
+    or, without one, an A4 page of the chart's width (ISO 216: 210 x 297 mm)."""
+    if arranged.panels:
+        raise UsageError("--pages splits a chart of one panel", hint="leave out --facet")
+    if arranged.bands is not None:
+        raise UsageError("--pages does not split a chart with --bands yet",
+                         hint="leave out --bands, or write one tall page")
+    size = options.size
+    height = size.height if size and size.height else page.scene.width * 297 / 210
+    return split_pages(page.scene, arranged.scale, page.theme, height)
 
 
 def output_path(path: str | Path) -> Path:

@@ -138,3 +138,32 @@ def test_a_chart_taller_than_viewers_show_says_what_to_do():
     chart = Chart(_register(3000, 3), group="craft", label="name").lanes(pack="single")
     [note] = [w for w in chart.warnings if "more than many viewers show" in w]
     assert "--max-lanes" in note and "--facet" in note
+
+
+def test_each_group_may_have_its_own_longest_duration(tmp_path, capsys):
+    rows = [{"name": "Yorick", "born": "1650", "died": "", "standing": "Apprentice"},
+            {"name": "Zelda", "born": "1650", "died": "", "standing": "Master"},
+            {"name": "Abel", "born": "1650", "died": "", "standing": "Guest"}]
+    chart = Chart(rows, start="born", end="died", label="name", group="standing").ends(
+        longest="90y", by_group={"Apprentice": "7y", "Master": "60y"})
+    yorick, zelda, abel = chart.records
+    latest_birth = day(1650, 12, 31)
+    assert yorick.span.end.latest == int(latest_birth + 7 * DAYS_PER_YEAR)
+    assert zelda.span.end.latest == int(latest_birth + 60 * DAYS_PER_YEAR)
+    assert abel.span.end.latest == int(latest_birth + 90 * DAYS_PER_YEAR)   # the table's
+    # the same from the command line and from a config file (a list there)
+    from timelines.cli import main
+
+    table = tmp_path / "t.csv"
+    table.write_text("name,born,died,standing\nYorick,1650,,Apprentice\n", encoding="utf-8")
+    config = tmp_path / "ends.toml"
+    config.write_text('longest-by-group = ["Apprentice=7y", "Master=60y"]\n', encoding="utf-8")
+    outputs = []
+    for argv in (["--longest-by-group", "Apprentice=7y, Master=60y"], ["--config", str(config)],
+                 []):
+        code = main(["lanes", str(table), "--group", "standing", "--format", "json", *argv])
+        outputs.append(capsys.readouterr().out)
+        assert code == 0
+    assert outputs[0] == outputs[1] != outputs[2]        # option and file agree; both bound
+    code = main(["lanes", str(table), "--longest-by-group", "Apprentice"])
+    assert code == 2 and "give group names and times" in capsys.readouterr().err

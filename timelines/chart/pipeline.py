@@ -77,6 +77,7 @@ class ChartOptions:
     pages: bool = False                 # a PDF split into pages at group breaks
     longest: str | None = None          # a longest plausible duration bounding open sides
     longest_column: str | None = None   # a column giving each record its own
+    longest_by_group: tuple[tuple[str, str], ...] = ()   # (group, duration): each group's own
     date_numbers: str = "years"         # a spreadsheet's numbers in date columns: years or serials
     encoding: str | None = None         # of text tables (and --bands): None, found (decoding.py)
     events: bool = False                # each row one moment in a window (not-before, not-after)
@@ -245,11 +246,12 @@ def _detected_columns(table: Table, given: ColumnMap) -> ColumnMap:
 
 def _bound_open_sides(read: ReadTable, options: ChartOptions) -> ReadTable:
     """Unknown and one-sided ends bounded by the user's longest plausible duration."""
-    if options.longest is None and options.longest_column is None:
+    if (options.longest is None and options.longest_column is None
+            and not options.longest_by_group):
         return read
     longest_of = _longest_of(options, read.columns, read.header)
-    text = (f"--longest {options.longest}" if options.longest_column is None else
-            f"the longest duration of column {options.longest_column!r}")
+    text = ("the longest duration set for it" if options.longest_column
+            or options.longest_by_group else f"--longest {options.longest}")
     bounded = bound_by_longest(read.loaded.records, longest_of, text)
     return replace(read, loaded=replace(read.loaded, records=bounded.records),
                    bounded=bounded.count, findings=read.findings + bounded.findings)
@@ -257,10 +259,17 @@ def _bound_open_sides(read: ReadTable, options: ChartOptions) -> ReadTable:
 
 def _longest_of(options: ChartOptions, columns: ColumnMap, header):
     """A record's longest duration in days: its cell of --longest-column when it holds one
-    (a time such as 90y, or a number of years), else --longest."""
-    fallback = duration_days(options.longest, "--longest") if options.longest else None
+    (a time such as 90y, or a number of years), else its group's (--longest-by-group), else
+    --longest."""
+    table_wide = duration_days(options.longest, "--longest") if options.longest else None
+    by_group = {group: duration_days(text, f"--longest-by-group {group}")
+                for group, text in options.longest_by_group}
+
+    def fallback_of(record: Record) -> float | None:
+        return by_group.get(record.group or "", table_wide)
+
     if options.longest_column is None:
-        return lambda record: fallback
+        return fallback_of
     read_cell = column_reader(columns, header, options.longest_column, "longest column")
     known: dict[str, float | None] = {}
 
@@ -268,9 +277,23 @@ def _longest_of(options: ChartOptions, columns: ColumnMap, header):
         text = (read_cell(record) or "").strip()
         if text not in known:
             known[text] = _cell_days(text) if text else None
-        return known[text] if known[text] is not None else fallback
+        return known[text] if known[text] is not None else fallback_of(record)
 
     return longest_of
+
+
+def group_durations(text: str) -> tuple[tuple[str, str], ...]:
+    """`Apprentice=7y, Journeyman=30y` as (group, duration) pairs; a usage error for a part
+    without a name and a time."""
+    pairs = []
+    for part in (piece.strip() for piece in text.split(",")):
+        name, equals, duration = part.rpartition("=")
+        if not part or not equals or not name.strip():
+            raise UsageError(f"cannot read {part!r} in {text!r}",
+                             hint="give group names and times: Apprentice=7y, Journeyman=30y")
+        duration_days(duration.strip(), f"the duration of {name.strip()!r}")
+        pairs.append((name.strip(), duration.strip()))
+    return tuple(pairs)
 
 
 def duration_days(text: str, option: str) -> float:

@@ -187,15 +187,21 @@ class Chart:
             changes["pages"] = pages
         return self._with(**changes)
 
-    def ends(self, *, longest: str | None = None, column: str | None = None) -> "Chart":
+    def ends(self, *, longest: str | None = None, column: str | None = None,
+             by_group: dict[str, str] | None = None) -> "Chart":
         """Bound the ends the data leave open (an empty cell, `after 1780` as an end) by a
         longest plausible duration: `longest` for every record ("110y" for lives: a common
-        genealogists' rule of thumb, never a default), or each record's own from `column`
-        (a time such as "7y", or a number of years). Without one, such an end is drawn as a
-        short stub whose length says nothing."""
+        genealogists' rule of thumb, never a default), each group's own in `by_group`
+        ({"Apprentice": "7y"}), or each record's own from `column` (a time such as "7y", or a
+        number of years); a record's column cell wins over its group, its group over
+        `longest`. Without one, such an end is drawn as a short stub whose length says
+        nothing."""
         if longest is not None:
             duration_days(longest, "longest")          # a bad duration fails here
-        return self._with(longest=longest, longest_column=column)
+        pairs = tuple((str(group), str(text)) for group, text in (by_group or {}).items())
+        for group, text in pairs:
+            duration_days(text, f"the duration of {group!r}")
+        return self._with(longest=longest, longest_column=column, longest_by_group=pairs)
 
     def events(self, not_before: str | None = None, not_after: str | None = None) -> "Chart":
         """Each row is an event (a wreck, a find, a letter): one moment somewhere between a

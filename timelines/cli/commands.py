@@ -21,6 +21,7 @@ from importlib import resources
 from pathlib import Path
 
 from ..chart import Chart, ChartOptions, Privacy, output_path, parse_window
+from ..chart.pipeline import group_durations
 from ..check.report import check
 from ..dates import SETTING_HELP, DateSettings, describe, explain, settings_from_options
 from ..errors import TimelineError, UsageError
@@ -229,7 +230,12 @@ def _render_options(args) -> ChartOptions:
         credit=args.credit, notes=tuple(notes), window=_window(args, settings),
         bands=args.bands, facet=args.facet, facet_order=args.facet_order, size=size,
         date_numbers=args.date_numbers, pages=args.pages, events=_events(args),
-        longest=args.longest, longest_column=args.longest_column)
+        longest=args.longest, longest_column=args.longest_column,
+        longest_by_group=_group_durations(args))
+
+
+def _group_durations(args) -> tuple[tuple[str, str], ...]:
+    return group_durations(args.longest_by_group) if args.longest_by_group else ()
 
 
 def _window(args, settings: DateSettings):
@@ -297,6 +303,7 @@ def run_lanes(args, parser) -> int:
                            window=_window(args, settings), date_numbers=args.date_numbers,
                            events=_events(args),
                            longest=args.longest, longest_column=args.longest_column,
+                           longest_by_group=_group_durations(args),
                            size=parse_size(args.size) if args.size else None)
     chart = Chart.from_options(_input_path(args, parser), options)
     arranged = _laid_out(chart, Progress(2, quiet=args.quiet))

@@ -178,7 +178,8 @@ def config_value(action: argparse.Action, name: str, value: object, path: str) -
         if not isinstance(value, bool):
             raise UsageError(f"{path}: {name} must be true or false, not {value!r}")
         return value
-    if isinstance(value, list) and (name.endswith("-order") or name == "font"):
+    if isinstance(value, list) and (name.endswith("-order")
+                                    or name in ("font", "longest-by-group")):
         value = ",".join(str(item) for item in value)
     if isinstance(value, (bool, list, dict)):
         raise UsageError(f"{path}: {name} cannot be {toml_value(value)}",

@@ -205,6 +205,10 @@ def _ends_options(parser: argparse.ArgumentParser) -> None:
     ends.add_argument("--longest-column", metavar="COL",
                       help="a column giving each record its own longest duration (7y, or a "
                            "number of years)")
+    ends.add_argument("--longest-by-group", metavar="GROUP=TIME,...",
+                      help="each group's own longest duration, e.g. 'Apprentice=7y, "
+                           "Journeyman=30y' (a list in the config file); the column wins over "
+                           "the group, the group over --longest")
 
 
 def _text_options(parser: argparse.ArgumentParser) -> None:

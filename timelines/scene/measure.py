@@ -30,6 +30,7 @@ RENDERED_WIDTH_ALLOWANCE = 1.04
 # next bar three times as far from the label as the label's own bar, so proximity says which
 # bar a label names (Gestalt law of proximity; the factor is common practice, no source).
 LABEL_CLEARANCE = 2.0
+SIGN_CLEARANCE = 2.0        # px beyond a qualifier sign before the label pad
 
 
 def days_per_px(scale: TimeScale) -> float:
@@ -55,8 +56,10 @@ def drawn_measure(scale: TimeScale, theme: Theme):
     the room for a label on it (its solid core, where the label's contrast is known), in
     days."""
     per_px = days_per_px(scale)
-    # the widest qualifier sign, '~?', sits beside a bar end
-    mark_room = (text_width("~?", theme.small_font_size, "bold") + 3) * per_px
+    # The widest qualifier sign, '~?', sits 2 px beside a bar end; a label beside it stands
+    # three times as far from the sign as the sign from its bar (SIGN_CLEARANCE and the label
+    # pad), so the sign reads as the bar's, not as part of the name (Gestalt proximity).
+    mark_room = (text_width("~?", theme.small_font_size, "bold") + 2 + SIGN_CLEARANCE) * per_px
     marker = theme.bar_height * 0.6 * per_px
     domain = (scale.start, scale.end)
     stub = stub_days(scale, theme)

@@ -167,3 +167,14 @@ def test_each_group_may_have_its_own_longest_duration(tmp_path, capsys):
     assert outputs[0] == outputs[1] != outputs[2]        # option and file agree; both bound
     code = main(["lanes", str(table), "--longest-by-group", "Apprentice"])
     assert code == 2 and "give group names and times" in capsys.readouterr().err
+
+
+def test_parse_explain_says_how_a_chart_draws_a_side_without_a_limit(capsys):
+    from timelines.cli import main
+
+    main(["parse", "--explain", "after 1780"])
+    lines = capsys.readouterr().out.splitlines()
+    assert any(line.startswith("no later limit: a chart draws this side short; --longest")
+               for line in lines)
+    main(["parse", "--explain", "1650-1660"])
+    assert "limit" not in capsys.readouterr().out

@@ -49,14 +49,25 @@ def _error_lines(text: str, error: DateError) -> list[str]:
 
 def _result_lines(span: Span) -> list[str]:
     if span.is_point:
-        return [f"result: {describe_endpoint(span.start)}"]
-    lines = [f"start: {describe_endpoint(span.start)}", f"end: {describe_endpoint(span.end)}"]
+        return [*_open_side_lines(span), f"result: {describe_endpoint(span.start)}"]
+    lines = [*_open_side_lines(span), f"start: {describe_endpoint(span.start)}",
+             f"end: {describe_endpoint(span.end)}"]
     low, high = span.possible_extent
     lines.append(f"possible extent: {trace.day_text(low)} .. {trace.day_text(high)}")
     core = span.certain_core
     lines.append("certain core: none (the two windows overlap)" if core is None
                  else f"certain core: {trace.day_text(core[0])} .. {trace.day_text(core[1])}")
     return lines
+
+
+def _open_side_lines(span: Span) -> list[str]:
+    """What a chart does with a side that has no far bound (`after 1780` as an end): drawn
+    short, unless the longest-duration setting bounds it by the record's other end."""
+    sides = [name for name, endpoint, day in (("earlier", span.start, span.start.earliest),
+                                              ("later", span.end, span.end.latest))
+             if day is None and not endpoint.is_open]
+    return [f"no {side} limit: a chart draws this side short; --longest DURATION (e.g. 110y "
+            "for lives) bounds it by the record's other end" for side in sides]
 
 
 def describe_endpoint(endpoint: Endpoint) -> str:

@@ -20,13 +20,12 @@ import dataclasses
 from matplotlib.ticker import Formatter, Locator
 from matplotlib.transforms import Affine2D
 
-from ..scene.primitives import (
-    GradientRect, Group, Line, Polygon, Primitive, Rect, Scene, Text, walk,
-)
+from ..scene.primitives import Group, Primitive, Scene, Text, vertical_extent
 from ..scene.scale import TimeScale, decimal_year_from_fixed, year_text, year_ticks
 from .mpl import DRAW_ORDER, _artists, _Page
 
 MAX_TICKS = 8                      # labelled ticks on an axis, as the static chart's axis
+EDGE_PAD = 4.0                     # px kept above the first lane and below the last
 CAPTIONS = ("group-label", "subgroup-label")   # group names, shown as y tick labels instead
 _PLOT_CLASSES = ("group", "separator", "bands")
 
@@ -102,7 +101,8 @@ def draw_on_axes(scene: Scene, scale: TimeScale, ax, era: str = "bce"):
         artist.set_zorder(DRAW_ORDER + 1)
         artist.set_clip_path(ax.patch)
         ax.add_artist(artist)
-    top, bottom = _vertical_extent(plot)
+    top, bottom = vertical_extent(plot)
+    top, bottom = top - EDGE_PAD, bottom + EDGE_PAD
     ax.set_xlim(first, last)
     ax.set_ylim(bottom, top)               # y grows downward, as on the page
     ax.set_yticks([centre for centre, _ in captions], [name for _, name in captions])
@@ -132,18 +132,3 @@ def _without_captions(item: Primitive, captions: list) -> Primitive | None:
                     if (kept := _without_captions(child, captions)) is not None]
         return dataclasses.replace(item, children=tuple(children)) if children else None
     return item
-
-
-def _vertical_extent(items: list[Primitive]) -> tuple[float, float]:
-    ys: list[float] = []
-    for item in walk(tuple(items)):
-        if isinstance(item, (Rect, GradientRect)):
-            ys += [item.y, item.y + item.height]
-        elif isinstance(item, Line):
-            ys += [item.y1, item.y2]
-        elif isinstance(item, Polygon):
-            ys += [y for _, y in item.points]
-        elif isinstance(item, Text):
-            ys += [item.y - item.size, item.y + item.size * 0.3]
-    pad = 4.0
-    return min(ys) - pad, max(ys) + pad

@@ -11,9 +11,7 @@ from __future__ import annotations
 from dataclasses import replace
 
 from .axis import draw_axis
-from .primitives import (
-    GradientRect, Group, Line, Polygon, Primitive, Rect, Scene, Text, shifted, walk,
-)
+from .primitives import Primitive, Scene, shifted, vertical_extent
 from .scale import TimeScale
 from .theme import Theme
 
@@ -30,7 +28,7 @@ def split_pages(scene: Scene, scale: TimeScale, theme: Theme, page_height: float
     header, lanes, footer = _parts(scene)
     if not lanes:
         return [scene]
-    header_bottom = max((_extent([item])[1] for item in header), default=0.0)
+    header_bottom = max((vertical_extent([item])[1] for item in header), default=0.0)
     pages, start = [], 0
     while start < len(lanes):
         top = (header_bottom + 14 if not pages else 0.0) + theme.margin
@@ -63,9 +61,9 @@ def _parts(scene: Scene) -> tuple[list[Primitive], list[list[Primitive]], list[P
 
 def _fill(blocks: list[list[Primitive]], start: int, room: float) -> int:
     """The end of the run of blocks from `start` that fits `room` (at least one)."""
-    top = _extent(blocks[start])[0]
+    top = vertical_extent(blocks[start])[0]
     end = start + 1
-    while end < len(blocks) and _extent(blocks[end])[1] - top <= room:
+    while end < len(blocks) and vertical_extent(blocks[end])[1] - top <= room:
         end += 1
     return end
 
@@ -76,7 +74,7 @@ def _page(scene: Scene, scale: TimeScale, theme: Theme, header: list[Primitive],
     axis under them."""
     items = [item for block in blocks for item in block if item.css_class != "separator"
              or block is not blocks[0]]
-    low, high = _extent(items)
+    low, high = vertical_extent(items)
     moved = [shifted(item, 0.0, top - low) for item in items]
     grid, axis, bottom = draw_axis(scale, theme, top, top + high - low)
     return replace(scene, height=bottom + theme.margin,
@@ -89,22 +87,7 @@ def _with_footer(page: Scene, footer: list[Primitive], scene: Scene, theme: Them
     if not footer:
         return page
     axis_bottom = page.height - theme.margin
-    first = _extent(footer)[0]
+    first = vertical_extent(footer)[0]
     moved = [shifted(item, 0.0, axis_bottom + 6 - first) for item in footer]
-    return replace(page, height=_extent(moved)[1] + theme.margin,
+    return replace(page, height=vertical_extent(moved)[1] + theme.margin,
                    children=(*page.children, *moved))
-
-
-def _extent(items: list[Primitive]) -> tuple[float, float]:
-    """The top and bottom (page y) of what `items` draw."""
-    ys: list[float] = []
-    for item in walk(tuple(items)):
-        if isinstance(item, (Rect, GradientRect)):
-            ys += [item.y, item.y + item.height]
-        elif isinstance(item, Line):
-            ys += [item.y1, item.y2]
-        elif isinstance(item, Polygon):
-            ys += [y for _, y in item.points]
-        elif isinstance(item, Text):
-            ys += [item.y - item.size, item.y + item.size * 0.3]
-    return (min(ys), max(ys)) if ys else (0.0, 0.0)

@@ -188,3 +188,19 @@ def shifted(item: Primitive, dx: float, dy: float) -> Primitive:
     if isinstance(item, (Rect, GradientRect, Text)):
         return replace(item, x=item.x + dx, y=item.y + dy)
     raise TypeError(f"cannot move a {type(item).__name__}")
+
+
+def vertical_extent(items) -> tuple[float, float]:
+    """The top and bottom (page y) of what `items` draw; a text from its size above the
+    baseline to 0.3 of it below."""
+    ys: list[float] = []
+    for item in walk(tuple(items)):
+        if isinstance(item, (Rect, GradientRect)):
+            ys += [item.y, item.y + item.height]
+        elif isinstance(item, Line):
+            ys += [item.y1, item.y2]
+        elif isinstance(item, Polygon):
+            ys += [y for _, y in item.points]
+        elif isinstance(item, Text):
+            ys += [item.y - item.size, item.y + item.size * 0.3]
+    return (min(ys), max(ys)) if ys else (0.0, 0.0)

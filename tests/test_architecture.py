@@ -19,17 +19,20 @@ ALLOWED = {
     "dates": MODEL,                                      # the date language
     "sources": MODEL | {"dates"},                        # read: tables -> records
     "check": MODEL,                                      # counts, warnings, living persons
+    "analysis": MODEL | {"dates", "sources"},            # relations, activity, constraints
     "layout": MODEL,                                     # groups, lanes, labels, the lanes report
     "scene": MODEL | {"layout"},                         # marks in page units
     "render": {"scene", "errors"},                       # renderers know only the scene
-    "chart": MODEL | {"dates", "sources", "check", "layout", "scene", "render"},
-    "cli": MODEL | {"dates", "sources", "check", "layout", "scene", "chart", "__init__"},
-    "__init__": MODEL | {"dates", "sources", "check", "layout", "scene", "render", "chart"},
+    "chart": MODEL | {"dates", "sources", "check", "layout", "scene", "render", "analysis"},
+    "cli": MODEL | {"dates", "sources", "check", "layout", "scene", "chart", "analysis",
+                    "__init__"},
+    "__init__": MODEL | {"dates", "sources", "check", "layout", "scene", "render", "chart",
+                         "analysis"},
     "__main__": {"cli"},
 }
 # third-party package -> the only modules allowed to import it
 THIRD_PARTY = {
-    "pandas": {"sources.tables", "sources.frames"},
+    "pandas": {"sources.tables", "sources.frames", "analysis"},
     "matplotlib": {"render.mpl", "render.axes"},
     "svgwrite": {"render.svg"},
     "dateutil": {"dates"},
@@ -39,7 +42,7 @@ THIRD_PARTY = {
 }
 # The stages as the tree shows them: the root holds only the model and the pipeline.
 ROOT_MODULES = {"__init__", "__main__", "errors", "calendar", "model"}
-STAGES = {"dates", "sources", "check", "layout", "scene", "render", "chart", "cli"}
+STAGES = {"dates", "sources", "check", "analysis", "layout", "scene", "render", "chart", "cli"}
 
 
 def _modules():

@@ -33,7 +33,7 @@ ALLOWED = {
 # third-party package -> the only modules allowed to import it
 THIRD_PARTY = {
     "pandas": {"sources.tables", "sources.frames", "analysis"},
-    "matplotlib": {"render.mpl", "render.axes"},
+    "matplotlib": {"render.mpl", "render.fades", "render.glyphs", "render.axes"},
     "svgwrite": {"render.svg"},
     "dateutil": {"dates"},
     "fontTools": {"render.outlines", "scene.fonts"},

@@ -365,7 +365,7 @@ def test_batched_rects_draw_what_matplotlibs_polygon_patches_draw(tmp_path):
 def test_all_fades_at_once_equal_one_fade_at_a_time():
     # The batched arithmetic against the same formula written for one fade alone: the coverage
     # of each device pixel times the opacity ramp at the pixel's clipped centre.
-    from timelines.render.mpl import _device_fades
+    from timelines.render.fades import _device_fades
 
     rng = numpy.random.default_rng(7)
     fades = [GradientRect(0, 0, 1, 1, "#0072B2", *rng.uniform(-0.2, 1.2, 2)) for _ in range(60)]
@@ -407,12 +407,12 @@ def one_fade(fade: GradientRect, box, canvas_width: int, canvas_height: int):
 def test_glyphs_drawn_as_one_image_equal_glyphs_drawn_one_by_one(tmp_path, monkeypatch):
     # 'AV', 'To', 'Wa' are kerned pairs in DejaVu Sans: their glyphs reach into each other's
     # columns, so the merged drawing must split there to stay exact.
-    from timelines.render import mpl
+    from timelines.render import glyphs as painter
 
     scene = Scene(400, 60, (Text(10.3, 25.6, "WAVE To Warrow, Fenwick 1650", size=15),
                             Text(390, 50.2, "Tyburn & Ava", size=12, anchor="end",
                                  weight="bold", fill="#D55E00")))
-    merged = mpl._glyph_images
+    merged = painter._glyph_images
     counts = []
 
     def counted(placed):
@@ -420,10 +420,10 @@ def test_glyphs_drawn_as_one_image_equal_glyphs_drawn_one_by_one(tmp_path, monke
         counts.append((len(placed), len(images)))
         return images
 
-    monkeypatch.setattr(mpl, "_glyph_images", counted)
+    monkeypatch.setattr(painter, "_glyph_images", counted)
     render_png(scene, tmp_path / "merged.png", dpi=150)
     assert all(1 < images < glyphs for glyphs, images in counts)   # merged, and split
-    monkeypatch.setattr(mpl, "_glyph_images", lambda placed: [
+    monkeypatch.setattr(painter, "_glyph_images", lambda placed: [
         image for glyph in placed for image in merged([glyph])])
     render_png(scene, tmp_path / "single.png", dpi=150)
     assert (tmp_path / "merged.png").read_bytes() == (tmp_path / "single.png").read_bytes()
@@ -454,5 +454,5 @@ def test_png_text_without_the_glyph_cache_lands_in_the_same_place(tmp_path, monk
         return numpy.array([*dark.min(axis=0), *dark.max(axis=0)])
 
     cached = ink("cached.png")
-    monkeypatch.setattr(mpl, "_glyph_cache_works", lambda: False)
+    monkeypatch.setattr(mpl, "glyph_cache_works", lambda: False)
     assert numpy.abs(ink("text.png") - cached).max() <= 1

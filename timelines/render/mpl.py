@@ -19,14 +19,14 @@ from __future__ import annotations
 import contextlib
 import dataclasses
 import functools
-import math
-import threading
 import warnings
 from dataclasses import dataclass
 from pathlib import Path
 
 import numpy
 
+from timelines.render.fades import paint_fades
+from timelines.render.glyphs import POINTS_PER_PX, glyph_cache_works, paint_texts
 from timelines.render.png import PNG_KEYWORD, write_png
 from timelines.scene.fonts import faces, font_list
 from timelines.scene.shaping import needs_shaping, shape_line
@@ -35,12 +35,8 @@ from timelines.scene.primitives import (
     walk,
 )
 
-POINTS_PER_PX = 72.0 / PX_PER_INCH
-# A fade in a PDF is one row of 256 samples: as fine as 8-bit alpha resolves, so no steps show.
-GRADIENT_SAMPLES = 256
 DRAW_ORDER = 1  # one zorder for every artist: insertion order is drawing order
 HORIZONTAL_ALIGNMENT = {"start": "left", "middle": "center", "end": "right"}
-ANCHOR_SHIFT = {"start": 0.0, "middle": 0.5, "end": 1.0}   # of the width, to the left
 
 _SETTINGS = {
     "pdf.fonttype": 42,               # embed TrueType (Type 42), not Type 3 outlines
@@ -126,7 +122,7 @@ def _figure(scene: Scene, raster: bool = False):
     axes.set_xlim(0, scene.width)
     axes.set_ylim(scene.height, 0)  # y grows downward, as on the page
     fonts = list(dict.fromkeys([font_list(scene.font_family)[0], "DejaVu Sans"]))
-    page = _Page(axes, fonts, TransformedPatchPath(axes.patch), raster and _glyph_cache_works(),
+    page = _Page(axes, fonts, TransformedPatchPath(axes.patch), raster and glyph_cache_works(),
                  scene.font_family)
     for artist in _artists(scene.children, page):
         artist.set_zorder(DRAW_ORDER)
@@ -331,290 +327,7 @@ def _rect_paint(fill: str | None, stroke: str | None, stroke_width: float, opaci
     return (face if face[3] else None), edge, float(width), alpha
 
 
-def _paint_fades(fades: list[GradientRect], renderer, affine, page: _Page):
-    """Raster backends get each ramp at device resolution, with partly covered edge pixels
-    faded in as an antialiased SVG rect edge is; vector backends (PDF) get one row of samples
-    scaled onto the rect. Either way a finished image goes to the renderer, not through
-    AxesImage's general resampler (ten times the cost)."""
-    from matplotlib.colors import to_rgb
-    from matplotlib.transforms import Affine2D
-
-    corners = [point for fade in fades
-               for point in ((fade.x, fade.y + fade.height), (fade.x + fade.width, fade.y))]
-    boxes = affine.transform(corners).reshape(-1, 4)   # left, bottom, right, top; y up
-    gc = renderer.new_gc()
-    gc.set_clip_rectangle(page.axes.bbox)
-    if renderer.option_scale_image():
-        for fade, (left, bottom, right, top) in zip(fades, boxes):
-            image = _sample_row(to_rgb(fade.fill), fade.opacity_left, fade.opacity_right)
-            renderer.draw_image(gc, left, bottom, image, Affine2D().scale(right - left,
-                                                                          top - bottom))
-            yield
-    else:
-        for placed in _device_fades(fades, boxes, renderer.width, renderer.height):
-            if placed is not None:
-                renderer.draw_image(gc, *placed)
-            yield
-    gc.restore()
-
-
-def _device_fades(fades: list[GradientRect], boxes, canvas_width: float, canvas_height: float):
-    """(column, row, RGBA image) for each fade, covering its box (device px, y up) on the
-    visible canvas, or None if it misses the canvas. All fades are worked out in one pass of
-    array arithmetic, element by element the same operations as one fade at a time."""
-    left, bottom, right, top = boxes.T
-    columns = _Ranges(numpy.maximum(numpy.floor(left), 0),
-                      numpy.minimum(numpy.ceil(right), canvas_width))
-    rows = _Ranges(numpy.maximum(numpy.floor(bottom), 0),
-                   numpy.minimum(numpy.ceil(top), canvas_height))
-    low, high = left[columns.owner], right[columns.owner]
-    centres = (numpy.clip(columns.values + 0.5, low, high) - low) / (high - low)
-    opacity_left = numpy.array([fade.opacity_left for fade in fades])[columns.owner]
-    opacity_right = numpy.array([fade.opacity_right for fade in fades])[columns.owner]
-    across = (_opacity_ramp(opacity_left, opacity_right, centres)
-              * _coverage(columns.values, low, high))
-    down = _coverage(rows.values, bottom[rows.owner], top[rows.owner])
-    images = _fade_images(fades, columns, rows, across, down)
-    return [None if image is None else (int(columns.first[i]), int(rows.first[i]), image)
-            for i, image in enumerate(images)]
-
-
-def _fade_images(fades: list[GradientRect], columns: _Ranges, rows: _Ranges, across, down):
-    """Each fade's RGBA image, or None if it has no pixels: its colour, and as alpha the
-    product of its column's value `across` and its row's `down` (image row 0 is the top)."""
-    from matplotlib.colors import to_rgb
-
-    sizes = rows.counts * columns.counts
-    pixels = _Ranges(numpy.zeros(len(fades)), sizes)      # each fade's pixels 0, 1, ...
-    owner = pixels.owner
-    row, column = numpy.divmod(pixels.values.astype(numpy.intp), columns.counts[owner])
-    alpha = (down[rows.starts[owner] + rows.counts[owner] - 1 - row]
-             * across[columns.starts[owner] + column])
-    images = numpy.empty((len(alpha), 4), dtype=numpy.uint8)
-    images[:, :3] = numpy.round(numpy.array([to_rgb(fade.fill) for fade in fades]) * 255)[owner]
-    images[:, 3] = numpy.round(alpha * 255)
-    return [None if size == 0 else
-            images[start:start + size].reshape(rows.counts[i], columns.counts[i], 4)
-            for i, (start, size) in enumerate(zip(pixels.starts, sizes))]
-
-
-class _Ranges:
-    """The integers first, first + 1, ... below stop for many (first, stop) pairs, end to end
-    in `values`, with each one's `owner` (its pair), and each pair's `counts` and `starts`
-    (where its values begin)."""
-
-    def __init__(self, first, stop):
-        self.first = first
-        self.counts = numpy.maximum(numpy.ceil(stop - first), 0).astype(numpy.intp)
-        self.starts = numpy.cumsum(self.counts) - self.counts
-        self.owner = numpy.repeat(numpy.arange(len(self.counts)), self.counts)
-        self.values = first[self.owner] + (numpy.arange(len(self.owner)) - self.starts[self.owner])
-
-
-@functools.lru_cache(maxsize=4096)
-def _sample_row(rgb: tuple[float, float, float], left: float, right: float):
-    """One row of samples for a vector backend. The same array object for the same fade, so
-    the PDF writer (which keys images by identity) stores each distinct fade once."""
-    centres = (numpy.arange(GRADIENT_SAMPLES) + 0.5) / GRADIENT_SAMPLES
-    alpha = _opacity_ramp(left, right, centres)[None]
-    image = numpy.empty((*alpha.shape, 4), dtype=numpy.uint8)
-    image[..., :3] = numpy.round(numpy.asarray(rgb) * 255)
-    image[..., 3] = numpy.round(alpha * 255)
-    image.flags.writeable = False
-    return image
-
-
-def _opacity_ramp(left, right, position):
-    """Opacity at `position` (0 at the left edge .. 1 at the right edge)."""
-    return numpy.clip(left + (right - left) * position, 0.0, 1.0)
-
-
-def _coverage(pixels, low, high):
-    """The part of each device pixel [p, p+1) that lies inside [low, high]."""
-    return numpy.clip(numpy.minimum(pixels + 1, high) - numpy.maximum(pixels, low), 0.0, 1.0)
-
-
-def _glyph_cache_works() -> bool:
-    """Whether this matplotlib has the per-glyph Agg text calls the cache relies on (3.11's);
-    otherwise PNG text falls back to matplotlib's Text artist."""
-    from matplotlib import ft2font
-
-    return (all(hasattr(ft2font.FT2Font, name) for name in ("_set_transform", "_render_glyph"))
-            and hasattr(ft2font, "Kerning") and hasattr(ft2font, "RenderMode"))
-
-
-def _paint_texts(texts: list[Text], renderer, affine, page: _Page):
-    """Each text from cached glyphs, composited by Agg's own text-image call as matplotlib's
-    Text does. matplotlib lays out and renders every glyph of every string anew; a chart
-    repeats the same few dozen glyphs thousands of times."""
-    glyphs = _glyph_cache()
-    anchors = affine.transform([(text.x, text.y) for text in texts])   # y up
-    canvas_height = int(renderer.height)
-    gc = renderer.new_gc()
-    for text, (x, y) in zip(texts, anchors):
-        if needs_shaping(text.text):
-            _paint_shaped(text, x, y, renderer, gc, page)
-            yield
-            continue
-        font, size = glyphs.font(page.font_family, text)
-        font.set_size(size, renderer.dpi)
-        offsets, width = glyphs.laid_out(font, size, renderer.dpi, text.text)
-        x -= ANCHOR_SHIFT[text.anchor] * width
-        placed = glyphs.placed(font, size, renderer.dpi, offsets, x, y)
-        baseline = canvas_height - math.floor(y)   # its row, counted from the top as in Agg
-        gc.set_foreground(text.fill)
-        for image, column, below in _glyph_images(placed):
-            renderer._renderer.draw_text_image(image, column, baseline + below, 0, gc)
-        yield
-    gc.restore()
-
-
-def _paint_shaped(text: Text, x: float, y: float, renderer, gc, page: _Page) -> None:
-    """Text that needs shaping (`scene.shaping`: direction, fallback, HarfBuzz), each run's
-    glyphs from its own face where HarfBuzz put them; (x, y) is the anchor in device px."""
-    from matplotlib.font_manager import FontPath, get_font
-
-    line = shape_line(text.text, text.weight, page.families)
-    em = text.size * renderer.dpi / PX_PER_INCH          # device px per em
-    left = x - ANCHOR_SHIFT[text.anchor] * line.width * em
-    baseline = int(renderer.height) - math.floor(y)
-    gc.set_foreground(text.fill)
-    for run in line.runs:
-        font = get_font(FontPath(run.face.path, run.face.index))
-        placed = _glyph_cache().placed_shaped(font, text.size * POINTS_PER_PX, renderer.dpi, [
-            (glyph.id, left + glyph.x * em, y + glyph.y * em) for glyph in run.glyphs], y)
-        for image, column, below in _glyph_images(placed):
-            renderer._renderer.draw_text_image(image, column, baseline + below, 0, gc)
-
-
-def _glyph_images(placed: list[tuple]) -> list[tuple]:
-    """One line's glyphs (bitmap, column, rows above the baseline) as few images (image,
-    column, rows below the baseline) as keep every pixel exact. Agg blends an image pixel by
-    pixel and a zero changes nothing, so glyphs that share no column draw the same pixels as
-    one image; a glyph reaching into the columns before it (kerning, an overhang) starts the
-    next image, drawn after, as it was."""
-    runs: list[list[tuple]] = []
-    end = 0
-    for buffer, column, top in placed:
-        if not runs or column < end:
-            runs.append([])
-        runs[-1].append((buffer, column, top))
-        end = column + buffer.shape[1]   # each glyph of a run starts after all before it end
-    return [_joined_glyphs(run) for run in runs]
-
-
-def _joined_glyphs(run: list[tuple]) -> tuple:
-    if len(run) == 1:
-        buffer, column, top = run[0]
-        return buffer, column, buffer.shape[0] - top
-    above = max(top for _, _, top in run)
-    below = max(buffer.shape[0] - top for buffer, _, top in run)
-    first, (last, last_column, _) = run[0][1], run[-1]
-    image = numpy.zeros((above + below, last_column + last.shape[1] - first), dtype=numpy.uint8)
-    for buffer, column, top in run:
-        rows, columns = buffer.shape
-        image[above - top:above - top + rows, column - first:column - first + columns] = buffer
-    return image, first, below
-
-
-@functools.cache
-def _glyph_cache() -> _GlyphCache:
-    return _GlyphCache()
-
-
-class _GlyphCache:
-    """Fonts, advances and rendered glyphs, kept from one text (and page) to the next.
-
-    Glyphs are cached per font, size and quarter pixel of position."""
-
-    def __init__(self):
-        from matplotlib.backends.backend_agg import get_hinting_flag
-        from matplotlib.font_manager import FontProperties, fontManager, get_font
-        from matplotlib.ft2font import Kerning, RenderMode
-
-        self._properties, self._get_font = FontProperties, get_font
-        self._find_fonts, self._hinting = fontManager._find_fonts_by_props, get_hinting_flag
-        self._kerning, self._render_mode = Kerning.DEFAULT, RenderMode.NORMAL
-        self._fonts: dict[tuple, tuple] = {}
-        self._metrics: dict[tuple, tuple[dict, dict]] = {}
-        self._glyphs: dict[tuple, dict] = {}
-
-    def font(self, families: list[str], text: Text):
-        """(FT2Font, size in points) for the text, looked up once per style and thread (as
-        matplotlib keeps one FT2Font per thread)."""
-        key = (tuple(families), text.weight, text.style, text.size, threading.get_ident())
-        if key not in self._fonts:
-            properties = self._properties(family=families, weight=text.weight,
-                                          style=text.style, size=text.size * POINTS_PER_PX)
-            self._fonts[key] = (self._get_font(self._find_fonts(properties)),
-                                properties.get_size_in_points())
-        return self._fonts[key]
-
-    def laid_out(self, font, size, dpi, content) -> tuple[list[tuple[int, float]], float]:
-        """(glyph index, x offset) per character and the line's width, in device px: hinted
-        advances plus pair kerning, each character's advance and each pair measured once."""
-        advances, kerning = self._metrics.setdefault((font.fname, size, dpi), ({}, {}))
-        offsets, pen, previous = [], 0.0, None
-        for character in content:
-            if character not in advances:
-                index = font.get_char_index(ord(character))
-                # the hinted advance, as matplotlib's Text and cairo set it: whole pixels
-                glyph = font.load_glyph(index, self._hinting())
-                advances[character] = (index, glyph.horiAdvance / 64)
-            index, advance = advances[character]
-            if previous is not None:
-                if (previous, index) not in kerning:
-                    kerning[previous, index] = font.get_kerning(previous, index,
-                                                                self._kerning) / 64
-                pen += kerning[previous, index]
-            offsets.append((index, pen))
-            pen += advance
-            previous = index
-        return offsets, pen
-
-    def placed(self, font, size, dpi, offsets, x: float, y: float) -> list[tuple]:
-        """(bitmap, column, rows above the baseline) of each inked glyph of a line laid out
-        as `offsets`, whose pen starts at device position (x, y)."""
-        phase_y = round(4 * (y % 1)) / 4
-        rendered = self._glyphs.setdefault((font.fname, size, dpi, phase_y), {})
-        placed = []
-        for index, offset in offsets:
-            gx = x + offset
-            key = (index, round(4 * (gx % 1)) / 4)
-            if key not in rendered:
-                rendered[key] = self._render(font, size, dpi, key, phase_y)
-            buffer, left, top = rendered[key]
-            if buffer.size:                                  # a space has no ink
-                placed.append((buffer, math.floor(gx) + left, top))
-        return placed
-
-    def placed_shaped(self, font, size, dpi, positions: list[tuple], y: float) -> list[tuple]:
-        """(bitmap, column, rows above the baseline at `y`) of each inked glyph, from (glyph
-        index, x, y) device positions (y up), as `placed` does for one face of a ttc too."""
-        placed = []
-        for index, gx, gy in positions:
-            phase_y = round(4 * (gy % 1)) / 4
-            rendered = self._glyphs.setdefault((font.fname, font.face_index, size, dpi,
-                                                phase_y), {})
-            key = (index, round(4 * (gx % 1)) / 4)
-            if key not in rendered:
-                rendered[key] = self._render(font, size, dpi, key, phase_y)
-            buffer, left, top = rendered[key]
-            if buffer.size:
-                placed.append((buffer, math.floor(gx) + left,
-                               top + math.floor(gy) - math.floor(y)))
-        return placed
-
-    def _render(self, font, size, dpi, key: tuple[int, float], phase_y: float) -> tuple:
-        index, phase_x = key
-        font.set_size(size, dpi)
-        font._set_transform([[0x10000, 0], [0, 0x10000]],
-                            [round(0x40 * phase_x), round(0x40 * phase_y)])
-        bitmap = font._render_glyph(index, self._hinting(), self._render_mode)
-        return bitmap.buffer.copy(), bitmap.left, bitmap.top
-
-
-_PAINTERS = {Rect: _paint_rects, GradientRect: _paint_fades, Text: _paint_texts}
+_PAINTERS = {Rect: _paint_rects, GradientRect: paint_fades, Text: paint_texts}
 
 
 def _stroke_style(stroke: str | None, width: float) -> dict:

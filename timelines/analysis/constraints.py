@@ -347,22 +347,36 @@ def tighten(records: list[Record], statements: list[Statement]) -> Tightened:
 
 
 def _narrowed(network: _Network, bounds, paths) -> tuple[list[Narrowing], list[Record]]:
-    """Each record's new span and the narrowings, a bound's statements read off its path."""
-    earliest, latest = bounds
+    """Each record's new span and the narrowings, a bound's statements read off its path. A
+    bound no statement narrowed (a start's latest day by its own end's) is left as it was:
+    the chart reads a record's own order already."""
     narrowed, records = [], []
     for index, record in enumerate(network.records):
         sides = {}
         for side in ("start", "end"):
-            node = network.node(index, side)
             old = _endpoint(record, side)
-            new = _narrow(old, earliest[node], latest[node])
+            new, statements = _by_statements(network, network.node(index, side), old,
+                                             bounds, paths)
             if new != old:
-                found = paths(node, new.earliest != old.earliest, new.latest != old.latest)
-                statements = _unique(network.reasons[e].statement for e in found)
                 narrowed.append(Narrowing(record, side, old, new, statements))
             sides[side] = new
         records.append(record if sides == _sides(record) else _with_span(record, sides))
     return narrowed, records
+
+
+def _by_statements(network: _Network, node: int, old: Endpoint, bounds, paths):
+    """`old` narrowed on each side whose shortest path holds a statement, and those."""
+    earliest, latest = bounds[0][node], bounds[1][node]
+    low = old.earliest if old.earliest is not None else -INF
+    high = old.latest if old.latest is not None else INF
+    found: list[Statement] = []
+    if earliest > low:
+        by = _unique(network.reasons[e].statement for e in paths(node, True, False))
+        low, found = (earliest, found + list(by)) if by else (low, found)
+    if latest < high:
+        by = _unique(network.reasons[e].statement for e in paths(node, False, True))
+        high, found = (latest, found + list(by)) if by else (high, found)
+    return _narrow(old, low, high), _unique(found)
 
 
 def _endpoint(record: Record, side: str) -> Endpoint:

@@ -1,0 +1,158 @@
+"""Statements between records as a simple temporal network (analysis/constraints.py)."""
+from __future__ import annotations
+
+import pytest
+
+import timelines.analysis.constraints as constraints
+from timelines.analysis.constraints import Statement, parse_gap, read_statements, tighten
+from timelines.calendar import fixed_from_gregorian
+from timelines.errors import UsageError
+from timelines.model import Endpoint, Provenance, Record, Span
+
+SOLVERS = pytest.mark.parametrize("small_network", [constraints.SMALL_NETWORK, 0],
+                                  ids=["floyd-warshall", "bellman-ford"])
+
+
+def _record(key: str, start: tuple, end: tuple, row: int) -> Record:
+    return Record(key, Span(Endpoint(*start), Endpoint(*end)), Provenance("people.csv", row),
+                  id=key)
+
+
+def _said(first: str, relation: str, second: str, gap: str | None, row: int) -> Statement:
+    return Statement(first, relation, second, parse_gap(gap) if gap else None,
+                     "statements.csv", row)
+
+
+def _windows(record: Record) -> tuple:
+    start, end = record.span.start, record.span.end
+    return start.earliest, start.latest, end.earliest, end.latest
+
+
+# Dechter, Meiri & Pearl (1991), "Temporal constraint networks", Artificial Intelligence 49,
+# the John-and-Fred story (from memory: the paper's numbers could not be looked up here, so
+# the story is taken as the brief tells it). Minutes after 7:00 stand for days. John's
+# journey: left home 7:10..7:20 (start 10..20); Fred's: arrived 7:50..8:00 (end 50..60); John
+# arrived 10..20 minutes after Fred left home.
+JOHN = _record("john", (10, 20), (None, None), 2)
+FRED = _record("fred", (None, None), (50, 60), 3)
+
+
+def _story(john_takes: str, fred_takes: str) -> list[Statement]:
+    return [_said("john", "lasts", "", john_takes, 2), _said("fred", "lasts", "", fred_takes, 3),
+            _said("john", "ends after the start of", "fred", "10d..20d", 4)]
+
+
+@SOLVERS
+def test_john_by_car_and_fred_by_carpool_is_consistent_with_one_scenario(monkeypatch,
+                                                                           small_network):
+    # By hand: John arrives at 10..20 + 30..40 = 40..60; Fred leaves at 50..60 − 40..50 =
+    # 0..20, so John arrives at most 20 + 20 = 40: John arrives at 40 exactly, so he left at
+    # 10 (40 − 30, within 10..20), Fred left at 20 (40 − 20, the latest he could) and arrived
+    # at 60 (20 + 40, the latest allowed). The minimal network is a single scenario:
+    # John 7:10–7:40, Fred 7:20–8:00.
+    monkeypatch.setattr(constraints, "SMALL_NETWORK", small_network)
+    result = tighten([JOHN, FRED], _story("30d..40d", "40d..50d"))
+    assert result.consistent
+    assert [_windows(r) for r in result.records] == [(10, 10, 40, 40), (20, 20, 60, 60)]
+    assert str(result.narrowed[0]).startswith("row 2 start: ")
+    assert all(n.statements for n in result.narrowed)
+
+
+def test_the_minimal_network_holds_every_pair():
+    # The same story: John arrives exactly 20 minutes after Fred leaves (x2 − x3 = 20).
+    network = constraints._network([JOHN, FRED], _story("30d..40d", "40d..50d"))
+    distance, _ = constraints.minimal_network(network)
+    john_arrives, fred_leaves = network.node(0, "end"), network.node(1, "start")
+    assert distance[fred_leaves, john_arrives] == 20 and distance[john_arrives, fred_leaves] == -20
+
+
+@SOLVERS
+def test_john_by_bus_and_fred_by_carpool_is_a_negative_cycle(monkeypatch, small_network):
+    # By hand: John arrives at 10 + 60 = 70 at the earliest; Fred leaves at 60 − 40 = 20 at
+    # the latest, so John arrives by 20 + 20 = 40: 30 minutes short. The cycle: John's start
+    # window, the bus, "John arrived 10..20 after Fred left", the carpool, Fred's end window.
+    monkeypatch.setattr(constraints, "SMALL_NETWORK", small_network)
+    result = tighten([JOHN, FRED], _story("60d..", "40d..50d"))
+    assert not result.consistent
+    [contradiction] = result.contradictions
+    assert contradiction.excess == 30
+    assert sorted(s.row for s in contradiction.statements) == [2, 3, 4]
+    assert {r.record.id for r in contradiction.reasons if r.record} == {"john", "fred"}
+    assert result.records == (JOHN, FRED)
+
+
+# An invented family (fixed days from the Gregorian calendar).
+def _year(year: int) -> tuple[int, int]:
+    return fixed_from_gregorian(year, 1, 1), fixed_from_gregorian(year, 12, 31)
+
+
+def _family() -> list[Record]:
+    will = _record("will", _year(1690), _year(1690), 2)                 # written in 1690
+    death = _record("death", (_year(1680)[0], _year(1700)[1]),
+                    (_year(1680)[0], _year(1700)[1]), 3)                # died 1680..1700
+    apprentice = _record("apprenticeship", (_year(1650)[0], _year(1655)[1]),
+                         (_year(1655)[0], _year(1665)[1]), 4)           # 1650..55 to 1655..65
+    parent = _record("parent", _year(1640), (None, None), 5)            # born 1640
+    child = _record("child", (_year(1640)[0], _year(1670)[1]), (None, None), 6)
+    return [will, death, apprentice, parent, child]
+
+
+@SOLVERS
+def test_a_will_an_apprenticeship_and_a_child_tighten_by_hand(monkeypatch, small_network):
+    monkeypatch.setattr(constraints, "SMALL_NETWORK", small_network)
+    statements = [_said("will", "before", "death", None, 2),
+                  _said("apprenticeship", "lasts", "", "7y", 3),
+                  _said("child", "starts after the start of", "parent", "12y..", 4)]
+    will, death, apprentice, parent, child = tighten(_family(), statements).records
+    # The death is not before the will was written: 1690-01-01..1700-12-31.
+    assert _windows(death)[:2] == (_year(1690)[0], _year(1700)[1])
+    # Seven years are 2556.7 days: 2556..2557. The end, 1655..1665, becomes the start's
+    # window moved on by them: 1650-01-01 + 2556 (1656-12-31) .. 1655-12-31 + 2557
+    # (1662-12-31); the start keeps 1650..1655 (1665-12-31 − 2556 is later than 1655).
+    assert _windows(apprentice) == (_year(1650)[0], _year(1655)[1],
+                                    _year(1650)[0] + 2556, _year(1655)[1] + 2557)
+    assert _year(1650)[0] + 2556 == fixed_from_gregorian(1656, 12, 31)
+    # A child born at least 12 years (4382 days) after a parent born in 1640.
+    assert _windows(child)[0] == _year(1640)[0] + 4382
+    assert will == _family()[0] and parent == _family()[3]          # untouched
+
+
+@SOLVERS
+def test_a_contradiction_names_the_rows(monkeypatch, small_network):
+    monkeypatch.setattr(constraints, "SMALL_NETWORK", small_network)
+    # The burial (1685..1688) allows a death 1680..1688, the will (1690) one from 1690 on.
+    burial = _record("burial", (_year(1685)[0], _year(1688)[1]),
+                     (_year(1685)[0], _year(1688)[1]), 7)
+    statements = [_said("will", "before", "death", None, 2),
+                  _said("death", "before", "burial", "..1y", 3)]
+    result = tighten([*_family(), burial], statements)
+    [contradiction] = result.contradictions
+    text = str(contradiction)
+    assert "statements.csv:2 (will before death)" in text
+    assert "statements.csv:3 (death before burial ..1y)" in text
+    assert "row 2 (will" in text and "row 7 (burial" in text and "cannot all hold" in text
+    # 1690-01-01 (the will's earliest) to 1688-12-31 (the burial's latest): 366 days short.
+    assert contradiction.excess == _year(1690)[0] - _year(1688)[1]
+
+
+def test_gaps_read_as_whole_days():
+    assert (parse_gap("7y").low, parse_gap("7y").high) == (2556, 2557)
+    assert (parse_gap("12y..").low, parse_gap("12y..").high) == (4382, constraints.INF)
+    assert (parse_gap("..5y").low, parse_gap("..5y").high) == (0, 1827)
+    assert (parse_gap("30d").low, parse_gap("30d").high) == (30, 30)
+    with pytest.raises(UsageError):
+        parse_gap("7 fortnights")
+
+
+def test_statements_are_read_from_a_table(tmp_path):
+    path = tmp_path / "statements.csv"
+    path.write_text("a,relation,b,gap\nwill,before,death,\napprenticeship,Lasts,,7y\n",
+                    encoding="utf-8")
+    first, second = read_statements(path)
+    assert (first.first, first.relation, first.second, first.row) == ("will", "before",
+                                                                      "death", 2)
+    assert (second.relation, second.gap.text, str(second)) == ("lasts", "7y",
+                                                               "statements.csv:3")
+    path.write_text("a,relation,b\nwill,befor,death\n", encoding="utf-8")
+    with pytest.raises(UsageError, match="statements.csv:2.*befor"):
+        read_statements(path)

@@ -33,6 +33,7 @@ from ..scene.page import parse_font_size, parse_size, png_dpi
 from ..scene.theme import DEFAULT_THEME, PALETTES
 from ..sources import ColumnMap
 from .config import apply_settings, config_lines
+from .constraints import run_constraints
 from .parser import CONFIG_COMMANDS, DEMO, NOT_SETTINGS, UNSET, build_parser
 from .progress import Progress
 
@@ -333,14 +334,16 @@ def run_check(args, parser) -> int:
                            date_numbers=args.date_numbers, events=_events(args))
     source = _input_path(args, parser)
     with Progress(1, quiet=args.quiet).step(f"reading {source.name}"):
-        report = check(Chart.from_options(source, options).read().loaded)
+        loaded = Chart.from_options(source, options).read().loaded
+        report = check(loaded)
     if args.json:
         print(json.dumps(report.as_dict(), ensure_ascii=False, indent=2))
     else:
         for line in report.lines():     # the report is this command's output: stdout
             _say(line)
         _say(report.summary())
-    return 1 if report.not_drawn else 0
+    inconsistent = args.constraints and run_constraints(loaded.records, args.constraints, _say)
+    return 1 if report.not_drawn or inconsistent else 0
 
 
 def run_parse(args, parser) -> int:

@@ -95,6 +95,9 @@ def build_parser() -> argparse.ArgumentParser:
     validate = commands.add_parser("check", help="report what cannot be read in a table")
     validate.add_argument("input", nargs="?", help="CSV, TSV, XLSX or ODS file")
     validate.add_argument("--json", action="store_true", help="the report as JSON")
+    validate.add_argument("--constraints", metavar="FILE",
+                          help="a table of statements between records (first, relation, "
+                               "second, gap): bounds tightened, contradictions named")
     _table_options(validate)
     _config_options(validate)
 

@@ -156,3 +156,20 @@ def test_statements_are_read_from_a_table(tmp_path):
     path.write_text("a,relation,b\nwill,befor,death\n", encoding="utf-8")
     with pytest.raises(UsageError, match="statements.csv:2.*befor"):
         read_statements(path)
+
+
+def test_check_with_constraints_prints_narrowings_and_contradictions(tmp_path, capsys):
+    from timelines.cli import main
+    people = tmp_path / "people.csv"
+    people.write_text("id,label,start,end\nwill,Will,1690,1690\n"
+                      "death,Death,1680-1700,1680-1700\nburial,Burial,1685-1688,1685-1688\n",
+                      encoding="utf-8")
+    good, bad = tmp_path / "good.csv", tmp_path / "statements.csv"
+    good.write_text("a,relation,b\nwill,before,death\n", encoding="utf-8")
+    bad.write_text("a,relation,b\nwill,before,death\ndeath,before,burial\n", encoding="utf-8")
+    assert main(["check", str(people), "--constraints", str(good)]) == 0
+    assert ("row 3 start: 1680-01-01..1700-12-31 → 1690-01-01..1700-12-31, by good.csv:2"
+            in capsys.readouterr().out)
+    assert main(["check", str(people), "--constraints", str(bad)]) == 1
+    out = capsys.readouterr().out
+    assert "statements.csv:2 (Will before Death)" in out and "cannot all hold" in out

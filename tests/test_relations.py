@@ -3,6 +3,7 @@ probabilities, contemporaries; each outside source named where it is used."""
 from __future__ import annotations
 
 import itertools
+import json
 import math
 import random
 from datetime import date
@@ -264,4 +265,57 @@ def test_relations_with_one_record():
     records = [target, exact("B", 25, 30), exact("C", 12, 17)]
     frame = relations_with(records, target)
     assert list(frame["certain"]) == ["before", "contains"]
-    assert list(frame.columns) == ["a", "b", "b_index", "certain", "possible"]
+    assert list(frame.columns) == ["a", "b", "b_label", "b_index", "certain", "possible"]
+
+
+# --- the command ------------------------------------------------------------------------------
+
+INVENTED_FAMILY = """id,name,born,died
+p1,Anna Wray,1650,1700
+p2,Ben Wray,1660,1690
+p3,Cora Wray,c. 1700,1740
+p4,Dirk Wray,1600,1640
+p5,Ben Wray,1702,1760
+"""
+
+
+@pytest.fixture
+def family(tmp_path):
+    path = tmp_path / "family.csv"
+    path.write_text(INVENTED_FAMILY, encoding="utf-8")
+    return str(path)
+
+
+def run(*argv):
+    from timelines.cli.commands import main
+    return main(["relate", *argv])
+
+
+def test_relate_two_records_by_id_and_label(family, capsys):
+    assert run(family, "p1", "Dirk Wray") == 0
+    assert capsys.readouterr().out.splitlines()[0] == "p1 after p4 (certain)"
+    assert run(family, "p1", "p3", "--format", "json", "--samples", "2000") == 0
+    answer = json.loads(capsys.readouterr().out)
+    assert answer["certain"] is None and "overlaps" in answer["possible"]
+    assert "Monte Carlo" in answer["method"]
+    assert abs(sum(answer["probabilities"].values()) - 1) < 1e-9
+
+
+def test_relate_with_one_record_and_on_a_date(family, capsys):
+    assert run(family, "--with", "p1", "--format", "csv") == 0
+    lines = capsys.readouterr().out.splitlines()
+    assert lines[0] == "a,b,b_label,b_index,certain,possible"
+    assert "p1,p2,Ben Wray,1,contains,contains" in lines
+    assert run(family, "--on", "1697", "--format", "json") == 0
+    active = json.loads(capsys.readouterr().out)
+    assert {row["b"]: row["certain"] for row in active} == {"p1": True, "p3": False}
+
+
+def test_relate_usage_errors(family, capsys):
+    assert run(family, "p1", "p9") == 2
+    assert "no record has the id or label 'p9'" in capsys.readouterr().err
+    assert run(family, "Ben Wray", "p1") == 2
+    assert "names 2 records" in capsys.readouterr().err
+    with pytest.raises(SystemExit) as stopped:
+        run(family, "p1")
+    assert stopped.value.code == 2

@@ -321,6 +321,7 @@ def contemporaries(records: list[Record], target: Record | int | str | Endpoint)
     possible = _possibly_share(mine, days, 0, slice(None))
     certain = _certainly_share(mine, days, 0, slice(None))
     frame = pd.DataFrame({"a": name, "b": [record_name(r) for _, r in dated],
+                          "b_label": [r.label for _, r in dated],
                           "b_index": [index for index, _ in dated],
                           "certain": certain, "possible": possible})
     frame = frame[frame["possible"]].sort_values(["certain", "b_index"],
@@ -371,14 +372,14 @@ def _certainly_share(one: dict, other: dict, mine, theirs) -> np.ndarray:
 
 
 def relations_with(records: list[Record], target: Record) -> pd.DataFrame:
-    """How `target` stands to every other dated record: columns a, b, b_index, certain
-    (the certain relation, or None), possible (the possible ones, space-separated)."""
+    """How `target` stands to every other dated record: columns a, b, b_label, b_index,
+    certain (the certain relation, or None), possible (the possible ones, space-separated)."""
     bounds, name = record_bounds(target), record_name(target)
     rows = []
     for index, record in enumerate(records):
         if record.span is None or record is target:
             continue
         found = relate_bounds(bounds, record_bounds(record), name, record_name(record))
-        rows.append({"a": name, "b": found.b, "b_index": index, "certain": found.certain,
-                     "possible": " ".join(found.possible)})
-    return pd.DataFrame(rows, columns=["a", "b", "b_index", "certain", "possible"])
+        rows.append({"a": name, "b": found.b, "b_label": record.label, "b_index": index,
+                     "certain": found.certain, "possible": " ".join(found.possible)})
+    return pd.DataFrame(rows, columns=["a", "b", "b_label", "b_index", "certain", "possible"])

@@ -36,6 +36,7 @@ from .config import apply_settings, config_lines
 from .constraints import run_constraints
 from .parser import CONFIG_COMMANDS, DEMO, NOT_SETTINGS, UNSET, build_parser
 from .progress import Progress
+from .relate import run_relate
 
 
 # Characters a terminal would act on rather than show: C0 and C1 controls (an escape sequence
@@ -459,6 +460,7 @@ def _plain(result: dict) -> str:
     return f"{result['input']}: {earliest} .. {latest} ({result['precision']}{qualifiers})"
 
 
-COMMANDS = {"render": run_render, "parse": run_parse, "check": run_check, "lanes": run_lanes}
+COMMANDS = {"render": run_render, "parse": run_parse, "check": run_check, "lanes": run_lanes,
+            "relate": run_relate}
 
 __all__ = ["main"]

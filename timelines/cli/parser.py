@@ -118,7 +118,26 @@ def build_parser() -> argparse.ArgumentParser:
                              "labels and page distances take room by it")
     _page_options(report)
     _config_options(report)
+    _relate_command(commands)
     return parser
+
+
+def _relate_command(commands) -> None:
+    relate = commands.add_parser("relate", help="how two records stand to each other: "
+                                                "Allen's relations, certain and possible")
+    relate.add_argument("input", help="CSV, TSV, XLSX or ODS file")
+    relate.add_argument("a", nargs="?", help="a record's id, else its label")
+    relate.add_argument("b", nargs="?", help="another record's id, else its label")
+    relate.add_argument("--with", dest="with_id", metavar="ID",
+                        help="all of one record's relations to the others")
+    relate.add_argument("--on", metavar="DATE",
+                        help="who was possibly / certainly active on DATE (a day in it)")
+    relate.add_argument("--samples", metavar="N", type=_count(1),
+                        help="estimate each relation's probability from N Monte Carlo draws")
+    relate.add_argument("--seed", metavar="N", type=_count(0), default=0,
+                        help="the draws' seed (default 0)")
+    relate.add_argument("--format", choices=("table", "csv", "json"), default="table")
+    _table_options(relate)
 
 
 def _table_options(parser: argparse.ArgumentParser) -> None:

@@ -331,19 +331,39 @@ def contemporaries(records: list[Record], target: Record | int | str | Endpoint)
 
 def contemporary_pairs(records: list[Record]) -> pd.DataFrame:
     """Every pair of dated records that possibly share a day, vectorised over all pairs:
-    columns a, b (names), a_index, b_index (places in `records`, a_index < b_index),
-    certain, possible. Pairs not listed certainly share no day."""
+    columns a, b (names, categorical), a_index, b_index (places in `records`, a_index <
+    b_index), certain, possible. Pairs not listed certainly share no day."""
     indexes = [index for index, record in enumerate(records) if record.span is not None]
     days = _day_arrays([record_bounds(records[index]) for index in indexes])
-    first, second = np.triu_indices(len(indexes), k=1)
-    possible = _possibly_share(days, days, first, second)
-    first, second = first[possible], second[possible]
-    certain = _certainly_share(days, days, first, second)
-    names = np.array([record_name(records[index]) for index in indexes], dtype=object)
+    first, second, certain = _sharing_pairs(days)
+    names, codes = np.unique(np.array([record_name(records[index]) for index in indexes],
+                                      dtype=object).astype(str), return_inverse=True)
     places = np.asarray(indexes, dtype=np.int64)
-    return pd.DataFrame({"a": names[first], "b": names[second], "a_index": places[first],
-                         "b_index": places[second], "certain": certain,
-                         "possible": np.ones(len(first), dtype=bool)})
+    return pd.DataFrame({"a": pd.Categorical.from_codes(codes[first], names),
+                         "b": pd.Categorical.from_codes(codes[second], names),
+                         "a_index": places[first], "b_index": places[second],
+                         "certain": certain, "possible": np.ones(len(first), dtype=bool)})
+
+
+_ROWS_AT_ONCE = 2048     # rows of the pair matrix compared at once: memory stays bounded
+
+
+def _sharing_pairs(days: dict[str, np.ndarray]) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """The pairs (i < j) that possibly share a day, and whether certainly: the comparisons
+    broadcast over blocks of rows of the pair matrix, the upper triangle kept."""
+    found = []
+    count = len(days["first_earliest"])
+    for top in range(0, count, _ROWS_AT_ONCE):
+        rows = slice(top, min(top + _ROWS_AT_ONCE, count))
+        block = {name: column[rows, None] for name, column in days.items()}
+        possible = _possibly_share(block, days, slice(None), slice(None))
+        possible &= np.arange(count)[None, :] > np.arange(rows.start, rows.stop)[:, None]
+        row, column = np.nonzero(possible)
+        certain = _certainly_share(block, days, slice(None), slice(None))[row, column]
+        found.append((row + top, column, certain))
+    if not found:
+        return np.zeros(0, np.int64), np.zeros(0, np.int64), np.zeros(0, bool)
+    return tuple(np.concatenate(parts) for parts in zip(*found))
 
 
 def _day_arrays(bounds: list[Bounds]) -> dict[str, np.ndarray]:

@@ -280,3 +280,49 @@ def test_event_counts_take_arrays():
     edges = np.array([0.0, 10.0, 20.0])
     counts = event_counts(np.array([5.0, 0.0]), np.array([15.0, 10.0]), edges)
     assert list(counts["expected"]) == [1.5, 0.5] and list(counts["certain"]) == [1, 0]
+
+
+# -- the command -----------------------------------------------------------------------------
+
+def _register(tmp_path):
+    path = tmp_path / "finds.csv"
+    path.write_text("id,label,not_before,not_after,site\n1,sherd,1645,1654,North\n"
+                    "2,coin,1650,1650,North\n3,lamp,1660,1672,South\n4,wreck,,1665,South\n",
+                    encoding="utf-8")
+    return str(path)
+
+
+def test_command_table_names_the_kind_and_the_unweighed(tmp_path, capsys):
+    from timelines.cli.commands import main
+    code = main(["activity", _register(tmp_path), "--not-before", "not_before",
+                 "--not-after", "not_after", "--runs", "200", "--seed", "1"])
+    out, err = capsys.readouterr()
+    assert code == 0
+    assert out.startswith("events per decade: aoristic sum")
+    assert "1650–1659" in out and "envelope: 2.5th-97.5th percentile of 200 runs" in out
+    assert "note: 1 record (events) with no bound on a side" in err
+
+
+def test_command_csv_and_json(tmp_path, capsys):
+    import csv
+    import io
+    import json
+    from timelines.cli.commands import main
+    table = _register(tmp_path)
+    options = ["--not-before", "not_before", "--not-after", "not_after", "--group", "site"]
+    assert main(["activity", table, *options, "--format", "csv"]) == 0
+    rows = list(csv.DictReader(io.StringIO(capsys.readouterr().out)))
+    assert {row["group"] for row in rows} == {"North", "South"}
+    assert sum(float(row["expected"]) for row in rows) == pytest.approx(3.0)
+    assert main(["activity", table, *options, "--format", "json", "--per", "century"]) == 0
+    answer = json.loads(capsys.readouterr().out)
+    assert answer["holds"] == "events" and answer["unweighed"] == {"events": 1}
+    assert [row["label"] for row in answer["rows"]] == ["1600–1699", "1600–1699"]
+
+
+def test_command_refuses_an_unknown_period(tmp_path, capsys):
+    from timelines.cli.commands import main
+    with pytest.raises(SystemExit) as exit_:
+        main(["activity", _register(tmp_path), "--per", "fortnight"])
+    assert exit_.value.code == 2
+    assert "cannot make blocks of 'fortnight'" in capsys.readouterr().err

@@ -32,6 +32,7 @@ from ..model import collection_paused
 from ..scene.page import parse_font_size, parse_size, png_dpi
 from ..scene.theme import DEFAULT_THEME, PALETTES
 from ..sources import ColumnMap
+from .activity import run_activity
 from .config import apply_settings, config_lines
 from .constraints import run_constraints
 from .parser import CONFIG_COMMANDS, DEMO, NOT_SETTINGS, UNSET, build_parser
@@ -461,6 +462,7 @@ def _plain(result: dict) -> str:
 
 
 COMMANDS = {"render": run_render, "parse": run_parse, "check": run_check, "lanes": run_lanes,
-            "relate": run_relate}
+            "relate": run_relate,
+            "activity": run_activity}
 
 __all__ = ["main"]

@@ -119,6 +119,7 @@ def build_parser() -> argparse.ArgumentParser:
     _page_options(report)
     _config_options(report)
     _relate_command(commands)
+    _activity_command(commands)
     return parser
 
 
@@ -138,6 +139,32 @@ def _relate_command(commands) -> None:
                         help="the draws' seed (default 0)")
     relate.add_argument("--format", choices=("table", "csv", "json"), default="table")
     _table_options(relate)
+
+
+def _activity_command(commands) -> None:
+    counts = commands.add_parser("activity", help="how many records were active per decade "
+                                                  "(year, century, N years): certain, possible, "
+                                                  "expected, and an envelope")
+    counts.add_argument("input", nargs="?", help="CSV, TSV, XLSX or ODS file")
+    counts.add_argument("--per", metavar="PERIOD", type=_checked_period, default="decade",
+                        help="year, decade (default), century, millennium or N years")
+    counts.add_argument("--runs", metavar="N", type=_count(0), default=0,
+                        help="a Monte Carlo envelope of the count from N runs (default none)")
+    counts.add_argument("--seed", metavar="N", type=_count(0), default=0,
+                        help="the runs' seed (default 0)")
+    counts.add_argument("--era", choices=ERAS, default=DEFAULT_THEME.era, help="year labels")
+    counts.add_argument("--format", choices=("table", "csv", "json"), default="table")
+    _table_options(counts)
+    _window_options(counts)
+
+
+def _checked_period(text: str) -> str:
+    from ..analysis.activity import block_width
+    try:
+        block_width(text)
+    except UsageError as error:
+        raise argparse.ArgumentTypeError(f"{error} ({error.hint})") from None
+    return text
 
 
 def _table_options(parser: argparse.ArgumentParser) -> None:

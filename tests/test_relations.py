@@ -319,3 +319,11 @@ def test_relate_usage_errors(family, capsys):
     with pytest.raises(SystemExit) as stopped:
         run(family, "p1")
     assert stopped.value.code == 2
+
+
+def test_relate_csv_keeps_formulas_from_running(tmp_path, capsys):
+    path = tmp_path / "risky.csv"
+    path.write_text("id,name,born,died\nq1,=HYPERLINK(1),1650,1700\nq2,Plain,1660,1690\n",
+                    encoding="utf-8")
+    assert run(str(path), "--with", "q2", "--format", "csv") == 0
+    assert "q2,q1,'=HYPERLINK(1),0,during,during" in capsys.readouterr().out.splitlines()

@@ -69,7 +69,7 @@ def _note_unread(problems, commands) -> None:
 
 def _write_frame(frame, form: str, commands) -> None:
     if form == "csv":
-        frame.to_csv(sys.stdout, index=False, lineterminator="\n")
+        _formulas_guarded(frame).to_csv(sys.stdout, index=False, lineterminator="\n")
     elif form == "json":
         print(frame.to_json(orient="records", force_ascii=False))
     elif frame.empty:
@@ -77,6 +77,20 @@ def _write_frame(frame, form: str, commands) -> None:
     else:
         for line in frame.fillna("").to_string(index=False).splitlines():
             commands._say(line)
+
+
+# What a spreadsheet reads as the start of a formula (OWASP, "CSV Injection"), as in `lanes`.
+_FORMULA_STARTS = ("=", "+", "-", "@", "\t", "\r")
+
+
+def _formulas_guarded(frame):
+    """The table's own text (names, labels) with a `'` before what a spreadsheet would run."""
+    guarded = frame.copy()
+    for column in ("a", "b", "b_label"):
+        if column in guarded:
+            guarded[column] = [f"'{text}" if str(text).startswith(_FORMULA_STARTS) else text
+                               for text in guarded[column]]
+    return guarded
 
 
 def _write_relation(found, form: str, commands) -> None:

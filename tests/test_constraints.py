@@ -173,3 +173,29 @@ def test_check_with_constraints_prints_narrowings_and_contradictions(tmp_path, c
     assert main(["check", str(people), "--constraints", str(bad)]) == 1
     out = capsys.readouterr().out
     assert "statements.csv:2 (Will before Death)" in out and "cannot all hold" in out
+
+
+def test_render_draws_the_tightened_windows(tmp_path, capsys):
+    from timelines import Chart
+    from timelines.cli import main
+    from timelines.errors import TimelineError
+
+    people = tmp_path / "people.csv"
+    people.write_text("id,label,start,end\nwill,Will,1690,1690\n"
+                      "death,Death,1680-1700,1680-1700\nburial,Burial,1685-1688,1685-1688\n",
+                      encoding="utf-8")
+    good, bad = tmp_path / "good.csv", tmp_path / "bad.csv"
+    good.write_text("a,relation,b\nwill,before,death\n", encoding="utf-8")
+    bad.write_text("a,relation,b\nwill,before,death\ndeath,before,burial\n", encoding="utf-8")
+    chart = Chart(people).constrain(good)
+    death = next(r for r in chart.records if r.id == "death")
+    assert death.span.start.earliest == fixed_from_gregorian(1690, 1, 1)   # by the will
+    assert chart.layout().narrowed == 2             # its start and its end
+    assert main(["render", str(people), "--constraints", str(good),
+                 "-o", str(tmp_path / "c.svg")]) == 0
+    assert "2 bounds narrowed by the statements of --constraints" in capsys.readouterr().err
+    with pytest.raises(TimelineError, match="cannot all hold"):
+        Chart(people).constrain(bad).records
+    assert main(["render", str(people), "--constraints", str(bad),
+                 "-o", str(tmp_path / "d.svg")]) == 1
+    assert not (tmp_path / "d.svg").exists()

@@ -18,6 +18,7 @@ from pathlib import Path
 from typing import Callable, Iterable
 
 from ..check.living import withhold_possibly_living
+from ..analysis.constraints import read_statements, tighten
 from ..check.durations import bound_by_longest
 from ..check.report import Finding, Report, check
 from ..dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
@@ -75,6 +76,7 @@ class ChartOptions:
     size: PageSize | None = None        # the page; its width overrides the theme's
     facet_order: str = "first"          # first, name, size, or facet values separated by commas
     pages: bool = False                 # a PDF split into pages at group breaks
+    constraints: str | Path | None = None   # statements between records that tighten bounds
     longest: str | None = None          # a longest plausible duration bounding open sides
     longest_column: str | None = None   # a column giving each record its own
     longest_by_group: tuple[tuple[str, str], ...] = ()   # (group, duration): each group's own
@@ -106,6 +108,7 @@ class Arranged:
     bands: LoadResult | None = None     # the --bands table
     panels: tuple[Panel, ...] = ()      # with --facet: one placement per value
     bounded: int = 0                    # records whose open side --longest bounded
+    narrowed: int = 0                   # bounds the --constraints statements narrowed
 
     @property
     def placements(self) -> tuple[Placement, ...]:
@@ -210,6 +213,7 @@ class ReadTable:
     withheld: int = 0                   # records shown without their details
     bounded: int = 0                    # records whose open side --longest bounded
     findings: tuple[Finding, ...] = ()  # what those steps found worth a warning
+    narrowed: int = 0                   # bounds the --constraints statements narrowed
 
 
 def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTable:
@@ -229,7 +233,22 @@ def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTab
                               date_numbers=options.date_numbers, events=options.events)
     loaded, withheld = _withhold(loaded, options.privacy)
     read = ReadTable(loaded, columns, header, withheld)
-    return _bound_open_sides(read, options)
+    return _tightened(_bound_open_sides(read, options), options)
+
+
+def _tightened(read: ReadTable, options: ChartOptions) -> ReadTable:
+    """The records' windows narrowed by the statements of `--constraints` (a simple temporal
+    network, analysis.constraints); statements that cannot all hold stop the run, named."""
+    if options.constraints is None:
+        return read
+    result = tighten(list(read.loaded.records), read_statements(options.constraints))
+    if not result.consistent:
+        error = TimelineError("the statements cannot all hold: "
+                              + str(result.contradictions[0]))
+        error.hint = "timelines check TABLE --constraints FILE lists what each statement narrows"
+        raise error
+    return replace(read, loaded=replace(read.loaded, records=result.records),
+                   narrowed=len(result.narrowed))
 
 
 def _detected_columns(table: Table, given: ColumnMap) -> ColumnMap:
@@ -331,7 +350,7 @@ def arrange_read(read: ReadTable, options: ChartOptions = ChartOptions()) -> Arr
     bands = (read_bands(options.bands, options.settings, options.date_numbers,
                         options.encoding) if options.bands is not None else None)
     arranged = Arranged(loaded, report, columns, None, None, read.withheld, tuple(outside),
-                        bands, bounded=read.bounded)
+                        bands, bounded=read.bounded, narrowed=read.narrowed)
     dated = [r for r in kept if r.span is not None]
     if not dated:
         return arranged

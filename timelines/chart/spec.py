@@ -217,6 +217,12 @@ class Chart:
                               end=not_after or columns.end)
         return self._with(columns=columns, events=True)
 
+    def constrain(self, statements: str | PathLike | None) -> "Chart":
+        """Narrow the records' windows by a table of statements between them ("the will before
+        the death", "apprenticeship lasts 7y"; docs/api.md, analysis.constraints): the chart
+        draws the tightened windows; statements that cannot all hold stop it, named."""
+        return self._with(constraints=statements)
+
     def withhold_living(self, as_of: int | None = None, years: int = 100) -> "Chart":
         """Show records that may be of living persons without their names and details
         (docs/privacy.md): those that could have started within `years` before `as_of`

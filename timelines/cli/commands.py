@@ -232,7 +232,8 @@ def _render_options(args) -> ChartOptions:
         text=args.text_mode, privacy=_privacy(args), subtitle=args.subtitle,
         credit=args.credit, notes=tuple(notes), window=_window(args, settings),
         bands=args.bands, facet=args.facet, facet_order=args.facet_order, size=size,
-        date_numbers=args.date_numbers, pages=args.pages, events=_events(args),
+        date_numbers=args.date_numbers, pages=args.pages, constraints=args.constraints,
+        events=_events(args),
         longest=args.longest, longest_column=args.longest_column,
         longest_by_group=_group_durations(args))
 
@@ -259,6 +260,9 @@ def _print_run(arranged, args, era: str) -> None:
         people = "1 record" if arranged.withheld == 1 else f"{arranged.withheld} records"
         print(f"note: {people} of possibly living persons shown without their details "
               "(--withhold-living)", file=sys.stderr)
+    if arranged.narrowed:
+        _say(f"note: {arranged.narrowed} bounds narrowed by the statements of --constraints",
+             file=sys.stderr)
     if arranged.bounded:
         records = "1 record's" if arranged.bounded == 1 else f"{arranged.bounded} records'"
         _say(f"note: {records} open ends bounded by the longest duration (--longest)",

@@ -74,6 +74,9 @@ def build_parser() -> argparse.ArgumentParser:
                            "one, 'other' (default: every value its own, repeating past the "
                            "palette's end, with a warning)")
     _page_options(draw)
+    draw.add_argument("--constraints", metavar="FILE",
+                      help="a table of statements between records (a before b, a lasts 7y, "
+                           "...) that narrow their windows: the chart draws them narrowed")
     draw.add_argument("--pages", action="store_true",
                       help="a PDF in pages at group breaks, each the --size height (A4 of the "
                            "chart's width without one), the axis on every page")

@@ -10,17 +10,13 @@ chart is fitted to (`scene.page`).
 """
 from __future__ import annotations
 
-from dataclasses import dataclass, field, replace
+from dataclasses import dataclass, replace
 from functools import partial
 from operator import attrgetter
-from os import PathLike
 from pathlib import Path
 from typing import Callable, Iterable
 
-from ..check.living import withhold_possibly_living
-from ..analysis.constraints import read_statements, tighten
-from ..check.durations import bound_by_longest
-from ..check.report import Finding, Report, check
+from ..check.report import Report, check
 from ..dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
 from ..errors import TimelineError, UsageError, did_you_mean
 from ..layout import (
@@ -29,7 +25,7 @@ from ..layout import (
 )
 from ..layout.grouping import check_listed_names
 from ..layout.settings import group_order
-from ..layout.distances import DAYS_PER_UNIT, Distance, parse_distance
+from ..layout.distances import Distance, parse_distance
 from ..model import Record
 from ..render import output_format, writable, write
 from ..scene.bands import on_axis
@@ -39,58 +35,18 @@ from ..scene.measure import (
     LABEL_CLEARANCE, chart_scale, days_per_px, drawn_measure, key_width, label_width,
 )
 from ..scene.fonts import font_list
-from ..scene.page import FittedPage, PageSize, fit_height, font_note
+from ..scene.page import FittedPage, fit_height, font_note
 from ..scene.pages import split_pages
 from ..scene.primitives import Scene
 from ..scene.scale import TimeScale
 from ..scene.theme import DEFAULT_THEME, Theme
-from ..sources import ColumnMap, LoadResult, detect_columns, load_records, read_table
+from ..sources import ColumnMap, LoadResult
 from ..sources.columns import existing_column
-from ..sources.conventions import signed_year_notes
 from ..sources.fields import column_reader
-from ..sources.tables import TITLE_ROW, Table
-from ..sources.frames import table_from_data
+from .options import ChartOptions
+from .reading import ReadTable, read_bands, read_source
 
 _GROUP = attrgetter("group")   # a record's group: the C-level getter, called per record
-
-
-@dataclass(frozen=True, slots=True)
-class ChartOptions:
-    columns: ColumnMap = field(default_factory=ColumnMap)
-    sheet: str | None = None
-    header_row: int = 1                 # the row naming the columns (titles may stand above)
-    settings: DateSettings = DEFAULT_SETTINGS
-    theme: Theme = DEFAULT_THEME
-    title: str = ""
-    strict: bool = False
-    dpi: float = 150.0
-    lanes: LaneSettings = field(default_factory=LaneSettings)
-    text: str = "text"                  # SVG text: "text", or "paths" (glyph outlines)
-    privacy: "Privacy | None" = None    # withhold possibly living persons' details
-    subtitle: str = ""
-    credit: str = ""                    # a source or credit line at the foot of the page
-    notes: tuple[str, ...] = ()         # the user's notes under the chart
-    window: TimeWindow | None = None    # --from/--to: the time the axis shows
-    bands: object = None                # a table of named periods drawn behind the lanes
-    facet: str | None = None            # a column: one small timeline per value
-    size: PageSize | None = None        # the page; its width overrides the theme's
-    facet_order: str = "first"          # first, name, size, or facet values separated by commas
-    pages: bool = False                 # a PDF split into pages at group breaks
-    constraints: str | Path | None = None   # statements between records that tighten bounds
-    longest: str | None = None          # a longest plausible duration bounding open sides
-    longest_column: str | None = None   # a column giving each record its own
-    longest_by_group: tuple[tuple[str, str], ...] = ()   # (group, duration): each group's own
-    date_numbers: str = "years"         # a spreadsheet's numbers in date columns: years or serials
-    encoding: str | None = None         # of text tables (and --bands): None, found (decoding.py)
-    events: bool = False                # each row one moment in a window (not-before, not-after)
-
-
-@dataclass(frozen=True, slots=True)
-class Privacy:
-    """Withhold the details of possibly living persons (see `check.living`, docs/privacy.md)."""
-
-    as_of_year: int
-    years: int = 100
 
 
 @dataclass(frozen=True, slots=True)
@@ -202,140 +158,6 @@ def page_options(options: ChartOptions) -> ChartOptions:
     return replace(options, theme=theme)
 
 
-@dataclass(frozen=True, slots=True)
-class ReadTable:
-    """What the read and parse steps give: the records and problems of a table, the columns
-    that played each part, and the table's header (None for records made by the caller)."""
-
-    loaded: LoadResult
-    columns: ColumnMap
-    header: tuple[str, ...] | None
-    withheld: int = 0                   # records shown without their details
-    bounded: int = 0                    # records whose open side --longest bounded
-    findings: tuple[Finding, ...] = ()  # what those steps found worth a warning
-    narrowed: int = 0                   # bounds the --constraints statements narrowed
-
-
-def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTable:
-    """Read and parse `data`: a table file's path, a pandas DataFrame, an iterable of rows
-    (mappings of column name to cell), or an iterable of Records made by the caller."""
-    if isinstance(data, (str, PathLike)):
-        table = read_table(data, options.sheet, header_row=options.header_row,   # read
-                           encoding=options.encoding)
-    else:
-        table = table_from_data(data)
-    if isinstance(table, LoadResult):                                   # records as given
-        columns, header, loaded = options.columns, None, table
-    else:
-        columns, header = _detected_columns(table, options.columns), table.header
-        table = _with_signed_year_notes(table, columns, options.settings)
-        loaded = load_records(table, columns, options.settings,          # parse
-                              date_numbers=options.date_numbers, events=options.events)
-    loaded, withheld = _withhold(loaded, options.privacy)
-    read = ReadTable(loaded, columns, header, withheld)
-    return _tightened(_bound_open_sides(read, options), options)
-
-
-def _tightened(read: ReadTable, options: ChartOptions) -> ReadTable:
-    """The records' windows narrowed by the statements of `--constraints` (a simple temporal
-    network, analysis.constraints); statements that cannot all hold stop the run, named."""
-    if options.constraints is None:
-        return read
-    result = tighten(list(read.loaded.records), read_statements(options.constraints))
-    if not result.consistent:
-        error = TimelineError("the statements cannot all hold: "
-                              + str(result.contradictions[0]))
-        error.hint = "timelines check TABLE --constraints FILE lists what each statement narrows"
-        raise error
-    return replace(read, loaded=replace(read.loaded, records=result.records),
-                   narrowed=len(result.narrowed))
-
-
-def _detected_columns(table: Table, given: ColumnMap) -> ColumnMap:
-    """The table's columns by part; when none is a date column and the header looks like a
-    title above the real one, the error says which row to give as --header-row."""
-    try:
-        return detect_columns(table.header, given)
-    except UsageError as error:
-        titles = [note.hint for note in table.notes if TITLE_ROW in note.reason]
-        if titles:
-            raise UsageError(str(error), hint=titles[0]) from error
-        raise
-
-
-def _bound_open_sides(read: ReadTable, options: ChartOptions) -> ReadTable:
-    """Unknown and one-sided ends bounded by the user's longest plausible duration."""
-    if (options.longest is None and options.longest_column is None
-            and not options.longest_by_group):
-        return read
-    longest_of = _longest_of(options, read.columns, read.header)
-    text = ("the longest duration set for it" if options.longest_column
-            or options.longest_by_group else f"--longest {options.longest}")
-    bounded = bound_by_longest(read.loaded.records, longest_of, text)
-    return replace(read, loaded=replace(read.loaded, records=bounded.records),
-                   bounded=bounded.count, findings=read.findings + bounded.findings)
-
-
-def _longest_of(options: ChartOptions, columns: ColumnMap, header):
-    """A record's longest duration in days: its cell of --longest-column when it holds one
-    (a time such as 90y, or a number of years), else its group's (--longest-by-group), else
-    --longest."""
-    table_wide = duration_days(options.longest, "--longest") if options.longest else None
-    by_group = {group: duration_days(text, f"--longest-by-group {group}")
-                for group, text in options.longest_by_group}
-
-    def fallback_of(record: Record) -> float | None:
-        return by_group.get(record.group or "", table_wide)
-
-    if options.longest_column is None:
-        return fallback_of
-    read_cell = column_reader(columns, header, options.longest_column, "longest column")
-    known: dict[str, float | None] = {}
-
-    def longest_of(record: Record) -> float | None:
-        text = (read_cell(record) or "").strip()
-        if text not in known:
-            known[text] = _cell_days(text) if text else None
-        return known[text] if known[text] is not None else fallback_of(record)
-
-    return longest_of
-
-
-def group_durations(text: str) -> tuple[tuple[str, str], ...]:
-    """`Apprentice=7y, Journeyman=30y` as (group, duration) pairs; a usage error for a part
-    without a name and a time."""
-    pairs = []
-    for part in (piece.strip() for piece in text.split(",")):
-        name, equals, duration = part.rpartition("=")
-        if not part or not equals or not name.strip():
-            raise UsageError(f"cannot read {part!r} in {text!r}",
-                             hint="give group names and times: Apprentice=7y, Journeyman=30y")
-        duration_days(duration.strip(), f"the duration of {name.strip()!r}")
-        pairs.append((name.strip(), duration.strip()))
-    return tuple(pairs)
-
-
-def duration_days(text: str, option: str) -> float:
-    """A time such as 110y or 18mo in days; a usage error for a page length or no time."""
-    distance = parse_distance(text)
-    if distance.unit != "days":
-        raise UsageError(f"{option} {text!r} is a page length, not a time",
-                         hint="give a time such as 110y, 40y or 18mo")
-    return distance.amount
-
-
-def _cell_days(text: str) -> float | None:
-    """A duration cell: `90y`, `18mo`, or a bare number of years; None when unreadable."""
-    try:
-        return float(text) * DAYS_PER_UNIT["y"]
-    except ValueError:
-        pass
-    try:
-        return duration_days(text, "a duration")
-    except UsageError:
-        return None
-
-
 def arrange(source: object, options: ChartOptions = ChartOptions()) -> Arranged:
     """Read, parse, check and lay out `source` (anything `read_source` takes)."""
     return arrange_read(read_source(source, page_options(options)), options)
@@ -386,40 +208,6 @@ def _arrange_panels(arranged: Arranged, dated: list[Record], options: ChartOptio
                                        tree))
                    for (name, members), tree in zip(facets, trees))
     return replace(arranged, scale=scale, panels=panels)
-
-
-def read_bands(source: object, settings: DateSettings = DEFAULT_SETTINGS,
-               date_numbers: str = "years", encoding: str | None = None) -> LoadResult:
-    """The named periods of a `--bands` table (a path, a DataFrame or rows): columns label,
-    start, end (or when); a text file in `encoding`, or as read_table finds it."""
-    if isinstance(source, (str, PathLike)):
-        given = read_table(source, encoding=encoding)
-    else:
-        given = table_from_data(source)
-    if isinstance(given, LoadResult):
-        return given
-    columns = detect_columns(given.header, ColumnMap())
-    return load_records(_with_signed_year_notes(given, columns, settings), columns, settings,
-                        date_numbers=date_numbers)
-
-
-def _with_signed_year_notes(table: Table, columns: ColumnMap,
-                            settings: DateSettings) -> Table:
-    """The table with a note per date column that writes years as signed numbers (-300)."""
-    notes = signed_year_notes(table, columns, settings)
-    return replace(table, notes=table.notes + notes) if notes else table
-
-
-def _withhold(loaded: LoadResult, privacy: Privacy | None) -> tuple[LoadResult, int]:
-    if privacy is None:
-        return loaded, 0
-    kept = withhold_possibly_living(loaded.records, privacy.as_of_year, privacy.years)
-    return replace(loaded, records=kept.records), kept.count
-
-
-def read_records(source: object, options: ChartOptions = ChartOptions()) -> LoadResult:
-    """Read and parse `source` (anything `read_source` takes), nothing withheld."""
-    return read_source(source, replace(options, privacy=None)).loaded
 
 
 def arranged_scene(arranged: Arranged, options: ChartOptions) -> Scene:

@@ -37,10 +37,12 @@ from ..calendar import ERAS
 from ..sources import ColumnMap
 from ..sources.decoding import checked_encoding
 from ..sources.serials import DATE_NUMBERS
+from .options import ChartOptions, Privacy
 from .pipeline import (
-    Arranged, ChartOptions, Privacy, ReadTable, arrange_read, arranged_page, color_warning,
-    duration_days, page_options, paged_scenes, parse_window, read_source,
+    Arranged, arrange_read, arranged_page, color_warning, page_options, paged_scenes,
+    parse_window,
 )
+from .reading import ReadTable, duration_days, read_source
 
 _COLUMN_PARTS = tuple(f.name for f in fields(ColumnMap))
 _LANE_SETTINGS = tuple(f.name for f in fields(LaneSettings))

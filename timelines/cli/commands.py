@@ -21,7 +21,7 @@ from importlib import resources
 from pathlib import Path
 
 from ..chart import Chart, ChartOptions, Privacy, output_path, parse_window
-from ..chart.pipeline import group_durations
+from ..chart.reading import group_durations
 from ..check.report import check
 from ..dates import SETTING_HELP, DateSettings, describe, explain, settings_from_options
 from ..errors import TimelineError, UsageError

@@ -9,7 +9,9 @@ import json
 import sys
 
 from ..analysis.activity import PERIODS, activity
-from ..chart import Chart, ChartOptions, parse_window
+from ..chart import Chart, ChartOptions, output_path, parse_window
+from ..chart.activity import save_activity
+from ..scene.theme import DEFAULT_THEME
 from ..errors import TimelineError
 
 # Tables are pandas DataFrames (annotations only: the CLI leaves pandas to analysis).
@@ -35,9 +37,18 @@ def run_activity(args, parser) -> int:
                      era=args.era, start=window and window.start, end=window and window.end)
     if table.empty:
         raise TimelineError("nothing to count: no row has a usable date")
-    _write(table, args, commands._say)
-    _print_notes(table, len(loaded.problems), commands._say)
-    return 1 if loaded.problems else 0
+    if args.output:
+        output_path(args.output)
+        theme = DEFAULT_THEME.with_options(era=args.era, calendar=settings.reckoning)
+        commands._say(f"wrote {save_activity(table, args.output, args.title, theme)}",
+                      file=sys.stderr)
+    else:
+        _write(table, args, commands._say)
+    # Notes (a convention used, merged cells filled) are said, not counted as rows lost.
+    unread = len({(p.source, p.row) for p in loaded.problems
+                  if p.kind in ("error", "contradiction")})
+    _print_notes(table, unread, commands._say)
+    return 1 if unread else 0
 
 
 def _write(table: pandas.DataFrame, args, say) -> None:

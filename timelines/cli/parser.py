@@ -157,6 +157,9 @@ def _activity_command(commands) -> None:
                         help="the runs' seed (default 0)")
     counts.add_argument("--era", choices=ERAS, default=DEFAULT_THEME.era, help="year labels")
     counts.add_argument("--format", choices=("table", "csv", "json"), default="table")
+    counts.add_argument("-o", "--output", help="OUT.svg, OUT.png or OUT.pdf: the counts as a "
+                                              "chart (the table is not printed then)")
+    counts.add_argument("--title", default="", help="the chart's title")
     _table_options(counts)
     _window_options(counts)
 

@@ -1,0 +1,63 @@
+"""The activity chart (issue 11): bars of the expected count, the envelope as a band, the
+certain and possible counts as step lines, checked on the scene's numbers."""
+from __future__ import annotations
+
+import xml.etree.ElementTree as ET
+
+import pytest
+
+from timelines import Chart
+from timelines.analysis.activity import activity
+from timelines.chart.activity import activity_chart
+from timelines.cli import main
+from timelines.scene.primitives import Line, Rect, Text, walk
+
+ROWS = [{"label": f"Keeper {i}", "start": f"c. {1600 + 7 * i}", "end": f"{(1640 + 7 * i) // 10 * 10}s"}
+        for i in range(12)] + [{"label": "Unknown end", "start": "1650", "end": ""}]
+
+
+def _panel(scene):
+    [panel] = [g for g in scene.children if getattr(g, "css_class", "") == "activity"]
+    return list(walk(panel.children))
+
+
+def _scene(runs: int = 0):
+    table = activity(Chart(ROWS).records, per="decade", runs=runs, seed=3)
+    return table, activity_chart(table, "Keepers per decade (invented)")
+
+
+def test_bars_stand_as_high_as_the_expected_counts():
+    table, scene = _scene()
+    bars = [p for p in _panel(scene) if isinstance(p, Rect) and p.css_class == "expected"]
+    expected = [value for value in table["expected"] if value > 0]
+    assert len(bars) == len(expected)
+    heights = [bar.height for bar in bars]
+    tallest = max(heights)
+    for height, value in zip(heights, expected, strict=True):   # proportional to the count
+        assert height / tallest == pytest.approx(value / max(expected), rel=1e-6)
+
+
+def test_certain_and_possible_lines_and_the_envelope():
+    table, scene = _scene(runs=200)
+    kinds = {p.css_class for p in _panel(scene) if isinstance(p, (Rect, Line))}
+    assert {"certain", "possible", "envelope", "expected"} <= kinds
+    certain = [p for p in _panel(scene) if isinstance(p, Line) and p.css_class == "certain"
+               and p.y1 == p.y2]
+    assert len(certain) == len(table)              # one level per block
+    legend = [t.text for t in walk(scene.children) if isinstance(t, Text)
+              and t.css_class == "legend-text"]
+    assert legend[0].startswith("Monte Carlo envelope")
+    notes = " ".join(t.text for t in walk(scene.children) if isinstance(t, Text)
+                     and t.css_class == "note")
+    assert "1 record (spans) with no bound on a side" in notes
+
+
+def test_the_command_writes_the_chart(tmp_path, capsys):
+    table = tmp_path / "keepers.csv"
+    table.write_text("label,start,end\n" + "\n".join(f"{r['label']},{r['start']},{r['end']}"
+                                                      for r in ROWS) + "\n", encoding="utf-8")
+    out = tmp_path / "activity.svg"
+    assert main(["activity", str(table), "--runs", "100", "-o", str(out)]) == 0
+    root = ET.parse(out).getroot()
+    assert root.tag == "{http://www.w3.org/2000/svg}svg"
+    assert "wrote" in capsys.readouterr().err

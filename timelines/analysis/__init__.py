@@ -8,5 +8,6 @@ and pandas DataFrames for the command line and the API:
 - `activity`: how many were active per block of time, aoristic for events and by overlap
   for spans, with a Monte Carlo envelope (Crema 2012);
 - `constraints`: statements between records as a simple temporal network (Dechter, Meiri &
-  Pearl 1991): bounds tightened, contradictions named.
+  Pearl 1991): bounds tightened, contradictions named; `network` holds the network itself and
+  its solvers (Floyd–Warshall, Bellman–Ford, the shortest negative cycle).
 """

@@ -61,3 +61,15 @@ def test_the_command_writes_the_chart(tmp_path, capsys):
     root = ET.parse(out).getroot()
     assert root.tag == "{http://www.w3.org/2000/svg}svg"
     assert "wrote" in capsys.readouterr().err
+
+
+def test_relate_and_activity_read_a_config_file_and_notes_are_no_loss(tmp_path, capsys):
+    table = tmp_path / "keepers.csv"
+    table.write_text("label,start,end\nA,1650,1700s\nB,1660,1680\n", encoding="utf-8")
+    config = tmp_path / "counts.toml"
+    config.write_text('per = "century"\n', encoding="utf-8")
+    assert main(["activity", str(table), "--config", str(config)]) == 0
+    captured = capsys.readouterr()
+    assert "1600–1699" in captured.out and "could not be read" not in captured.err
+    assert main(["relate", str(table), "A", "B", "--config", str(config)]) == 0
+    assert "could not be read" not in capsys.readouterr().err   # a 1700s note is no loss

@@ -28,8 +28,8 @@ LANE_DEFAULTS = LaneSettings()
 # Options that say what to run or where output goes, not how: never read from a config file.
 NOT_SETTINGS = frozenset({"help", "input", "output", "demo", "config", "print_config", "json",
                           "format", "command", "debug", "version", "text", "quiet",
-                          "explain"})
-CONFIG_COMMANDS = ("render", "check", "lanes", "parse")
+                          "explain", "with_id", "on"})
+CONFIG_COMMANDS = ("render", "check", "lanes", "parse", "relate", "activity")
 UNSET = {**{part: "found from the header names" for part in
             ("start", "end", "when", "label", "group", "color", "id")},
          "sheet": "the first sheet", "subgroup": "none", "lane-column": "none",
@@ -142,6 +142,7 @@ def _relate_command(commands) -> None:
                         help="the draws' seed (default 0)")
     relate.add_argument("--format", choices=("table", "csv", "json"), default="table")
     _table_options(relate)
+    _config_options(relate)
 
 
 def _activity_command(commands) -> None:
@@ -160,6 +161,7 @@ def _activity_command(commands) -> None:
     counts.add_argument("-o", "--output", help="OUT.svg, OUT.png or OUT.pdf: the counts as a "
                                               "chart (the table is not printed then)")
     counts.add_argument("--title", default="", help="the chart's title")
+    _config_options(counts)
     _table_options(counts)
     _window_options(counts)
 

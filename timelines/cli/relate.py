@@ -62,8 +62,12 @@ def _date(text: str, options: ChartOptions):
 
 
 def _note_unread(problems, commands) -> None:
-    if problems:
-        commands._say(f"note: {len(problems)} rows could not be read and take no part "
+    """How many rows take no part: those with errors or contradictions (notes on a
+    convention or on merged cells are no loss)."""
+    unread = len({(p.source, p.row) for p in problems if p.kind in ("error", "contradiction")})
+    if unread:
+        rows = "1 row" if unread == 1 else f"{unread} rows"
+        commands._say(f"note: {rows} could not be read and take no part "
                       "(timelines check lists them)", file=sys.stderr)
 
 

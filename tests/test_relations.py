@@ -11,8 +11,9 @@ from datetime import date
 import pytest
 
 from timelines.analysis.relations import (
-    ALLEN_RELATIONS, APART, CONVERSES, CRM_RELATIONS, classify, contemporaries,
+    ALLEN_RELATIONS, APART, CONVERSES, CRM_RELATIONS, classify, compose, contemporaries,
     contemporary_pairs, record_bounds, relate, relations_with)
+from timelines.errors import TimelineError
 from timelines.model import EVENT, Endpoint, Provenance, Record, Span
 
 
@@ -79,6 +80,51 @@ def test_allens_converse_table():
                "equals": "equals"}
     both_ways = {**written, **{inverse: name for name, inverse in written.items()}}
     assert CONVERSES == both_ways
+
+
+# Allen (1983), Fig. 4, the transitivity table: entries FROM MEMORY (symbols < m o d s f =
+# and their inverses), each the relations A may have to C given A r1 B and B r2 C.
+ALL = set(ALLEN_RELATIONS)
+SHARING_TIME = ALL - APART
+COMPOSITION_ENTRIES = [
+    ("before", "before", {"before"}),
+    ("before", "after", ALL),
+    ("meets", "meets", {"before"}),
+    ("overlaps", "overlaps", {"before", "meets", "overlaps"}),
+    ("during", "during", {"during"}),
+    ("starts", "starts", {"starts"}),
+    ("finishes", "finishes", {"finishes"}),
+    ("before", "during", {"before", "overlaps", "meets", "during", "starts"}),
+    ("during", "before", {"before"}),
+    ("during", "after", {"after"}),
+    ("during", "contains", ALL),
+    ("contains", "during", SHARING_TIME),       # Allen's "o oi dur con ="
+    ("meets", "during", {"overlaps", "during", "starts"}),
+    ("overlaps", "during", {"overlaps", "during", "starts"}),
+    ("starts", "during", {"during"}),
+    ("meets", "met-by", {"finished-by", "equals", "finishes"}),
+    ("met-by", "meets", {"starts", "equals", "started-by"}),
+]
+
+
+@pytest.mark.parametrize("first, second, expected", COMPOSITION_ENTRIES)
+def test_allens_composition_table_entries(first, second, expected):
+    assert set(compose(first, second)) == expected
+
+
+def test_the_composition_table_as_a_whole():
+    table = {(r, s): set(compose(r, s)) for r in ALLEN_RELATIONS for s in ALLEN_RELATIONS}
+    # Its 169 entries hold 409 relations in all (Allen 1983, Fig. 4; the total FROM MEMORY).
+    assert sum(map(len, table.values())) == 409
+    for (r, s), found in table.items():
+        assert table["equals", s] == {s} and table[r, "equals"] == {r}   # equals: identity
+        # Converses: (r . s)^-1 = s^-1 . r^-1 (an algebraic law of relation composition).
+        assert {CONVERSES[x] for x in found} == table[CONVERSES[s], CONVERSES[r]]
+
+
+def test_compose_names_an_unknown_relation():
+    with pytest.raises(TimelineError, match="'precedes' is not one of Allen's relations"):
+        compose("precedes", "before")
 
 
 @pytest.mark.parametrize("points", [4, 5, 6, 7])

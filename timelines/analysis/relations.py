@@ -303,6 +303,31 @@ def classify(a_start, a_end, b_start, b_end) -> np.ndarray:
     return np.where(codes >= 0, codes, shared)
 
 
+def compose(first: str, second: str) -> tuple[str, ...]:
+    """Allen's composition: if A `first` B and B `second` C, the relations A may have to C,
+    in ALLEN_RELATIONS order. Decided by enumeration: three intervals have six endpoints, so
+    every order of them appears among intervals with ends on six points; of those triples
+    whose A-B and B-C relations match, the A-C relations found are exactly the possible ones."""
+    for name in (first, second):
+        if name not in CONVERSES:
+            raise TimelineError(f"{name!r} is not one of Allen's relations: "
+                                + ", ".join(ALLEN_RELATIONS))
+    ab, bc, ac = _TRIPLES
+    wanted = (ab == ALLEN_RELATIONS.index(first)) & (bc == ALLEN_RELATIONS.index(second))
+    return tuple(ALLEN_RELATIONS[code] for code in np.unique(ac[wanted]))
+
+
+def _all_triples():
+    """Every triple of intervals with ends on six points, and their pairwise relations."""
+    pairs = np.array([(s, e) for s in range(6) for e in range(s + 1, 6)])
+    index = np.array(np.meshgrid(*(np.arange(len(pairs)),) * 3, indexing="ij")).reshape(3, -1)
+    (a0, a1), (b0, b1), (c0, c1) = (pairs[which].T for which in index)
+    return classify(a0, a1, b0, b1), classify(b0, b1, c0, c1), classify(a0, a1, c0, c1)
+
+
+_TRIPLES = _all_triples()
+
+
 # --- contemporaries ---------------------------------------------------------------------------
 
 def contemporaries(records: list[Record], target: Record | int | str | Endpoint) -> pd.DataFrame:

@@ -199,3 +199,30 @@ def test_render_draws_the_tightened_windows(tmp_path, capsys):
     assert main(["render", str(people), "--constraints", str(bad),
                  "-o", str(tmp_path / "d.svg")]) == 1
     assert not (tmp_path / "d.svg").exists()
+
+
+def test_check_json_holds_the_constraints_outcome_in_one_object(tmp_path, capsys):
+    import json
+
+    from timelines.cli import main
+    people = tmp_path / "people.csv"
+    people.write_text("id,label,start,end\nwill,Will,1690,1690\n"
+                      "death,Death,1680-1700,1680-1700\nburial,Burial,1685-1688,1685-1688\n",
+                      encoding="utf-8")
+    good, bad = tmp_path / "good.csv", tmp_path / "bad.csv"
+    good.write_text("a,relation,b\nwill,before,death\n", encoding="utf-8")
+    bad.write_text("a,relation,b\nwill,before,death\ndeath,before,burial\n", encoding="utf-8")
+    assert main(["check", str(people), "--json", "--constraints", str(good)]) == 0
+    data = json.loads(capsys.readouterr().out)      # the whole output parses as one object
+    outcome = data["constraints"]
+    assert outcome["consistent"] and data["counts"]["rows_read"] == 3
+    start = next(n for n in outcome["narrowed"] if n["side"] == "start")
+    assert (start["row"], start["id"], start["statements"]) == (3, "death", ["good.csv:2"])
+    assert start["after_days"] == [fixed_from_gregorian(1690, 1, 1),
+                                   fixed_from_gregorian(1700, 12, 31)]
+    assert main(["check", str(people), "--json", "--constraints", str(bad)]) == 1
+    outcome = json.loads(capsys.readouterr().out)["constraints"]
+    assert not outcome["consistent"] and outcome["narrowed"] == []
+    (contradiction,) = outcome["contradictions"]
+    assert sorted(contradiction["statements"]) == ["bad.csv:2", "bad.csv:3"]
+    assert contradiction["excess_days"] > 0 and "cannot all hold" in contradiction["line"]

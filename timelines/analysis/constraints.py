@@ -204,6 +204,23 @@ class Tightened:
     def consistent(self) -> bool:
         return not self.contradictions
 
+    def as_dict(self) -> dict:
+        """The outcome as plain data for JSON: windows as texts and as fixed days (R.D.;
+        null for an open side), statements as `file:row`, each item with its line."""
+        return {
+            "method": self.method, "consistent": self.consistent,
+            "narrowed": [{"row": n.record.provenance.row, "id": n.record.id, "side": n.side,
+                          "before": _window(n.before), "after": _window(n.after),
+                          "before_days": [n.before.earliest, n.before.latest],
+                          "after_days": [n.after.earliest, n.after.latest],
+                          "statements": [str(s) for s in n.statements], "line": str(n)}
+                         for n in self.narrowed],
+            "contradictions": [{"statements": [str(s) for s in c.statements],
+                                "reasons": [r.text for r in c.reasons],
+                                "excess_days": c.excess, "line": str(c)}
+                               for c in self.contradictions],
+        }
+
     def lines(self) -> list[str]:
         if self.contradictions:
             return [f"contradiction: {c}" for c in self.contradictions]

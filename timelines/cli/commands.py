@@ -34,7 +34,7 @@ from ..scene.theme import DEFAULT_THEME, PALETTES
 from ..sources import ColumnMap
 from .activity import run_activity
 from .config import apply_settings, config_lines
-from .constraints import run_constraints
+from .constraints import constrained, run_constraints
 from .parser import CONFIG_COMMANDS, DEMO, NOT_SETTINGS, UNSET, build_parser
 from .progress import Progress
 from .relate import run_relate
@@ -342,12 +342,17 @@ def run_check(args, parser) -> int:
     with Progress(1, quiet=args.quiet).step(f"reading {source.name}"):
         loaded = Chart.from_options(source, options).read().loaded
         report = check(loaded)
-    if args.json:
-        print(json.dumps(report.as_dict(), ensure_ascii=False, indent=2))
-    else:
-        for line in report.lines():     # the report is this command's output: stdout
-            _say(line)
-        _say(report.summary())
+    if args.json:                       # one JSON object: the statements' outcome inside it
+        data = report.as_dict()
+        if args.constraints:
+            outcome = constrained(loaded.records, args.constraints)
+            data["constraints"] = outcome.as_dict()
+        print(json.dumps(data, ensure_ascii=False, indent=2))
+        inconsistent = args.constraints and not outcome.consistent
+        return 1 if report.not_drawn or inconsistent else 0
+    for line in report.lines():         # the report is this command's output: stdout
+        _say(line)
+    _say(report.summary())
     inconsistent = args.constraints and run_constraints(loaded.records, args.constraints, _say)
     return 1 if report.not_drawn or inconsistent else 0
 

@@ -2,13 +2,18 @@
 statements (analysis/constraints.py); each narrowed bound, or each contradiction, printed."""
 from __future__ import annotations
 
-from ..analysis.constraints import read_statements, tighten
+from ..analysis.constraints import Tightened, read_statements, tighten
 from ..model import Record
+
+
+def constrained(records: list[Record], path: str) -> Tightened:
+    """The records tightened by the statements in `path`."""
+    return tighten(records, read_statements(path))
 
 
 def run_constraints(records: list[Record], path: str, say) -> int:
     """Print what the statements in `path` narrowed, or what contradicts (exit 1)."""
-    result = tighten(records, read_statements(path))
+    result = constrained(records, path)
     for line in result.lines():
         say(line)
     if result.consistent:

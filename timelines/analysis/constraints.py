@@ -45,6 +45,7 @@ from __future__ import annotations
 import math
 import re
 from dataclasses import dataclass, replace
+from functools import partial
 from pathlib import Path
 
 from ..errors import UsageError, did_you_mean
@@ -257,16 +258,23 @@ def _keys(records: list[Record]) -> dict[str, int]:
 
 def _add_record(network: Network, index: int, record: Record) -> None:
     start, end = network.node(index, "start"), network.node(index, "end")
-    network.add(start, end, 0, INF, Reason(f"{_row(record)} ({record.label}) starts no later "
-                                           "than it ends", record=record))
+    network.add(start, end, 0, INF, Reason(partial(_in_order, record), record=record))
     if record.span is None:
         return
     for side, node in (("start", start), ("end", end)):
         endpoint = getattr(record.span, side)
         low = -INF if endpoint.earliest is None else endpoint.earliest
         high = INF if endpoint.latest is None else endpoint.latest
-        text = f"{_row(record)} ({record.label}, {side} {_window(endpoint)})"
-        network.add(0, node, low, high, Reason(text, record=record))
+        network.add(0, node, low, high,
+                    Reason(partial(_in_window, record, side, endpoint), record=record))
+
+
+def _in_order(record: Record) -> str:
+    return f"{_row(record)} ({record.label}) starts no later than it ends"
+
+
+def _in_window(record: Record, side: str, endpoint: Endpoint) -> str:
+    return f"{_row(record)} ({record.label}, {side} {_window(endpoint)})"
 
 
 def _add_statement(network: Network, statement: Statement, keys: dict[str, int]) -> None:
@@ -279,8 +287,8 @@ def _add_statement(network: Network, statement: Statement, keys: dict[str, int])
     words = f"{records[keys[named['A']]].label} {statement.relation}"
     if statement.relation != "lasts":
         words += f" {records[keys[named['B']]].label}"
-    reason = Reason(f"{statement} ({words}{' ' + statement.gap.text if statement.gap else ''})",
-                    statement=statement)
+    text = f"{statement} ({words}{' ' + statement.gap.text if statement.gap else ''})"
+    reason = Reason(partial(str, text), statement=statement)
     for number, (earlier, later, (low, high)) in enumerate(RELATIONS[statement.relation]):
         if number == 0 and statement.gap is not None:
             low, high = statement.gap.low, statement.gap.high

@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
-from typing import TYPE_CHECKING
+from typing import TYPE_CHECKING, Callable
 
 import numpy as np
 
@@ -22,13 +22,19 @@ if TYPE_CHECKING:                        # what a reason names, in the user's te
 INF = math.inf
 
 
-@dataclass(frozen=True, slots=True)
+@dataclass(frozen=True, slots=True, eq=False)
 class Reason:
-    """Why an edge of the network is there, in the user's terms."""
+    """Why an edge of the network is there, in the user's terms. `words` makes the text when
+    it is read (only for a contradiction: writing every record's windows out costs more than
+    solving the network). Two edges share one Reason when one statement or window made both."""
 
-    text: str
+    words: Callable[[], str]
     statement: Statement | None = None
     record: Record | None = None
+
+    @property
+    def text(self) -> str:
+        return self.words()
 
 
 

@@ -12,7 +12,7 @@ import pytest
 
 from timelines.analysis.relations import (
     ALLEN_RELATIONS, APART, CONVERSES, CRM_RELATIONS, classify, compose, contemporaries,
-    contemporary_pairs, record_bounds, relate, relations_with)
+    contemporary_pairs, exact_shares, record_bounds, relate, relation_shares, relations_with)
 from timelines.errors import TimelineError
 from timelines.model import EVENT, Endpoint, Provenance, Record, Span
 
@@ -257,15 +257,43 @@ def test_monte_carlo_against_the_closed_form_for_two_events_in_one_window():
     # P(equals) = 1/n, P(meets) = (n-1)/n^2, P(before) = (n-1)(n-2)/(2n^2) (counting the
     # ordered pairs of days; P(before) tends to 1/2 as the window grows).
     days = 10
-    found = relate(event("A", 0, days - 1), event("B", 0, days - 1), samples=200_000, seed=3)
-    shares = dict(found.probabilities)
+    window = record_bounds(event("A", 0, days - 1))
+    shares = relation_shares(window, window, samples=200_000, seed=3)
     expected = {"equals": 1 / days, "meets": (days - 1) / days**2,
                 "before": (days - 1) * (days - 2) / (2 * days**2)}
     for name, probability in expected.items():
         error = 4 * math.sqrt(probability * (1 - probability) / 200_000)
         assert abs(shares[name] - probability) < error
     assert abs(sum(shares.values()) - 1) < 1e-9
-    assert "Monte Carlo" in found.method and "200000 samples, seed 3" in found.method
+    # Counted exactly, the same windows give the closed form itself.
+    exact = exact_shares(window, window)
+    assert all(exact[name] == pytest.approx(value, abs=1e-15) for name, value in expected.items())
+    found = relate(event("A", 0, days - 1), event("B", 0, days - 1), samples=1000)
+    assert dict(found.probabilities)["equals"] == pytest.approx(1 / days, abs=1e-15)
+    assert found.method.startswith("exact: all 100 choices of days counted")
+
+
+def test_exact_counting_agrees_with_brute_force_and_monte_carlo_for_spans():
+    a, b = span("A", (0, 6), (4, 12)), span("B", (3, 9), (8, 15))
+    ab, bb = record_bounds(a), record_bounds(b)
+    # Brute force over every choice of the four days, first not after last in each record.
+    counts, total = dict.fromkeys(ALLEN_RELATIONS, 0), 0
+    for a0, a1, b0, b1 in itertools.product(range(0, 7), range(4, 13), range(3, 10),
+                                            range(8, 16)):
+        if a0 <= a1 and b0 <= b1:
+            total += 1
+            counts[relate(exact("A", a0, a1), exact("B", b0, b1)).certain] += 1
+    counted = exact_shares(ab, bb)
+    assert all(counted[name] == pytest.approx(counts[name] / total, abs=1e-15)
+               for name in ALLEN_RELATIONS)
+    sampled = relation_shares(ab, bb, samples=100_000, seed=5)
+    for name, probability in counted.items():
+        assert abs(sampled[name] - probability) <= 4 * math.sqrt(
+            probability * (1 - probability) / 100_000) + 1e-12
+    # Too many choices to count (lives dated to a decade at each end): Monte Carlo, named.
+    lives = relate(span("A", (0, 3652), (20000, 23652)), span("B", (0, 3652), (20000, 23652)),
+                   samples=2000, seed=1)
+    assert lives.method.startswith("Monte Carlo: 2000 samples, seed 1")
 
 
 def test_probabilities_are_deterministic_and_undefined_when_unbounded():

@@ -19,8 +19,10 @@ the relation is possible unless adding its constraints makes a negative cycle. I
 *certain* when it is the only possible one. Open and unknown sides are unbounded windows.
 
 Probabilities, when asked for, assume each endpoint uniform over the days of its window,
-independent, conditioned on each record's start not after its end; they are estimated by
-Monte Carlo (numpy, a SeedSequence seed) and the output names the method. A window with no
+independent, conditioned on each record's start not after its end. They are exact when the
+choices of days are few enough to count every one (up to EXACT_LIMIT pairs of choices: two
+events dated to a year each, or spans dated to a month or so), else estimated by Monte Carlo
+(numpy, a SeedSequence seed); the output names the method. A window with no
 bound has no uniform distribution: the probabilities are then undefined, and say so.
 """
 from __future__ import annotations
@@ -78,6 +80,8 @@ CRM_RELATIONS = {
 }
 CRM_SOURCE = "CIDOC CRM (ISO 21127) P173-P176, P182-P185, from memory"
 BOUNDS_ONLY = "bounds only (no probabilities asked for)"
+EXACT_LIMIT = 4_000_000     # choices of days (A's times B's) counted exactly; above: Monte Carlo
+_EXACT_CHUNK = 1_000_000    # pairs classified at once: memory stays bounded
 
 # Stand-ins for "no bound" in the day arrays: far past any fixed day, with room to add one.
 NO_EARLIEST = np.iinfo(np.int64).min // 4
@@ -255,10 +259,52 @@ def _probabilities(a: Bounds, b: Bounds, possible: tuple[str, ...], samples: int
     if not (a.is_bounded and b.is_bounded):
         return (), ("undefined: a window with no bound has no uniform distribution, "
                     "so no probability")
-    shares = relation_shares(a, b, samples, seed)
-    method = (f"Monte Carlo: {samples} samples, seed {seed}; each endpoint a uniform day of "
-              "its window, independent, start not after end in each record")
+    assumption = ("each endpoint a uniform day of its window, independent, start not after "
+                  "end in each record")
+    choices = _choices(a) * _choices(b)
+    if choices <= EXACT_LIMIT:
+        shares = exact_shares(a, b)
+        method = f"exact: all {choices:,} choices of days counted; {assumption}"
+    else:
+        shares = relation_shares(a, b, samples, seed)
+        method = f"Monte Carlo: {samples} samples, seed {seed}; {assumption}"
     return tuple((name, shares[name]) for name in possible), method
+
+
+def _choices(bounds: Bounds) -> int:
+    """How many (first day, last day) pairs a record has, first not after last: for each
+    first day, the last days from it (or the window's earliest) to the window's latest."""
+    first = np.arange(bounds.first_earliest, bounds.first_latest + 1)
+    if bounds.one_day:
+        return len(first)
+    lasts = bounds.last_latest - np.maximum(first, bounds.last_earliest) + 1
+    return int(np.clip(lasts, 0, None).sum())
+
+
+def _day_pairs(bounds: Bounds) -> tuple[np.ndarray, np.ndarray]:
+    """Every (first day, last day) a record can have, first not after last."""
+    first = np.arange(bounds.first_earliest, bounds.first_latest + 1)
+    if bounds.one_day:
+        return first, first
+    last = np.arange(bounds.last_earliest, bounds.last_latest + 1)
+    first, last = (grid.ravel() for grid in np.meshgrid(first, last, indexing="ij"))
+    keep = first <= last
+    return first[keep], last[keep]
+
+
+def exact_shares(a: Bounds, b: Bounds) -> dict[str, float]:
+    """The probability of each relation, every choice of days counted (uniform days,
+    independent, start not after end): exact, for windows small enough to enumerate."""
+    a_first, a_last = _day_pairs(a)
+    b_first, b_last = _day_pairs(b)
+    counts = np.zeros(len(ALLEN_RELATIONS), dtype=np.int64)
+    rows = max(1, _EXACT_CHUNK // max(1, len(b_first)))
+    for at in range(0, len(a_first), rows):       # a block of A's choices against all of B's
+        codes = classify(a_first[at:at + rows, None], a_last[at:at + rows, None] + 1,
+                         b_first[None, :], b_last[None, :] + 1)
+        counts += np.bincount(codes.ravel(), minlength=len(ALLEN_RELATIONS))
+    total = len(a_first) * len(b_first)
+    return {name: float(counts[index] / total) for index, name in enumerate(ALLEN_RELATIONS)}
 
 
 def relation_shares(a: Bounds, b: Bounds, samples: int, seed: int = 0) -> dict[str, float]:

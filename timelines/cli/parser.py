@@ -137,7 +137,9 @@ def _relate_command(commands) -> None:
     relate.add_argument("--on", metavar="DATE",
                         help="who was possibly / certainly active on DATE (a day in it)")
     relate.add_argument("--samples", metavar="N", type=_count(1),
-                        help="estimate each relation's probability from N Monte Carlo draws")
+                        help="each relation's probability: counted exactly when the windows "
+                             "are small (up to 4,000,000 choices of days), else from N "
+                             "Monte Carlo draws")
     relate.add_argument("--seed", metavar="N", type=_count(0), default=0,
                         help="the draws' seed (default 0)")
     relate.add_argument("--format", choices=("table", "csv", "json"), default="table")

@@ -2,6 +2,7 @@
 certain and possible counts as step lines, checked on the scene's numbers."""
 from __future__ import annotations
 
+import math
 import xml.etree.ElementTree as ET
 
 import pytest
@@ -73,3 +74,63 @@ def test_relate_and_activity_read_a_config_file_and_notes_are_no_loss(tmp_path, 
     assert "1600–1699" in captured.out and "could not be read" not in captured.err
     assert main(["relate", str(table), "A", "B", "--config", str(config)]) == 0
     assert "could not be read" not in capsys.readouterr().err   # a 1700s note is no loss
+
+
+# --- the strip under a timeline (render --activity, Chart.activity) ---------------------------
+
+def _strip_panels(scene):
+    """The activity panels of a timeline scene, found among its top-level children."""
+    return [g for g in scene.children if getattr(g, "css_class", "") == "activity"]
+
+
+def test_the_strip_shares_the_timelines_time_axis():
+    chart = Chart(ROWS).activity("decade")
+    scale = chart.layout().scale
+    (panel,) = _strip_panels(chart.scene())
+    table = activity([p.record for _, g in chart.layout().placement.leaves() for p in g.records],
+                     per="decade", start=int(scale.start), end=int(scale.end))
+    drawn = table[(table["expected"] > 0) & (table["block_end"] > scale.start)
+                  & (table["block_start"] < scale.end)]
+    bars = [p for p in walk(panel.children) if isinstance(p, Rect) and p.css_class == "expected"]
+    assert len(bars) == len(drawn) > 0
+    for bar, (_, row) in zip(bars, drawn.iterrows(), strict=True):
+        # Each bar begins where its block begins on the lanes' own scale (cut at its edge).
+        assert bar.x == pytest.approx(scale.x(max(row["block_start"], scale.start)))
+        assert scale.x0 - 1e-6 <= bar.x and bar.x + bar.width <= scale.x1 + 1e-6
+    # Under the lanes and their axis: below every mark of the record groups and the axis.
+    above = [g for g in chart.scene().children if getattr(g, "css_class", "") in ("group",
+                                                                               "axis")]
+    lanes_bottom = max(getattr(p, "y", 0) + getattr(p, "height", 0)
+                       for g in above for p in walk(g.children))
+    strip_top = min(getattr(p, "y", math.inf) for p in walk(panel.children))
+    assert strip_top > lanes_bottom
+    notes = " ".join(t.text for t in walk(chart.scene().children) if isinstance(t, Text))
+    assert "1 record (spans) with no bound on a side" in notes    # 'Unknown end' said
+
+
+def test_render_activity_from_the_command_line(tmp_path, capsys):
+    out = tmp_path / "strip.svg"
+    assert main(["render", "--demo", "--activity", "-o", str(out)]) == 0
+    root = ET.parse(out).getroot()
+    classes = {element.get("class") for element in root.iter()}
+    assert {"activity", "expected", "certain", "possible"} <= classes
+    again = tmp_path / "again.svg"
+    assert main(["render", "--demo", "--activity", "-o", str(again)]) == 0
+    assert out.read_bytes() == again.read_bytes()                 # deterministic
+    plain = tmp_path / "plain.svg"
+    assert main(["render", "--demo", "-o", str(plain)]) == 0
+    assert "activity" not in {e.get("class") for e in ET.parse(plain).getroot().iter()}
+    capsys.readouterr()
+    with pytest.raises(SystemExit):
+        main(["render", "--demo", "--activity", "fortnight", "-o", str(tmp_path / "x.svg")])
+    assert "cannot make blocks of 'fortnight'" in capsys.readouterr().err
+
+
+def test_the_strip_needs_one_panel_and_one_page(tmp_path):
+    from timelines.errors import UsageError
+    rows = [dict(row, place="North" if i % 2 else "South") for i, row in enumerate(ROWS)]
+    with pytest.raises(UsageError, match="--activity adds its strip under a chart of one"):
+        Chart(rows).activity().facet("place").scene()
+    assert main(["render", "--demo", "--activity", "--pages",
+                 "-o", str(tmp_path / "p.pdf")]) != 0
+    assert not (tmp_path / "p.pdf").exists()

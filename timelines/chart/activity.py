@@ -28,10 +28,10 @@ def activity_series(table) -> list[ActivitySeries]:
 
 
 def activity_chart(table, title: str = "", theme: Theme = DEFAULT_THEME) -> Scene:
-    return activity_scene(activity_series(table), title, theme, _notes(table))
+    return activity_scene(activity_series(table), title, theme, activity_notes(table))
 
 
-def _notes(table) -> tuple[str, ...]:
+def activity_notes(table) -> tuple[str, ...]:
     """What the counts leave out: records with no bound on a side cannot be weighed."""
     notes = []
     for kind, count in table.attrs.get("unweighed", {}).items():

@@ -35,6 +35,7 @@ class ChartOptions:
     facet_order: str = "first"          # first, name, size, or facet values separated by commas
     pages: bool = False                 # a PDF split into pages at group breaks
     constraints: str | Path | None = None   # statements between records that tighten bounds
+    activity: str | None = None         # a block (decade, century, 25 ...): counts under the lanes
     longest: str | None = None          # a longest plausible duration bounding open sides
     longest_column: str | None = None   # a column giving each record its own
     longest_by_group: tuple[tuple[str, str], ...] = ()   # (group, duration): each group's own

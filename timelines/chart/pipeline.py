@@ -14,8 +14,9 @@ from dataclasses import dataclass, replace
 from functools import partial
 from operator import attrgetter
 from pathlib import Path
-from typing import Callable, Iterable
+from typing import Callable, Iterable, Sequence
 
+from ..analysis.activity import activity
 from ..check.report import Report, check
 from ..dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
 from ..errors import TimelineError, UsageError, did_you_mean
@@ -28,6 +29,7 @@ from ..layout.settings import group_order
 from ..layout.distances import Distance, parse_distance
 from ..model import Record
 from ..render import output_format, writable, write
+from ..scene.activity import ActivitySeries
 from ..scene.bands import on_axis
 from ..scene.compose import ChartText, colors_of, compose, title_height
 from ..scene.facets import Panel, compose_facets, panel_width
@@ -43,6 +45,7 @@ from ..scene.theme import DEFAULT_THEME, Theme
 from ..sources import ColumnMap, LoadResult
 from ..sources.columns import existing_column
 from ..sources.fields import column_reader
+from .activity import activity_notes, activity_series
 from .options import ChartOptions
 from .reading import ReadTable, read_bands, read_source
 
@@ -136,6 +139,9 @@ def paged_scenes(arranged: Arranged, page: FittedPage, options: ChartOptions) ->
     if arranged.bands is not None:
         raise UsageError("--pages does not split a chart with --bands yet",
                          hint="leave out --bands, or write one tall page")
+    if options.activity:
+        raise UsageError("--pages does not split a chart with --activity yet",
+                         hint="leave out --activity, or draw `timelines activity` apart")
     size = options.size
     height = size.height if size and size.height else page.scene.width * 297 / 210
     return split_pages(page.scene, arranged.scale, page.theme, height)
@@ -230,13 +236,31 @@ def arranged_page(arranged: Arranged, options: ChartOptions) -> FittedPage:
                      color_title=arranged.columns.color or "")
     bands = arranged.bands.records if arranged.bands else ()
     if arranged.panels:
+        if options.activity:
+            raise UsageError("--activity adds its strip under a chart of one panel",
+                             hint="leave out --facet, or draw `timelines activity` apart")
         facet = options.facet or ""
         return fit_height(lambda theme: compose_facets(
             arranged.panels, arranged.scale, theme, text, *_colors(records, arranged, theme),
             facet=facet, bands=bands), options.theme, options.size)
+    counts, count_notes = activity_strip_series(arranged, options)
+    text = replace(text, notes=(*text.notes, *count_notes))
     return fit_height(lambda theme: placement_scene(
-        records, arranged.placement, arranged.scale, theme, text=text, bands=bands),
-        options.theme, options.size)
+        records, arranged.placement, arranged.scale, theme, text=text, bands=bands,
+        activity=counts), options.theme, options.size)
+
+
+def activity_strip_series(arranged: Arranged, options: ChartOptions
+                          ) -> tuple[list[ActivitySeries], tuple[str, ...]]:
+    """With --activity, the counts per block of the records drawn (`analysis.activity`),
+    over the chart's time span, one series per kind of record, and the notes on what the
+    counts leave out."""
+    drawn = [p.record for _, group in arranged.placement.leaves() for p in group.records]
+    if not options.activity or not drawn:
+        return [], ()
+    table = activity(drawn, per=options.activity, start=int(arranged.scale.start),
+                     end=int(arranged.scale.end), era=options.theme.era)
+    return activity_series(table), activity_notes(table)
 
 
 def _colors(records, arranged: Arranged, theme: Theme):
@@ -282,12 +306,14 @@ def build_scene(records: Iterable[Record], theme: Theme = DEFAULT_THEME, title: 
 
 def placement_scene(records: Iterable[Record], placement: Placement, scale: TimeScale,
                     theme: Theme, title: str = "", not_drawn: int = 0, *,
-                    text: ChartText | None = None, bands: Iterable[Record] = ()) -> Scene:
+                    text: ChartText | None = None, bands: Iterable[Record] = (),
+                    activity: Sequence[ActivitySeries] = ()) -> Scene:
     # Colours in order of first appearance in the table, for the records drawn.
     color_of, colors = _drawn_colors(records, (placement,), theme)
     text = text or ChartText(title, placement.undated, not_drawn)
     return compose(placement, scale, theme, text, color_of, colors,
-                   plot_top=title_height(text, theme) + 8, bands=tuple(bands))
+                   plot_top=title_height(text, theme) + 8, bands=tuple(bands),
+                   activity=activity)
 
 
 def _group_tree(records: list[Record], rules: LaneRules,

@@ -225,6 +225,12 @@ class Chart:
         draws the tightened windows; statements that cannot all hold stop it, named."""
         return self._with(constraints=statements)
 
+    def activity(self, per: str | int | None = "decade") -> "Chart":
+        """Add a strip under the lanes, on the same time axis: how many of the records drawn
+        were active per block of `per` (year, decade, century, millennium or a number of
+        years; `analysis.activity`), events and spans each in their own panel. None: none."""
+        return self._with(activity=None if per is None else str(per))
+
     def withhold_living(self, as_of: int | None = None, years: int = 100) -> "Chart":
         """Show records that may be of living persons without their names and details
         (docs/privacy.md): those that could have started within `years` before `as_of`

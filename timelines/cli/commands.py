@@ -233,7 +233,7 @@ def _render_options(args) -> ChartOptions:
         credit=args.credit, notes=tuple(notes), window=_window(args, settings),
         bands=args.bands, facet=args.facet, facet_order=args.facet_order, size=size,
         date_numbers=args.date_numbers, pages=args.pages, constraints=args.constraints,
-        events=_events(args),
+        activity=args.activity, events=_events(args),
         longest=args.longest, longest_column=args.longest_column,
         longest_by_group=_group_durations(args))
 

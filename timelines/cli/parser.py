@@ -77,6 +77,10 @@ def build_parser() -> argparse.ArgumentParser:
     draw.add_argument("--constraints", metavar="FILE",
                       help="a table of statements between records (a before b, a lasts 7y, "
                            "...) that narrow their windows: the chart draws them narrowed")
+    draw.add_argument("--activity", metavar="PERIOD", nargs="?", const="decade",
+                      type=_checked_period, default=None,
+                      help="a strip under the lanes: how many records were active per PERIOD "
+                           "(year, decade: the default, century, millennium or N years)")
     draw.add_argument("--pages", action="store_true",
                       help="a PDF in pages at group breaks, each the --size height (A4 of the "
                            "chart's width without one), the axis on every page")

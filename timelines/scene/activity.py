@@ -63,6 +63,33 @@ def activity_scene(series: list[ActivitySeries], title: str = "",
                  background=theme.background, font_family=theme.font_family)
 
 
+def activity_strip(series: list[ActivitySeries], scale: TimeScale, theme: Theme, top: float
+                   ) -> tuple[list[Primitive], float]:
+    """The same panels under a timeline, on its time `scale` (its counts at the left, in the
+    captions' margin), with their legend; the y below. A block the chart's edge cuts is drawn
+    only as far as the edge (its counts are the whole block's)."""
+    panels: list[Primitive] = []
+    y = top
+    for one in series:
+        panel, y = _panel(_within(one, scale.start, scale.end), scale, theme, y + 8)
+        panels.append(panel)
+    legend, y = _legend(series, theme, y + 6)
+    return [*panels, legend], y
+
+
+def _within(series: ActivitySeries, start: float, end: float) -> ActivitySeries:
+    """`series` with its blocks cut to `start..end`, those wholly outside left out."""
+    keep = [i for i, (s, e) in enumerate(zip(series.starts, series.ends)) if e > start and s < end]
+
+    def kept(values):
+        return tuple(values[i] for i in keep) if values else ()
+    return ActivitySeries(series.name, series.method,
+                          tuple(max(series.starts[i], start) for i in keep),
+                          tuple(min(series.ends[i], end) for i in keep),
+                          kept(series.certain), kept(series.possible), kept(series.expected),
+                          kept(series.low), kept(series.high))
+
+
 @dataclass(frozen=True, slots=True)
 class _Heading:
     title: str

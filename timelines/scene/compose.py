@@ -15,6 +15,7 @@ from typing import Callable, Sequence
 from ..calendar import gregorian_year_from_fixed, year_text
 from ..layout import GroupPlacement, PlacedRecord, Placement
 from ..model import Record, counted
+from .activity import ActivitySeries, activity_strip
 from .axis import axis_labels_row, calendar_note, draw_axis, draw_top_axis
 from .bands import draw_bands, place_bands, strip_height
 from .bars import draw_record, drawn_spans, stub_days
@@ -52,11 +53,17 @@ class ChartText:
 
 def compose(placement: Placement, scale: TimeScale, theme: Theme, text: ChartText,
             color_of: Callable[[Record], str], color_key: tuple[tuple[str, str], ...] = (),
-            plot_top: float | None = None, bands: Sequence[Record] = ()) -> Scene:
+            plot_top: float | None = None, bands: Sequence[Record] = (),
+            activity: Sequence[ActivitySeries] = ()) -> Scene:
+    """The timeline page; with `activity`, its counts per block in a strip under the lanes
+    on the same time axis."""
     used: set[str] = set()      # the marks that occur, so the legend shows only those
     header, header_bottom = heading(text, theme, theme.width)
     top = plot_top if plot_top is not None else header_bottom
     plot, plot_bottom = draw_plot(placement, scale, theme, top, color_of, used, bands)
+    if activity:
+        strip, plot_bottom = activity_strip(list(activity), scale, theme, plot_bottom + 8)
+        plot += strip
     keyed = (("", placement.keyed),) if placement.keyed else ()
     axis_calendar = calendar_note(scale, theme)
     text = replace(text, keyed=keyed, notes=(*text.notes, axis_calendar) if axis_calendar

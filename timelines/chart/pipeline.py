@@ -16,7 +16,6 @@ from operator import attrgetter
 from pathlib import Path
 from typing import Callable, Iterable, Sequence
 
-from ..analysis.activity import activity
 from ..check.report import Report, check
 from ..dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
 from ..errors import TimelineError, UsageError, did_you_mean
@@ -258,6 +257,7 @@ def activity_strip_series(arranged: Arranged, options: ChartOptions
     drawn = [p.record for _, group in arranged.placement.leaves() for p in group.records]
     if not options.activity or not drawn:
         return [], ()
+    from ..analysis.activity import activity    # pandas: loaded only when asked for
     table = activity(drawn, per=options.activity, start=int(arranged.scale.start),
                      end=int(arranged.scale.end), era=options.theme.era)
     return activity_series(table), activity_notes(table)

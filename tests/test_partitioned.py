@@ -47,7 +47,7 @@ def single_machine(frame: pd.DataFrame, kind: str, per) -> pd.DataFrame:
 def test_the_same_counts_as_one_machine(kind, partitions):
     frame = invented_rows(300)
     expected = single_machine(frame, kind, "decade")
-    with dask.config.set(scheduler="synchronous"):
+    with dask.config.set(scheduler="threads"):
         found = partitioned_activity(dd.from_pandas(frame, npartitions=partitions),
                                      per="decade", kind=kind)
     assert len(found) == len(expected) > 10
@@ -69,7 +69,7 @@ def test_windows_are_days_with_nan_for_no_date_and_negative_before_the_era():
 
 def test_given_blocks_are_kept_for_every_partition():
     frame = invented_rows(120, seed=9)
-    with dask.config.set(scheduler="synchronous"):
+    with dask.config.set(scheduler="threads"):
         one, seven = (partitioned_activity(dd.from_pandas(frame, npartitions=n), per=25,
                                            start=-1000, end=800_000) for n in (1, 7))
     pd.testing.assert_frame_equal(one, seven, check_exact=False, rtol=1e-12)

@@ -9,7 +9,8 @@ Two passes over the partitions, each a pure module-level function with explicit 
    an unbounded side is -inf/+inf, an undated or unreadable row NaN. Never -1 or 0 for "no
    date": days before the era are negative numbers like any other.
 2. The blocks are decided once, for all partitions, before the counting pass: from `start`
-   and `end` when given, else from the smallest and largest finite day (two dask reductions).
+   and `end` when given, else from the smallest and largest finite day (dask reductions over
+   the windows, which are persisted so that the dates are read only once).
 3. `count_partition` counts each partition in those blocks (`event_counts`, `span_counts`);
    the counts are sums over records, so the partitions' rows are summed per block.
 
@@ -85,7 +86,8 @@ def partitioned_activity(frame, per: str | int = "decade", kind: str = SPAN,
     _dask()
     windows = frame.map_partitions(window_partition, kind, columns, settings, date_numbers,
                                    meta=window_meta(kind))
-    if start is None or end is None:
+    if start is None or end is None:          # read once, kept for the counting pass
+        windows = windows.persist()
         low, high = _finite_range(windows, kind)
         start = low if start is None else start
         end = high if end is None else end

@@ -226,3 +226,18 @@ def test_check_json_holds_the_constraints_outcome_in_one_object(tmp_path, capsys
     (contradiction,) = outcome["contradictions"]
     assert sorted(contradiction["statements"]) == ["bad.csv:2", "bad.csv:3"]
     assert contradiction["excess_days"] > 0 and "cannot all hold" in contradiction["line"]
+
+
+def test_the_analysis_guide_shows_what_check_prints(capsys):
+    # docs/analysis.md quotes `check --constraints` on gallery/questions: keep it true.
+    from pathlib import Path
+
+    from timelines.cli import main
+    root = Path(__file__).resolve().parent.parent
+    folder = root / "gallery" / "questions"
+    guide = (root / "docs" / "analysis.md").read_text(encoding="utf-8")
+    assert main(["check", str(folder / "corrow-household.csv"), "--label", "name", "--id", "id",
+                 "--constraints", str(folder / "statements.tsv")]) == 0
+    narrowed = [line for line in capsys.readouterr().out.splitlines()
+                if line.startswith("narrowed:")]
+    assert narrowed and all(line in guide for line in narrowed)

@@ -16,7 +16,7 @@ SCRIPTS = make_gallery.examples()
 
 def test_the_gallery_has_its_examples():
     assert {s.parent.name for s in SCRIPTS} >= {"lifespans", "dynasty", "family", "archive",
-                                                "site-phases", "facets"}
+                                                "site-phases", "facets", "questions"}
 
 
 @pytest.mark.parametrize("script", SCRIPTS, ids=lambda s: s.parent.name)

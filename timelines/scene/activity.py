@@ -99,15 +99,17 @@ class _Heading:
 def _panel(series: ActivitySeries, scale: TimeScale, theme: Theme, top: float
            ) -> tuple[Group, float]:
     """One kind's counts: its name, the band, the bars, the lines, the count and time axes."""
-    name = Text(theme.margin, top + theme.group_label_size, f"{series.name}: {series.method}",
-                theme.group_label_size, weight="bold", fill=theme.text_color,
-                css_class="panel-title")
-    plot_top = top + theme.group_label_size + 10
+    lines = wrap(f"{series.name}: {series.method}", theme.group_label_size,
+                 theme.width - 2 * theme.margin, weight="bold")
+    names = [Text(theme.margin, top + theme.group_label_size * (1 + 1.25 * number), line,
+                  theme.group_label_size, weight="bold", fill=theme.text_color,
+                  css_class="panel-title") for number, line in enumerate(lines)]
+    plot_top = top + theme.group_label_size * (1 + 1.25 * (len(lines) - 1)) + 10
     bottom = plot_top + PANEL_HEIGHT
     most = max(max(series.possible, default=0), max(series.high, default=0), 1)
     y_of = (lambda count: bottom - count / most * PANEL_HEIGHT)
     grid, axis, below = draw_axis(scale, theme, plot_top, bottom)
-    items = [name, grid, *_counts_axis(most, scale, theme, y_of),
+    items = [*names, grid, *_counts_axis(most, scale, theme, y_of),
              *_envelope(series, scale, theme, y_of), *_bars(series, scale, theme, y_of),
              *_steps(series.possible, series, scale, y_of, theme.muted_color, (3.0, 2.0),
                      "possible"),
@@ -197,10 +199,12 @@ def _legend(series: list[ActivitySeries], theme: Theme, top: float) -> tuple[Gro
     for key, words in shown:
         middle = y + theme.legend_row_height / 2
         items += _sample(key, theme, middle)
-        items.append(Text(theme.margin + 40, middle + theme.small_font_size * 0.36, words,
-                          theme.small_font_size, fill=theme.text_color,
-                          css_class="legend-text"))
-        y += theme.legend_row_height
+        lines = wrap(words, theme.small_font_size, theme.width - theme.margin * 2 - 40)
+        for number, line in enumerate(lines):
+            items.append(Text(theme.margin + 40, middle + theme.small_font_size * (
+                0.36 + 1.3 * number), line, theme.small_font_size, fill=theme.text_color,
+                css_class="legend-text"))
+        y += theme.legend_row_height + theme.small_font_size * 1.3 * (len(lines) - 1)
     return Group(tuple(items), css_class="legend"), y
 
 

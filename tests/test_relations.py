@@ -385,6 +385,17 @@ def test_relate_with_one_record_and_on_a_date(family, capsys):
     assert {row["b"]: row["certain"] for row in active} == {"p1": True, "p3": False}
 
 
+def test_relate_alongside_lists_who_could_have_known_a_record(family, capsys):
+    # Anna (1650-1700): Ben (1660-1690) surely shared her years, Cora (c. 1700-) possibly;
+    # Dirk (died 1640) and the younger Ben (born 1702) never did, and are not listed.
+    assert run(family, "--alongside", "p1", "--format", "json") == 0
+    rows = json.loads(capsys.readouterr().out)
+    assert {row["b"]: row["certain"] for row in rows} == {"p2": True, "p3": False}
+    with pytest.raises(SystemExit):                               # one question at a time
+        run(family, "p1", "--alongside", "p2")
+    assert "--alongside ID" in capsys.readouterr().err
+
+
 def test_relate_usage_errors(family, capsys):
     assert run(family, "p1", "p9") == 2
     assert "no record has the id or label 'p9'" in capsys.readouterr().err

@@ -28,7 +28,7 @@ LANE_DEFAULTS = LaneSettings()
 # Options that say what to run or where output goes, not how: never read from a config file.
 NOT_SETTINGS = frozenset({"help", "input", "output", "demo", "config", "print_config", "json",
                           "format", "command", "debug", "version", "text", "quiet",
-                          "explain", "with_id", "on"})
+                          "explain", "with_id", "on", "alongside"})
 CONFIG_COMMANDS = ("render", "check", "lanes", "parse", "relate", "activity")
 UNSET = {**{part: "found from the header names" for part in
             ("start", "end", "when", "label", "group", "color", "id")},
@@ -138,6 +138,9 @@ def _relate_command(commands) -> None:
     relate.add_argument("b", nargs="?", help="another record's id, else its label")
     relate.add_argument("--with", dest="with_id", metavar="ID",
                         help="all of one record's relations to the others")
+    relate.add_argument("--alongside", metavar="ID",
+                        help="who possibly / certainly shared a day with one record: those "
+                             "who could have known it")
     relate.add_argument("--on", metavar="DATE",
                         help="who was possibly / certainly active on DATE (a day in it)")
     relate.add_argument("--samples", metavar="N", type=_count(1),

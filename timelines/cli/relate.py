@@ -1,6 +1,7 @@
 """`timelines relate`: how two records stand to each other (Allen's relations, certain and
-possible, and the CIDOC CRM comparisons), all of one record's relations (`--with`), or who
-was possibly / certainly active on a date (`--on`). A thin layer over `analysis.relations`.
+possible, and the CIDOC CRM comparisons), all of one record's relations (`--with`), who
+possibly / certainly shared a day with one record (`--alongside`) or was active on a date
+(`--on`). A thin layer over `analysis.relations`.
 """
 from __future__ import annotations
 
@@ -17,9 +18,9 @@ from ..model import Record
 
 def run_relate(args, parser) -> int:
     from . import commands    # the shared option readers; commands imports this module
-    asked = [bool(args.b), bool(args.with_id), bool(args.on)]
-    if sum(asked) != 1 or (args.with_id or args.on) and args.a:
-        parser.error("give two records A B, or --with ID, or --on DATE")
+    asked = [bool(args.b), bool(args.with_id), bool(args.on), bool(args.alongside)]
+    if sum(asked) != 1 or (args.with_id or args.on or args.alongside) and args.a:
+        parser.error("give two records A B, or --with ID, or --alongside ID, or --on DATE")
     options = ChartOptions(columns=commands._columns(args), sheet=args.sheet,
                            header_row=args.header_row, encoding=args.encoding,
                            settings=commands._settings(args),
@@ -29,6 +30,9 @@ def run_relate(args, parser) -> int:
     records = loaded.records
     if args.on:
         _write_frame(contemporaries(records, _date(args.on, options)), args.format, commands)
+    elif args.alongside:
+        _write_frame(contemporaries(records, find_record(records, args.alongside)),
+                     args.format, commands)
     elif args.with_id:
         _write_frame(relations_with(records, find_record(records, args.with_id)),
                      args.format, commands)

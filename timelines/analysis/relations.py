@@ -29,6 +29,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from functools import cache
 
 import numpy as np
 import pandas as pd
@@ -358,11 +359,12 @@ def compose(first: str, second: str) -> tuple[str, ...]:
         if name not in CONVERSES:
             raise TimelineError(f"{name!r} is not one of Allen's relations: "
                                 + ", ".join(ALLEN_RELATIONS))
-    ab, bc, ac = _TRIPLES
+    ab, bc, ac = _all_triples()
     wanted = (ab == ALLEN_RELATIONS.index(first)) & (bc == ALLEN_RELATIONS.index(second))
     return tuple(ALLEN_RELATIONS[code] for code in np.unique(ac[wanted]))
 
 
+@cache
 def _all_triples():
     """Every triple of intervals with ends on six points, and their pairwise relations."""
     pairs = np.array([(s, e) for s in range(6) for e in range(s + 1, 6)])
@@ -370,8 +372,6 @@ def _all_triples():
     (a0, a1), (b0, b1), (c0, c1) = (pairs[which].T for which in index)
     return classify(a0, a1, b0, b1), classify(b0, b1, c0, c1), classify(a0, a1, c0, c1)
 
-
-_TRIPLES = _all_triples()
 
 
 # --- contemporaries ---------------------------------------------------------------------------

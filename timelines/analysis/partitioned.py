@@ -55,8 +55,7 @@ def window_partition(frame: pd.DataFrame, kind: str = SPAN, columns: ColumnMap =
     dated = [record for record in loaded.records if record.span is not None]
     if dated:
         arrays = event_windows(dated) if kind == EVENT else span_windows(dated)
-        first_row = table.first_row if hasattr(table, "first_row") else 0
-        windows[np.asarray(rows) - first_row] = np.column_stack(arrays)
+        windows[np.asarray(rows) - table.first_row] = np.column_stack(arrays)
     return pd.DataFrame(windows, columns=list(WINDOW_COLUMNS[kind]), index=frame.index)
 
 
@@ -82,7 +81,9 @@ def partitioned_activity(frame, per: str | int = "decade", kind: str = SPAN,
                          era: str = "bce") -> pd.DataFrame:
     """The counts per block of the dask DataFrame `frame` (rows of one `kind`), as
     `activity.activity` gives them for the same rows read on one machine: columns kind,
-    block_start, block_end, label, certain, possible, expected, unweighed."""
+    block_start, block_end, label, certain, possible, expected, unweighed; `attrs` say how
+    many rows were read and how many had no usable date (empty or unreadable: `timelines
+    check` on a sample names them) and so are in no count."""
     _dask()
     windows = frame.map_partitions(window_partition, kind, columns, settings, date_numbers,
                                    meta=window_meta(kind))
@@ -97,8 +98,10 @@ def partitioned_activity(frame, per: str | int = "decade", kind: str = SPAN,
     blocks = blocks_between(int(start), int(end), block_width(per), calendar)
     edges = blocks.edges
     parts = windows.map_partitions(count_partition, kind, edges, meta=count_meta())
-    summed = parts.groupby("block").sum().compute().reindex(range(len(edges) - 1),
-                                                            fill_value=0.0)
+    undated = windows.isna().all(axis=1)       # no usable date: counted here, not lost
+    summed, not_counted, rows = _dask().compute(parts.groupby("block").sum(), undated.sum(),
+                                                undated.count())
+    summed = summed.reindex(range(len(edges) - 1), fill_value=0.0)
     table = pd.DataFrame({"kind": KIND_NAMES[kind], "block_start": edges[:-1],
                           "block_end": edges[1:], "label": blocks.labels(era)})
     for name in COUNT_COLUMNS:
@@ -106,6 +109,7 @@ def partitioned_activity(frame, per: str | int = "decade", kind: str = SPAN,
         table[name] = values.round().astype("int64") if name != "expected" else values
     table = table.astype({"block_start": "int64", "block_end": "int64"})
     table.attrs["methods"] = {KIND_NAMES[kind]: METHODS[kind]}
+    table.attrs["rows"], table.attrs["not_counted"] = int(rows), int(not_counted)
     return table
 
 

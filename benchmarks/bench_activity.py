@@ -7,7 +7,8 @@ plain Python loop over the same windows in the same run.
 `activity(records, per="decade")` (windows read from the records, then numpy over
 record-block pairs) against a loop that weighs each window's share in each block it touches;
 both must give the same sums. Also times the spans' overlap probability on the same windows
-read as lives, and a 100-run envelope. Goal: 1M records in seconds (DESIGN.md section 6).
+read as lives, a 100-run envelope, and its record-keyed random numbers against numpy's
+Generator. Goal: 1M records in seconds (DESIGN.md section 6).
 """
 from __future__ import annotations
 
@@ -21,7 +22,7 @@ import numpy as np
 ROOT = Path(__file__).resolve().parent.parent
 sys.path.insert(0, str(ROOT))
 
-from timelines.analysis.activity import activity  # noqa: E402
+from timelines.analysis.activity import activity, keyed_uniform  # noqa: E402
 from timelines.calendar import GREGORIAN, fixed_from_gregorian  # noqa: E402
 from timelines.model import EVENT, Endpoint, Provenance, Record, Span  # noqa: E402
 
@@ -86,6 +87,11 @@ def main() -> None:
     _, envelope = timed(activity, finds[:100_000], per="decade", runs=100, seed=1,
                         calendar=GREGORIAN)
     print(f"100,000 events, 100 runs: envelope {envelope:.2f} s")
+    keys = np.arange(100_000)
+    _, keyed = timed(keyed_uniform, 1, keys, 0, 100, 0)
+    _, plain = timed(np.random.default_rng(1).random, (100, 100_000))
+    print(f"10,000,000 uniform numbers: keyed by record {keyed:.2f} s, numpy Generator "
+          f"{plain:.2f} s, ratio {keyed / plain:.1f}x (the price of partition-free draws)")
 
 
 if __name__ == "__main__":

@@ -4,6 +4,7 @@ the same run (time per row, as a ratio).
     python benchmarks/bench_partitioned.py                       # 1,000,000 rows
     python benchmarks/bench_partitioned.py --rows 10000000       # the 10M target
     python benchmarks/bench_partitioned.py --quick               # 100,000, for a smoke run
+    python benchmarks/bench_partitioned.py --rows 2000000 --runs 100   # with the envelope
 
 Invented rows of spans with date texts in many forms (a column repeats its values, as real
 ones do), read and counted per decade: on one machine by `load_records` + `activity`, and
@@ -50,10 +51,10 @@ def invented(rows: int, seed: int = 2) -> pd.DataFrame:
         "end": [text(f, y) for f, y in zip(forms[1], years + lengths)]})
 
 
-def one_machine(frame: pd.DataFrame) -> pd.DataFrame:
+def one_machine(frame: pd.DataFrame, runs: int) -> pd.DataFrame:
     table = table_from_data(frame)
     loaded = load_records(table, detect_columns(table.header, ColumnMap()))
-    return activity(loaded.records, per="decade")
+    return activity(loaded.records, per="decade", runs=runs, seed=1)
 
 
 def main() -> None:
@@ -62,21 +63,25 @@ def main() -> None:
     parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     parser.add_argument("--rows", type=int, default=1_000_000)
     parser.add_argument("--quick", action="store_true")
+    parser.add_argument("--runs", type=int, default=0, help="with a Monte Carlo envelope")
     args = parser.parse_args()
     rows = 100_000 if args.quick else args.rows
     frame = invented(rows)
     start = time.perf_counter()
-    single = one_machine(frame)
+    single = one_machine(frame, args.runs)
     single_seconds = time.perf_counter() - start
     partitions = max(1, rows // 1_000_000)
     start = time.perf_counter()
     with dask.config.set(scheduler="threads"):
         split = partitioned_activity(dd.from_pandas(frame, npartitions=partitions),
-                                     per="decade")
+                                     per="decade", runs=args.runs, seed=1)
     dask_seconds = time.perf_counter() - start
     assert single["certain"].tolist() == split["certain"].tolist()
     assert np.allclose(single["expected"], split["expected"], rtol=1e-9)
-    print(f"{rows:,} rows, {partitions} partition(s), {len(single)} decades")
+    if args.runs:
+        assert single["high"].tolist() == split["high"].tolist()
+    print(f"{rows:,} rows, {partitions} partition(s), {len(single)} decades, "
+          f"{args.runs} Monte Carlo runs")
     print(f"one machine: {single_seconds:.1f} s ({single_seconds / rows * 1e6:.1f} µs a row)")
     print(f"dask:        {dask_seconds:.1f} s ({dask_seconds / rows * 1e6:.1f} µs a row)")
     print(f"ratio: dask takes {dask_seconds / single_seconds:.2f}x the single-machine time "

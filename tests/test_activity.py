@@ -253,7 +253,7 @@ def test_simulated_mean_matches_the_expected_count():
     table = activity(records, per="decade", runs=runs, seed=5, calendar=GREGORIAN)
     from timelines.analysis.activity import simulate_spans, span_windows
     edges = np.append(table["block_start"].to_numpy(float), table["block_end"].iloc[-1])
-    counts = simulate_spans(*span_windows(records), edges, runs, np.random.default_rng(9))
+    counts = simulate_spans(*span_windows(records), edges, runs, 9, np.arange(len(records)))
     standard_error = counts.std(axis=0) / np.sqrt(runs) + 1e-9
     assert np.all(np.abs(counts.mean(axis=0) - table["expected"]) < 4 * standard_error)
 
@@ -326,3 +326,44 @@ def test_command_refuses_an_unknown_period(tmp_path, capsys):
         main(["activity", _register(tmp_path), "--per", "fortnight"])
     assert exit_.value.code == 2
     assert "cannot make blocks of 'fortnight'" in capsys.readouterr().err
+
+
+# -- the keyed draws behind the envelope -------------------------------------------------------
+
+def test_keyed_draws_are_uniform_and_unrelated():
+    from timelines.analysis.activity import keyed_uniform
+    keys = np.arange(20_000)
+    first = keyed_uniform(7, keys, 0, 5, 0)
+    second = keyed_uniform(7, keys, 0, 5, 1)
+    assert first.shape == (5, 20_000) and first.min() >= 0 and first.max() < 1
+    # Pearson's chi-square over 20 equal bins, 19 degrees of freedom: the 0.999 quantile is
+    # 43.8 (standard chi-square tables, e.g. NIST/SEMATECH e-Handbook 1.3.6.7.4).
+    observed = np.histogram(first, bins=20, range=(0, 1))[0]
+    expected = first.size / 20
+    assert ((observed - expected) ** 2 / expected).sum() < 43.8
+    # The two numbers of a record, and neighbouring keys, are unrelated (|r| < 4/sqrt(n)).
+    bound = 4 / np.sqrt(first.size)
+    assert abs(np.corrcoef(first.ravel(), second.ravel())[0, 1]) < bound
+    assert abs(np.corrcoef(first[:, :-1].ravel(), first[:, 1:].ravel())[0, 1]) < bound
+    # A run's numbers depend on the run, not on the chunk it is drawn in.
+    assert np.array_equal(keyed_uniform(7, keys, 3, 2, 0), first[3:5])
+    assert not np.array_equal(keyed_uniform(8, keys, 0, 5, 0), first)
+
+
+def test_a_groups_envelope_is_the_same_drawn_alone():
+    # Each record's draws are keyed by its row, so grouping (or cutting the table into
+    # partitions) does not change a record's simulated moments.
+    rng = np.random.default_rng(21)
+    records = []
+    for row in range(60):
+        first = int(rng.integers(1600, 1680))
+        window = Endpoint(first_day(first), last_day(first + int(rng.integers(0, 30))))
+        records.append(Record("find", Span.point(window), Provenance("invented.csv", row + 2),
+                              group="ab"[row % 2], kind=EVENT))
+    grouped = activity(records, group="group", runs=400, seed=3, calendar=GREGORIAN,
+                       start=first_day(1600), end=last_day(1720))
+    alone = activity([r for r in records if r.group == "b"], runs=400, seed=3,
+                     calendar=GREGORIAN, start=first_day(1600), end=last_day(1720))
+    mine = grouped[grouped["group"] == "b"].reset_index(drop=True)
+    for name in ("low", "median", "high"):
+        assert mine[name].tolist() == alone[name].tolist()

@@ -68,9 +68,11 @@ def test_windows_are_days_with_nan_for_no_date_and_negative_before_the_era():
                           "end": ["44 BC", "", "../1700"]})
     windows = window_partition(frame)
     assert windows.loc[0, "s0"] < 0 and windows.loc[0, "t1"] < 0      # before the era
-    assert windows.loc[1].isna().all()                                 # no date: NaN, not 0
-    assert list(windows.columns) == ["s0", "s1", "t0", "t1"]
-    assert windows.dtypes.eq("float64").all()
+    days = ["s0", "s1", "t0", "t1"]
+    assert windows.loc[1, days].isna().all()                           # no date: NaN, not 0
+    assert list(windows.columns) == days + ["group"]
+    assert windows[days].dtypes.eq("float64").all()
+    assert windows["group"].tolist() == ["", "", ""]                   # no group asked
 
 
 def test_given_blocks_are_kept_for_every_partition():
@@ -79,3 +81,26 @@ def test_given_blocks_are_kept_for_every_partition():
         one, seven = (partitioned_activity(dd.from_pandas(frame, npartitions=n), per=25,
                                            start=-1000, end=800_000) for n in (1, 7))
     pd.testing.assert_frame_equal(one, seven, check_exact=False, rtol=1e-12)
+
+
+@pytest.mark.parametrize("kind", [SPAN, EVENT])
+@pytest.mark.parametrize("partitions", [1, 2, 7])
+def test_groups_and_envelope_as_one_machine(kind, partitions):
+    # Each record's Monte Carlo numbers are keyed by its row, and each run's counts are summed
+    # across partitions before the percentiles: the envelope cannot depend on the cut.
+    frame = invented_rows(240, seed=13)
+    frame["circle"] = ["north", "south", "east"] * 80
+    table = table_from_data(frame)
+    loaded = load_records(table, detect_columns(table.header, ColumnMap()),
+                          events=kind == EVENT)
+    expected = activity(loaded.records, per="decade", group="circle", runs=300, seed=2)
+    with dask.config.set(scheduler="threads"):
+        found = partitioned_activity(dd.from_pandas(frame, npartitions=partitions),
+                                     per="decade", kind=kind, group="circle", runs=300, seed=2)
+    assert list(found.columns) == list(expected.columns)
+    assert sorted(set(found["group"])) == ["east", "north", "south"]
+    for name in ("group", "block_start", "label", "certain", "possible", "low", "median",
+                 "high"):
+        assert found[name].tolist() == expected[name].tolist(), name
+    np.testing.assert_allclose(found["expected"], expected["expected"], rtol=1e-12, atol=1e-9)
+    assert (found["high"] > found["low"]).any()

@@ -289,13 +289,47 @@ def _area_start_not_after_end(a0, a1, c0, c1):
 
 # -- the Monte Carlo envelope (Crema 2012) ---------------------------------------------------
 
-def simulate_events(low, high, edges, runs: int, rng: np.random.Generator) -> np.ndarray:
+def keyed_uniform(seed: int, keys: np.ndarray, first_run: int, runs: int,
+                  draw: int) -> np.ndarray:
+    """Uniform numbers in [0, 1), runs x records: run `first_run + r`'s `draw`-th number
+    (0 or 1) for the record keyed `keys[i]`. Each number depends only on (seed, key, run,
+    draw), never on which records are drawn alongside, so a table cut into partitions or
+    groups draws the same numbers for each record. A counter-based generator: SplitMix64's
+    output function (Steele, Lea & Flood 2014) over a per-record state, one step per number."""
+    with np.errstate(over="ignore"):
+        record = _mix64(_mix64(np.uint64(seed % 2 ** 64)) ^ keys.astype(np.uint64))
+        steps = (np.arange(first_run, first_run + runs, dtype=np.uint64) * np.uint64(2)
+                 + np.uint64(draw + 1)) * _GOLDEN
+        bits = _mix64(record[None, :] + steps[:, None])
+    bits >>= np.uint64(11)
+    uniform = bits.astype(np.float64)
+    uniform *= 2.0 ** -53
+    return uniform
+
+
+_GOLDEN = np.uint64(0x9E3779B97F4A7C15)
+
+
+def _mix64(z):
+    """SplitMix64's finaliser: a bijection of 64-bit words that scatters nearby inputs
+    (in place on a fresh array `z`; a new one for a scalar)."""
+    if np.ndim(z) == 0:
+        z = np.array(z, dtype=np.uint64)
+    z ^= z >> np.uint64(30)
+    z *= np.uint64(0xBF58476D1CE4E5B9)
+    z ^= z >> np.uint64(27)
+    z *= np.uint64(0x94D049BB133111EB)
+    z ^= z >> np.uint64(31)
+    return z
+
+
+def simulate_events(low, high, edges, runs: int, seed: int, keys: np.ndarray) -> np.ndarray:
     """Counts per block (runs x blocks), each run every event's moment drawn uniformly from
-    its window."""
+    its window (numbers keyed by record: `keyed_uniform`)."""
     blocks = len(edges) - 1
     counts = np.zeros((runs, blocks), dtype=np.int64)
     for first_run, chunk in _run_chunks(runs, len(low)):
-        moments = low + rng.random((chunk, len(low))) * (high - low)
+        moments = low + keyed_uniform(seed, keys, first_run, chunk, 0) * (high - low)
         block = _first_block_reached(edges, moments)
         inside = (block >= 0) & (block < blocks)
         flat = (np.arange(chunk)[:, None] * blocks + block)[inside]
@@ -304,14 +338,16 @@ def simulate_events(low, high, edges, runs: int, rng: np.random.Generator) -> np
     return counts
 
 
-def simulate_spans(s0, s1, t0, t1, edges, runs: int, rng: np.random.Generator) -> np.ndarray:
+def simulate_spans(s0, s1, t0, t1, edges, runs: int, seed: int, keys: np.ndarray) -> np.ndarray:
     """Counts per block (runs x blocks), each run every span's start and end drawn uniformly
-    from their windows, given start <= end (drawn exactly, not by rejection)."""
+    from their windows, given start <= end (drawn exactly, not by rejection; numbers keyed
+    by record: `keyed_uniform`)."""
     blocks = len(edges) - 1
     counts = np.zeros((runs, blocks), dtype=np.int64)
     for first_run, chunk in _run_chunks(runs, len(s0)):
-        start = draw_start(s0, s1, t0, t1, rng.random((chunk, len(s0))))
-        end = np.maximum(t0, start) + rng.random(start.shape) * (t1 - np.maximum(t0, start))
+        start = draw_start(s0, s1, t0, t1, keyed_uniform(seed, keys, first_run, chunk, 0))
+        later = np.maximum(t0, start)
+        end = later + keyed_uniform(seed, keys, first_run, chunk, 1) * (t1 - later)
         first = np.clip(_first_block_reached(edges, start), 0, None)
         last = np.clip(_last_block_before(edges, end), None, blocks - 1)
         row = np.broadcast_to(np.arange(chunk)[:, None] * (blocks + 1), first.shape)
@@ -373,20 +409,31 @@ def activity(records: Iterable[Record], per: str | int = "decade", start: int | 
     uniform and independent in their windows given start <= end), `unweighed` (of the
     possible, those whose unbounded windows kept them out of `expected`); with `runs` > 0 the
     Monte Carlo envelope of the count: `low`, `median`, `high`, the 2.5th, 50th and 97.5th
-    percentiles over the runs (Crema 2012), seeded by `seed` (numpy SeedSequence, one child
-    per kind and group, in the table's order). `attrs` name the kinds held, the methods, the
-    undated records and the unweighed ones in all."""
+    percentiles over the runs (Crema 2012). Each record's draws depend only on `seed`, its
+    key (`record_keys`: its row) and the run, so a group's envelope is the same whether the
+    table is grouped, cut into partitions (`partitioned`) or not. `attrs` name the kinds
+    held, the methods, the undated records and the unweighed ones in all."""
     width = block_width(per)
+    records = list(records)
+    keyed = dict(zip(map(id, records), record_keys(records)))
     dated = [record for record in records if record.span is not None]
     parts = _partitions(dated, group)
     windows = {key: _windows(key[0], members) for key, members in parts.items()}
     blocks = _blocks_for(windows.values(), width, start, end, calendar)
-    seeds = np.random.SeedSequence(seed).spawn(len(parts))
-    frames = [_part_table(key, windows[key], blocks, runs, child, era)
-              for key, child in zip(parts, seeds)]
+    frames = [_part_table(key, windows[key], blocks, runs, seed, era,
+                          np.array([keyed[id(r)] for r in members], dtype=np.int64))
+              for key, members in parts.items()]
     table = _joined(frames, group is not None, runs > 0)
     table.attrs.update(_attrs(records, dated, windows, width, runs))
     return table
+
+
+def record_keys(records: Sequence[Record]) -> np.ndarray:
+    """The key each record's Monte Carlo draws are made with: its row in the table (a
+    DataFrame's rows as `iloc` counts them, so a dask frame's global row gives the same key),
+    or its place in `records` where rows repeat (records joined from several tables)."""
+    rows = np.array([record.provenance.row for record in records], dtype=np.int64)
+    return rows if len(np.unique(rows)) == len(rows) else np.arange(len(rows), dtype=np.int64)
 
 
 def _partitions(records: list[Record], group: str | None) -> dict[tuple, list[Record]]:
@@ -434,7 +481,7 @@ def _finite_days(arrays: tuple[np.ndarray, ...]):
 
 
 def _part_table(key: tuple, windows: tuple, blocks: Blocks | None, runs: int,
-                seed: np.random.SeedSequence, era: str) -> pd.DataFrame:
+                seed: int, era: str, keys: np.ndarray) -> pd.DataFrame:
     kind, group = key
     if blocks is None:
         return pd.DataFrame()
@@ -443,19 +490,20 @@ def _part_table(key: tuple, windows: tuple, blocks: Blocks | None, runs: int,
     columns = {"kind": KIND_NAMES[kind], "group": group, "block_start": edges[:-1],
                "block_end": edges[1:], "label": blocks.labels(era), **counts}
     if runs > 0:
-        columns.update(envelope(_simulated(kind, windows, edges, runs, seed)))
+        columns.update(envelope(simulated(kind, windows, edges, runs, seed, keys)))
     table = pd.DataFrame(columns)
     return table.astype({"block_start": "int64", "block_end": "int64"})
 
 
-def _simulated(kind: str, windows: tuple, edges, runs: int, seed) -> np.ndarray:
-    """The simulated counts of the weighable records (bounded on every side)."""
+def simulated(kind: str, windows: tuple, edges, runs: int, seed: int,
+              keys: np.ndarray) -> np.ndarray:
+    """The simulated counts (runs x blocks) of the weighable records (bounded on every
+    side), record i drawn with key `keys[i]`."""
     weighed = np.logical_and.reduce([np.isfinite(a) for a in windows])
     chosen = [a[weighed] for a in windows]
-    rng = np.random.default_rng(seed)
     if kind == EVENT:
-        return simulate_events(*chosen, edges, runs, rng)
-    return simulate_spans(*chosen, edges, runs, rng)
+        return simulate_events(*chosen, edges, runs, seed, keys[weighed])
+    return simulate_spans(*chosen, edges, runs, seed, keys[weighed])
 
 
 def _joined(frames: list[pd.DataFrame], grouped: bool, simulated: bool) -> pd.DataFrame:
@@ -476,6 +524,5 @@ def _attrs(records, dated: list[Record], windows: dict, width: int, runs: int) -
     return {"kind": holds(dated), "per": width, "runs": runs,
             "methods": {KIND_NAMES[kind]: METHODS[kind] for kind in kinds},
             "envelope": ENVELOPE if runs else None,
-            "undated": sum(1 for record in records if record.span is None)
-            if isinstance(records, Sequence) else None,
+            "undated": sum(1 for record in records if record.span is None),
             "unweighed": unweighed}

@@ -241,3 +241,106 @@ def test_the_analysis_guide_shows_what_check_prints(capsys):
     narrowed = [line for line in capsys.readouterr().out.splitlines()
                 if line.startswith("narrowed:")]
     assert narrowed and all(line in guide for line in narrowed)
+
+
+# -- what statements bind between two records, for relate -------------------------------------
+
+def _completions(records, statements):
+    """Every integer choice of the four days (first and last of each record, first <= last)
+    that keeps every statement: brute force, the reference for the links."""
+    import itertools
+    a, b = records
+    ranges = [range(w[0], w[1] + 1) for r in (a, b) for w in
+              ((r.span.start.earliest, r.span.start.latest),
+               (r.span.end.earliest, r.span.end.latest))]
+    for a0, a1, b0, b1 in itertools.product(*ranges):
+        if a0 > a1 or b0 > b1:
+            continue
+        days = {("a", "start"): a0, ("a", "end"): a1, ("b", "start"): b0, ("b", "end"): b1}
+        keeps = True
+        for statement in statements:
+            first, second = statement.first, statement.second or statement.first
+            for number, (earlier, later, (low, high)) in enumerate(
+                    constraints.RELATIONS[statement.relation]):
+                if number == 0 and statement.gap is not None:
+                    low, high = statement.gap.low, statement.gap.high
+                names = {"A": first, "B": second}
+                gap = days[(names[later[0]], later[1])] - days[(names[earlier[0]], earlier[1])]
+                keeps &= low <= gap <= high
+        if keeps:
+            yield a0, a1 + 1, b0, b1 + 1
+
+
+@SOLVERS
+def test_relations_under_statements_agree_with_brute_force(monkeypatch, small_network):
+    # The relations possible once statements hold are exactly those of the completions that
+    # keep them, counted by brute force; the narrowed windows alone would allow more.
+    import random
+
+    from timelines.analysis.relations import ALLEN_RELATIONS, classify, relate
+    monkeypatch.setattr(constraints, "SMALL_NETWORK", small_network)
+    chooser = random.Random(5)
+    relations = ["before", "after", "starts before the start of", "ends before the end of",
+                 "during", "same start", "ends after the start of", "lasts"]
+    wider = 0
+    for trial in range(150):
+        records = []
+        for key in "ab":
+            first = chooser.randint(0, 8)
+            last = first + chooser.randint(0, 8)
+            records.append(_record(key, (first, first + chooser.randint(0, 4)),
+                                   (last, last + chooser.randint(0, 4)), 2))
+        relation = chooser.choice(relations)
+        low = chooser.randint(0, 5)
+        gap = chooser.choice([None, f"{low}d..", f"..{low}d", f"{low}d..{low + 2}d"])
+        said = [_said("a", relation, "" if relation == "lasts" else "b", gap, 2)]
+        outcome = tighten(records, said)
+        expected = {ALLEN_RELATIONS[int(code)] for code in
+                    {int(classify(*c)) for c in _completions(records, said)}}
+        if not outcome.consistent:
+            assert not expected, (trial, said)
+            continue
+        a, b = outcome.records
+        found = relate(a, b, links=outcome.links.between(0, 1))
+        assert set(found.possible) == expected, (trial, relation, gap)
+        wider += set(relate(a, b).possible) != expected
+    assert wider > 10          # the links mattered: windows alone over-report in many trials
+
+
+def test_relate_and_alongside_under_statements(tmp_path, capsys):
+    from timelines.cli.commands import main
+    table = tmp_path / "people.csv"
+    table.write_text("id,name,born,died\np1,Anna Wray,1650,1700\np3,Cora Wray,c. 1700,1740\n",
+                     encoding="utf-8")
+    said = tmp_path / "said.csv"
+    said.write_text("first,relation,second,gap\np1,before,p3,2d..\n", encoding="utf-8")
+    assert main(["relate", str(table), "p1", "p3"]) == 0
+    assert "no relation is certain" in capsys.readouterr().out
+    assert main(["relate", str(table), "p1", "p3", "--constraints", str(said)]) == 0
+    printed = capsys.readouterr()
+    assert printed.out.splitlines()[0] == "p1 before p3 (certain)"
+    assert "bound narrowed by the statements of --constraints" in printed.err
+    assert main(["relate", str(table), "--alongside", "p1", "--constraints", str(said),
+                 "--format", "json"]) == 0
+    assert capsys.readouterr().out.strip() == "[]"          # Cora came after Anna's death
+    assert main(["relate", str(table), "--with", "p1", "--constraints", str(said),
+                 "--format", "csv"]) == 0
+    assert "p1,p3,Cora Wray,1,before,before" in capsys.readouterr().out.splitlines()
+
+
+def test_activity_counts_the_narrowed_windows(tmp_path, capsys):
+    # A life "1650s" to "before 1700" counts possibly in the 1690s; "lasts ..30y" ends it by
+    # the end of 1689.
+    from timelines.cli.commands import main
+    table = tmp_path / "people.csv"
+    table.write_text("id,name,born,died\np1,Anna Wray,1650s,before 1700\n", encoding="utf-8")
+    said = tmp_path / "said.csv"
+    said.write_text("first,relation,second,gap\np1,lasts,,..30y\n", encoding="utf-8")
+    assert main(["activity", str(table), "--format", "csv"]) == 0
+    plain = capsys.readouterr().out
+    assert main(["activity", str(table), "--format", "csv", "--constraints", str(said)]) == 0
+    narrowed = capsys.readouterr()
+    assert "narrowed by the statements of --constraints" in narrowed.err
+    possible = {line.split(",")[3]: line.split(",")[5] for line in narrowed.out.splitlines()[1:]}
+    assert ",1690–1699,0,1," in plain                       # possibly active then
+    assert list(possible)[-1] == "1680–1689" and possible["1680–1689"] == "1"   # no longer

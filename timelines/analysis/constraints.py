@@ -52,8 +52,10 @@ from ..errors import UsageError, did_you_mean
 from ..model import Endpoint, Qualifier, Record, Span
 from ..sources import read_table
 from .network import (  # noqa: F401  (minimal_network: the all-pairs answer, for callers)
-    INF, Contradiction, Network, Reason, bellman_ford, floyd_warshall, minimal_network,
+    INF, Contradiction, Network, Reason, bellman_ford, distances_from, floyd_warshall,
+    minimal_network,
 )
+from .relations import A_END, A_START, B_END, B_START
 
 SMALL_NETWORK = 500                     # nodes: Floyd–Warshall up to here, Bellman–Ford above
 DAYS_PER_UNIT = {"d": 1.0, "w": 7.0, "mo": 365.2425 / 12, "y": 365.2425}
@@ -191,15 +193,55 @@ class Narrowing:
                 f"{_window(self.after)}, by {by}")
 
 
+class Links:
+    """What the statements say between two records' endpoints beyond their narrowed windows:
+    "the will before the death" narrows both windows, but also puts the will's day before
+    the death's in every completion, which the windows alone forget. `between(i, j)` gives
+    those bounds for the records at places i and j of the table, as `relations.relate`
+    takes them; distances are found on demand by Bellman–Ford from each endpoint asked."""
+
+    def __init__(self, network: Network, places: dict[int, int]):
+        self._network, self._places = network, places
+        self._rows: dict[int, object] = {}
+
+    def __contains__(self, place: int) -> bool:
+        return place in self._places
+
+    def between(self, first: int, second: int) -> tuple[tuple[int, int, float], ...]:
+        """Edges (u, v, w), `v - u <= w` between the instants A_START, A_END (the record at
+        `first`), B_START, B_END (at `second`): a start instant is its first day, an end
+        instant the day after its last (relations' time grid). Empty: no statement binds."""
+        points = []
+        for place, start, end in ((first, A_START, A_END), (second, B_START, B_END)):
+            if place in self._places:
+                index = self._places[place]
+                points += [(self._network.node(index, "start"), start, 0),
+                           (self._network.node(index, "end"), end, 1)]
+        edges = []
+        for node, point, shift in points:
+            row = self._from(node)
+            edges += [(point, other, float(row[to]) + other_shift - shift)
+                      for to, other, other_shift in points
+                      if other != point and row[to] < INF]
+        return tuple(edges)
+
+    def _from(self, node: int):
+        if node not in self._rows:
+            self._rows[node] = distances_from(self._network, node)
+        return self._rows[node]
+
+
 @dataclass(frozen=True, slots=True)
 class Tightened:
     """The records with narrowed windows (the same order; untouched ones as they were), what
-    narrowed and what contradicts, and the method that found it."""
+    narrowed and what contradicts, the method that found it, and the statements' `links`
+    between records (None when they contradict)."""
 
     records: tuple[Record, ...]
     narrowed: tuple[Narrowing, ...]
     contradictions: tuple[Contradiction, ...]
     method: str
+    links: Links | None = None
 
     @property
     def consistent(self) -> bool:
@@ -313,7 +355,8 @@ def tighten(records: list[Record], statements: list[Statement]) -> Tightened:
     result = list(records)
     for index, record in zip(touched, tightened):
         result[index] = record
-    return Tightened(tuple(result), tuple(narrowed), (), method)
+    links = Links(network, {place: index for index, place in enumerate(touched)})
+    return Tightened(tuple(result), tuple(narrowed), (), method, links)
 
 
 def _narrowed(network: Network, bounds, paths) -> tuple[list[Narrowing], list[Record]]:

@@ -188,6 +188,18 @@ def bellman_ford(network: Network):
     return (-to_origin, latest), paths, None
 
 
+def distances_from(network: Network, node: int) -> np.ndarray:
+    """The tightest `x_v - x_node` for every node v (INF: unbounded), by Bellman–Ford from
+    `node`; the network must hold no negative cycle."""
+    src, dst, weight = network.arrays()
+    start = np.full(network.size, INF)
+    start[node] = 0
+    distance, _, cycle = _relaxed(network.size, src, dst, weight, start)
+    if cycle is not None:
+        raise ValueError("the network holds a negative cycle")
+    return distance
+
+
 def _relaxed(n: int, src, dst, weight, distance: np.ndarray):
     """Shortest distances from where `distance` is finite, each node's last edge, or a
     negative cycle (edge indices) as soon as the predecessor graph closes one."""

@@ -28,6 +28,7 @@ bound has no uniform distribution: the probabilities are then undefined, and say
 from __future__ import annotations
 
 import math
+from collections.abc import Callable
 from dataclasses import dataclass
 from functools import cache
 
@@ -50,6 +51,9 @@ APART = frozenset({"before", "meets", "met-by", "after"})
 # The five points of the temporal problem: a time origin and the four endpoint instants.
 ORIGIN, A_START, A_END, B_START, B_END = range(5)
 _POINTS = 5
+# Bounds between the instants that statements add (constraints.Links): (u, v, w), v - u <= w.
+Links = tuple[tuple[int, int, float], ...]
+Between = Callable[[int, int], Links]
 # Each relation's point constraints (Allen 1983, Fig. 2, written as endpoint comparisons).
 RELATION_CONSTRAINTS = {
     "before": ((A_END, "<", B_START),),
@@ -168,10 +172,11 @@ def _most(one: int | None, other: int | None) -> int | None:
 
 # --- the temporal problem over five points ---------------------------------------------------
 
-def _distance_graph(a: Bounds, b: Bounds) -> list[list[float]]:
+def _distance_graph(a: Bounds, b: Bounds, links: Links = ()) -> list[list[float]]:
     """Shortest distances between the five points (`d[u][v]`: the most `v - u` can be),
-    from the four instants' windows and each record's own constraint, closed by
-    Floyd-Warshall (five points: a handful of steps)."""
+    from the four instants' windows, each record's own constraint and the `links` between
+    them (statements: `constraints.Links`), closed by Floyd-Warshall (five points: a
+    handful of steps)."""
     distances = [[0 if u == v else math.inf for v in range(_POINTS)] for u in range(_POINTS)]
     for bounds, start, end in ((a, A_START, A_END), (b, B_START, B_END)):
         for point, low, high in ((start, bounds.first_earliest, bounds.first_latest),
@@ -181,6 +186,8 @@ def _distance_graph(a: Bounds, b: Bounds) -> list[list[float]]:
         _tighten(distances, end, start, -1)                 # start before end, a day apart
         if bounds.one_day:
             _tighten(distances, start, end, 1)              # an event: exactly one day
+    for u, v, most in links:
+        _tighten(distances, u, v, most)
     for middle in range(_POINTS):
         for u in range(_POINTS):
             for v in range(_POINTS):
@@ -232,42 +239,45 @@ def _certain(distances: list[list[float]], constraint: tuple[int, str, int]) -> 
 
 # --- relate -----------------------------------------------------------------------------------
 
-def relate(a: Record, b: Record, samples: int | None = None, seed: int = 0) -> Relation:
+def relate(a: Record, b: Record, samples: int | None = None, seed: int = 0,
+           links: Links = ()) -> Relation:
     """How record `a` stands to record `b`: the possible and certain Allen relations and
-    CIDOC CRM comparisons; with `samples`, the Monte Carlo probability of each relation."""
+    CIDOC CRM comparisons; with `samples`, the probability of each relation. `links`: what
+    statements say between their endpoints (`constraints.Tightened.links.between`)."""
     return relate_bounds(record_bounds(a), record_bounds(b), record_name(a), record_name(b),
-                         samples, seed)
+                         samples, seed, links)
 
 
 def relate_bounds(a: Bounds, b: Bounds, a_name: str = "A", b_name: str = "B",
-                  samples: int | None = None, seed: int = 0) -> Relation:
-    distances = _distance_graph(a, b)
+                  samples: int | None = None, seed: int = 0, links: Links = ()) -> Relation:
+    distances = _distance_graph(a, b, links)
     possible = tuple(name for name, constraints in RELATION_CONSTRAINTS.items()
                      if _satisfiable(distances, constraints))
     crm_possible = tuple(name for name, constraint in CRM_RELATIONS.items()
                          if _satisfiable(distances, [constraint]))
     crm_certain = tuple(name for name in crm_possible
                         if _certain(distances, CRM_RELATIONS[name]))
-    probabilities, method = _probabilities(a, b, possible, samples, seed)
+    probabilities, method = _probabilities(a, b, possible, samples, seed, links)
     return Relation(a_name, b_name, possible, possible[0] if len(possible) == 1 else None,
                     crm_certain, crm_possible, probabilities, method)
 
 
 def _probabilities(a: Bounds, b: Bounds, possible: tuple[str, ...], samples: int | None,
-                   seed: int) -> tuple[tuple[tuple[str, float], ...], str]:
+                   seed: int, links: Links) -> tuple[tuple[tuple[str, float], ...], str]:
     if samples is None:
         return (), BOUNDS_ONLY
     if not (a.is_bounded and b.is_bounded):
         return (), ("undefined: a window with no bound has no uniform distribution, "
                     "so no probability")
     assumption = ("each endpoint a uniform day of its window, independent, start not after "
-                  "end in each record")
+                  "end in each record" + (", the statements between them holding"
+                                          if links else ""))
     choices = _choices(a) * _choices(b)
     if choices <= EXACT_LIMIT:
-        shares = exact_shares(a, b)
+        shares = exact_shares(a, b, links)
         method = f"exact: all {choices:,} choices of days counted; {assumption}"
     else:
-        shares = relation_shares(a, b, samples, seed)
+        shares = relation_shares(a, b, samples, seed, links)
         method = f"Monte Carlo: {samples} samples, seed {seed}; {assumption}"
     return tuple((name, shares[name]) for name in possible), method
 
@@ -293,29 +303,55 @@ def _day_pairs(bounds: Bounds) -> tuple[np.ndarray, np.ndarray]:
     return first[keep], last[keep]
 
 
-def exact_shares(a: Bounds, b: Bounds) -> dict[str, float]:
+def exact_shares(a: Bounds, b: Bounds, links: Links = ()) -> dict[str, float]:
     """The probability of each relation, every choice of days counted (uniform days,
-    independent, start not after end): exact, for windows small enough to enumerate."""
+    independent, start not after end, given the `links`): exact, for windows small enough
+    to enumerate."""
     a_first, a_last = _day_pairs(a)
     b_first, b_last = _day_pairs(b)
     counts = np.zeros(len(ALLEN_RELATIONS), dtype=np.int64)
     rows = max(1, _EXACT_CHUNK // max(1, len(b_first)))
     for at in range(0, len(a_first), rows):       # a block of A's choices against all of B's
-        codes = classify(a_first[at:at + rows, None], a_last[at:at + rows, None] + 1,
-                         b_first[None, :], b_last[None, :] + 1)
+        instants = np.broadcast_arrays(a_first[at:at + rows, None],
+                                       a_last[at:at + rows, None] + 1,
+                                       b_first[None, :], b_last[None, :] + 1)
+        keep = _holding(links, instants)
+        codes = classify(*(points[keep] for points in instants))
         counts += np.bincount(codes.ravel(), minlength=len(ALLEN_RELATIONS))
-    total = len(a_first) * len(b_first)
-    return {name: float(counts[index] / total) for index, name in enumerate(ALLEN_RELATIONS)}
+    return _shares(counts)
 
 
-def relation_shares(a: Bounds, b: Bounds, samples: int, seed: int = 0) -> dict[str, float]:
-    """The share of `samples` draws (uniform days, start not after end) in each relation."""
+def relation_shares(a: Bounds, b: Bounds, samples: int, seed: int = 0,
+                    links: Links = ()) -> dict[str, float]:
+    """The share of `samples` draws (uniform days, start not after end) in each relation;
+    with `links`, of the draws that keep them (drawn until `samples` are kept, or until
+    100 x `samples` draws keep none: then the shares are NaN, the links all but excluding)."""
     a_seed, b_seed = np.random.SeedSequence(seed).spawn(2)
-    a_first, a_last = _draw_days(a, samples, np.random.default_rng(a_seed))
-    b_first, b_last = _draw_days(b, samples, np.random.default_rng(b_seed))
-    codes = classify(a_first, a_last + 1, b_first, b_last + 1)
-    counts = np.bincount(codes, minlength=len(ALLEN_RELATIONS))
-    return {name: float(counts[index] / samples) for index, name in enumerate(ALLEN_RELATIONS)}
+    a_rng, b_rng = np.random.default_rng(a_seed), np.random.default_rng(b_seed)
+    counts = np.zeros(len(ALLEN_RELATIONS), dtype=np.int64)
+    for _ in range(100):
+        instants = (*_draw_days(a, samples, a_rng), *_draw_days(b, samples, b_rng))
+        instants = (instants[0], instants[1] + 1, instants[2], instants[3] + 1)
+        keep = _holding(links, instants)
+        codes = classify(*(points[keep] for points in instants))[:samples - counts.sum()]
+        counts += np.bincount(codes, minlength=len(ALLEN_RELATIONS))
+        if counts.sum() >= samples:
+            break
+    return _shares(counts)
+
+
+def _holding(links: Links, instants) -> np.ndarray:
+    """Where the four instants (A's start and end, B's start and end) keep every link."""
+    keep = np.ones(np.shape(instants[0]), dtype=bool)
+    for u, v, most in links:
+        keep &= instants[v - 1] - instants[u - 1] <= most
+    return keep
+
+
+def _shares(counts: np.ndarray) -> dict[str, float]:
+    total = counts.sum()
+    return {name: float(counts[index] / total) if total else math.nan
+            for index, name in enumerate(ALLEN_RELATIONS)}
 
 
 def _draw_days(bounds: Bounds, samples: int, generator) -> tuple[np.ndarray, np.ndarray]:
@@ -376,11 +412,14 @@ def _all_triples():
 
 # --- contemporaries ---------------------------------------------------------------------------
 
-def contemporaries(records: list[Record], target: Record | int | str | Endpoint) -> pd.DataFrame:
+def contemporaries(records: list[Record], target: Record | int | str | Endpoint,
+                   between: Between | None = None) -> pd.DataFrame:
     """Every record that possibly shares a day with `target` (a record, or a date: a fixed
     day, an Endpoint or a text, read as one day somewhere in its window), and whether it
     certainly does: columns a, b, b_index (the record's place in `records`), certain,
-    possible; the certain first, then in table order."""
+    possible; the certain first, then in table order. `between(i, j)`: the links statements
+    make between the records at places i and j (`constraints.Links.between`), weighed
+    for the pairs they bind."""
     if isinstance(target, Record):
         bounds, name = record_bounds(target), record_name(target)
     else:
@@ -391,6 +430,8 @@ def contemporaries(records: list[Record], target: Record | int | str | Endpoint)
     mine = _day_arrays([bounds])
     possible = _possibly_share(mine, days, 0, slice(None))
     certain = _certainly_share(mine, days, 0, slice(None))
+    if between is not None and isinstance(target, Record):
+        _linked_sharing(records, target, dated, between, possible, certain)
     frame = pd.DataFrame({"a": name, "b": [record_name(r) for _, r in dated],
                           "b_label": [r.label for _, r in dated],
                           "b_index": [index for index, _ in dated],
@@ -398,6 +439,22 @@ def contemporaries(records: list[Record], target: Record | int | str | Endpoint)
     frame = frame[frame["possible"]].sort_values(["certain", "b_index"],
                                                  ascending=[False, True], kind="stable")
     return frame.reset_index(drop=True)
+
+
+def _linked_sharing(records, target, dated, between, possible, certain) -> None:
+    """`possible` and `certain` again, from all their relations, for the pairs that
+    statements link (the windows alone can keep a pair the statements part)."""
+    place = _place(records, target)
+    for row, (index, record) in enumerate(dated):
+        links = between(place, index)
+        if links:
+            found = relate_bounds(record_bounds(target), record_bounds(record), links=links)
+            possible[row] = any(name not in APART for name in found.possible)
+            certain[row] = bool(found.possible) and APART.isdisjoint(found.possible)
+
+
+def _place(records: list[Record], target: Record) -> int:
+    return next(index for index, record in enumerate(records) if record is target)
 
 
 def contemporary_pairs(records: list[Record]) -> pd.DataFrame:
@@ -462,15 +519,20 @@ def _certainly_share(one: dict, other: dict, mine, theirs) -> np.ndarray:
             & (other["first_latest"][theirs] <= one["last_earliest"][mine]))
 
 
-def relations_with(records: list[Record], target: Record) -> pd.DataFrame:
+def relations_with(records: list[Record], target: Record,
+                   between: Between | None = None) -> pd.DataFrame:
     """How `target` stands to every other dated record: columns a, b, b_label, b_index,
-    certain (the certain relation, or None), possible (the possible ones, space-separated)."""
+    certain (the certain relation, or None), possible (the possible ones, space-separated);
+    `between` as for `contemporaries`."""
     bounds, name = record_bounds(target), record_name(target)
+    place = _place(records, target) if between is not None else None
     rows = []
     for index, record in enumerate(records):
         if record.span is None or record is target:
             continue
-        found = relate_bounds(bounds, record_bounds(record), name, record_name(record))
+        links = between(place, index) if between is not None else ()
+        found = relate_bounds(bounds, record_bounds(record), name, record_name(record),
+                              links=links)
         rows.append({"a": name, "b": found.b, "b_label": record.label, "b_index": index,
                      "certain": found.certain, "possible": " ".join(found.possible)})
     return pd.DataFrame(rows, columns=["a", "b", "b_label", "b_index", "certain", "possible"])

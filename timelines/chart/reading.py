@@ -7,7 +7,7 @@ from __future__ import annotations
 from dataclasses import dataclass, replace
 from os import PathLike
 
-from ..analysis.constraints import read_statements, tighten
+from ..analysis.constraints import Links, read_statements, tighten
 from ..check.durations import bound_by_longest
 from ..check.living import withhold_possibly_living
 from ..check.report import Finding
@@ -35,6 +35,7 @@ class ReadTable:
     bounded: int = 0                    # records whose open side --longest bounded
     findings: tuple[Finding, ...] = ()  # what those steps found worth a warning
     narrowed: int = 0                   # bounds the --constraints statements narrowed
+    links: Links | None = None          # what those statements say between records
 
 
 def read_source(data: object, options: ChartOptions = ChartOptions()) -> ReadTable:
@@ -69,7 +70,7 @@ def _tightened(read: ReadTable, options: ChartOptions) -> ReadTable:
         error.hint = "timelines check TABLE --constraints FILE lists what each statement narrows"
         raise error
     return replace(read, loaded=replace(read.loaded, records=result.records),
-                   narrowed=len(result.narrowed))
+                   narrowed=len(result.narrowed), links=result.links)
 
 
 def _detected_columns(table: Table, given: ColumnMap) -> ColumnMap:

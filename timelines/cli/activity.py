@@ -27,8 +27,10 @@ def run_activity(args, parser) -> int:
     options = ChartOptions(columns=commands._columns(args), sheet=args.sheet,
                            header_row=args.header_row, encoding=args.encoding,
                            settings=settings, date_numbers=args.date_numbers,
-                           events=commands._events(args))
-    loaded = Chart.from_options(commands._input_path(args, parser), options).read().loaded
+                           events=commands._events(args), constraints=args.constraints)
+    read = Chart.from_options(commands._input_path(args, parser), options).read()
+    loaded = read.loaded
+    commands.note_narrowed(read.narrowed, args.constraints)
     for problem in loaded.problems:
         commands._say(problem, file=sys.stderr)
     window = parse_window(args.window_from, args.window_to, settings)

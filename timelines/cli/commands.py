@@ -56,6 +56,13 @@ def _say(text: object, file=None) -> None:
     _print_line(terminal_text(text), file=file or sys.stdout)
 
 
+def note_narrowed(narrowed: int, statements: str | None) -> None:
+    """Say how many bounds the statements of --constraints narrowed (when some were given)."""
+    if statements:
+        bounds = "1 bound" if narrowed == 1 else f"{narrowed or 'no'} bounds"
+        _say(f"note: {bounds} narrowed by the statements of --constraints", file=sys.stderr)
+
+
 def main(argv: list[str] | None = None) -> int:
     argv = sys.argv[1:] if argv is None else list(argv)
     parser = build_parser()
@@ -260,9 +267,7 @@ def _print_run(arranged, args, era: str) -> None:
         people = "1 record" if arranged.withheld == 1 else f"{arranged.withheld} records"
         print(f"note: {people} of possibly living persons shown without their details "
               "(--withhold-living)", file=sys.stderr)
-    if arranged.narrowed:
-        _say(f"note: {arranged.narrowed} bounds narrowed by the statements of --constraints",
-             file=sys.stderr)
+    note_narrowed(arranged.narrowed, args.constraints)
     if arranged.bounded:
         records = "1 record's" if arranged.bounded == 1 else f"{arranged.bounded} records'"
         _say(f"note: {records} open ends bounded by the longest duration (--longest)",

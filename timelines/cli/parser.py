@@ -150,6 +150,9 @@ def _relate_command(commands) -> None:
     relate.add_argument("--seed", metavar="N", type=_count(0), default=0,
                         help="the draws' seed (default 0)")
     relate.add_argument("--format", choices=("table", "csv", "json"), default="table")
+    relate.add_argument("--constraints", metavar="FILE",
+                        help="a table of statements between records (a before b, a lasts 7y, "
+                             "...): the relations of the windows they narrow")
     _table_options(relate)
     _config_options(relate)
 
@@ -170,6 +173,9 @@ def _activity_command(commands) -> None:
     counts.add_argument("-o", "--output", help="OUT.svg, OUT.png or OUT.pdf: the counts as a "
                                               "chart (the table is not printed then)")
     counts.add_argument("--title", default="", help="the chart's title")
+    counts.add_argument("--constraints", metavar="FILE",
+                        help="a table of statements between records (a before b, a lasts 7y, "
+                             "...): the counts of the windows they narrow")
     _config_options(counts)
     _table_options(counts)
     _window_options(counts)

@@ -24,23 +24,32 @@ def run_relate(args, parser) -> int:
     options = ChartOptions(columns=commands._columns(args), sheet=args.sheet,
                            header_row=args.header_row, encoding=args.encoding,
                            settings=commands._settings(args),
-                           date_numbers=args.date_numbers, events=commands._events(args))
-    loaded = Chart.from_options(commands._input_path(args, parser), options).read().loaded
+                           date_numbers=args.date_numbers, events=commands._events(args),
+                           constraints=args.constraints)
+    read = Chart.from_options(commands._input_path(args, parser), options).read()
+    loaded = read.loaded
+    commands.note_narrowed(read.narrowed, args.constraints)
     _note_unread(loaded.problems, commands)
-    records = loaded.records
+    records = list(loaded.records)
+    between = read.links.between if read.links else None     # what statements bind
     if args.on:
         _write_frame(contemporaries(records, _date(args.on, options)), args.format, commands)
     elif args.alongside:
-        _write_frame(contemporaries(records, find_record(records, args.alongside)),
+        _write_frame(contemporaries(records, find_record(records, args.alongside), between),
                      args.format, commands)
     elif args.with_id:
-        _write_frame(relations_with(records, find_record(records, args.with_id)),
+        _write_frame(relations_with(records, find_record(records, args.with_id), between),
                      args.format, commands)
     else:
-        found = relate(find_record(records, args.a), find_record(records, args.b),
-                       samples=args.samples, seed=args.seed)
+        a, b = find_record(records, args.a), find_record(records, args.b)
+        links = between(_place(records, a), _place(records, b)) if between else ()
+        found = relate(a, b, samples=args.samples, seed=args.seed, links=links)
         _write_relation(found, args.format, commands)
     return 0
+
+
+def _place(records: list[Record], record: Record) -> int:
+    return next(index for index, other in enumerate(records) if other is record)
 
 
 def find_record(records: list[Record], key: str) -> Record:

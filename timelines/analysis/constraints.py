@@ -55,7 +55,6 @@ from .network import (  # noqa: F401  (minimal_network: the all-pairs answer, fo
     INF, Contradiction, Network, Reason, bellman_ford, distances_from, floyd_warshall,
     minimal_network,
 )
-from .relations import A_END, A_START, B_END, B_START
 
 SMALL_NETWORK = 500                     # nodes: Floyd–Warshall up to here, Bellman–Ford above
 DAYS_PER_UNIT = {"d": 1.0, "w": 7.0, "mo": 365.2425 / 12, "y": 365.2425}
@@ -211,6 +210,7 @@ class Links:
         """Edges (u, v, w), `v - u <= w` between the instants A_START, A_END (the record at
         `first`), B_START, B_END (at `second`): a start instant is its first day, an end
         instant the day after its last (relations' time grid). Empty: no statement binds."""
+        from .relations import A_END, A_START, B_END, B_START   # relations loads pandas
         points = []
         for place, start, end in ((first, A_START, A_END), (second, B_START, B_END)):
             if place in self._places:

@@ -267,7 +267,7 @@ def _print_run(arranged, args, era: str) -> None:
         people = "1 record" if arranged.withheld == 1 else f"{arranged.withheld} records"
         print(f"note: {people} of possibly living persons shown without their details "
               "(--withhold-living)", file=sys.stderr)
-    note_narrowed(arranged.narrowed, args.constraints)
+    note_narrowed(arranged.narrowed, getattr(args, "constraints", None))
     if arranged.bounded:
         records = "1 record's" if arranged.bounded == 1 else f"{arranged.bounded} records'"
         _say(f"note: {records} open ends bounded by the longest duration (--longest)",

@@ -16,7 +16,8 @@ SCRIPTS = make_gallery.examples()
 
 def test_the_gallery_has_its_examples():
     assert {s.parent.name for s in SCRIPTS} >= {"lifespans", "dynasty", "family", "archive",
-                                                "site-phases", "facets", "questions"}
+                                                "site-phases", "facets", "questions",
+                                                "radiocarbon"}
 
 
 @pytest.mark.parametrize("script", SCRIPTS, ids=lambda s: s.parent.name)

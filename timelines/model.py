@@ -64,6 +64,32 @@ _UNKNOWN_SIDES = frozenset({Qualifier.UNKNOWN_START, Qualifier.UNKNOWN_END})
 
 
 @dataclass(frozen=True, slots=True)
+class Radiocarbon:
+    """A radiocarbon determination as measured, `age` ± `error` 14C years BP, with the
+    calibration curve it is read with ("intcal20", "shcal20") and its laboratory code if
+    written; and what calibration made of it (dates/c14.py): the probability of each calendar
+    year from the astronomical year `first_year` on (`density`, summing to 1), the
+    highest-density `ranges` per level ((level, ((first year, last year, probability), ...)),
+    oldest first), the `median_year` and the curve's `citation`. Two are equal when the
+    measurement and the curve are."""
+
+    age: float
+    error: float
+    curve: str = "intcal20"
+    lab: str | None = None
+    first_year: int = field(default=0, compare=False)
+    density: tuple[float, ...] = field(default=(), compare=False, repr=False)
+    ranges: tuple[tuple[float, tuple[tuple[int, int, float], ...]], ...] = field(
+        default=(), compare=False, repr=False)
+    median_year: int = field(default=0, compare=False)
+    citation: str = field(default="", compare=False, repr=False)
+
+    def __str__(self) -> str:
+        lab = f"{self.lab}: " if self.lab else ""
+        return f"{lab}{self.age:g} ± {self.error:g} 14C BP"
+
+
+@dataclass(frozen=True, slots=True)
 class Endpoint:
     """When a start or an end fell: somewhere in the window `earliest..latest` of fixed day
     numbers (None: no bound on that side), both days included; `likely` the most likely day
@@ -76,6 +102,7 @@ class Endpoint:
     precision: Precision | None = Precision.DAY
     qualifiers: frozenset[Qualifier] = frozenset()
     likely: int | None = None
+    radiocarbon: Radiocarbon | None = None   # a calibrated 14C age: the window its 95.4% ranges
 
     def __post_init__(self) -> None:
         if self.earliest is not None and self.latest is not None and self.earliest > self.latest:

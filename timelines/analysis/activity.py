@@ -43,6 +43,7 @@ import pandas as pd
 from ..calendar import HISTORICAL, gregorian_year_from_fixed, year_range, year_text
 from ..errors import UsageError
 from ..model import EVENT, SPAN, Record, holds
+from .calibrated import calibrated_expected, calibrated_points, simulate_calibrated
 
 PERIODS = {"year": 1, "decade": 10, "century": 100, "millennium": 1000}
 # The envelope's percentiles of the simulated count per block: the central 95% and the median,
@@ -421,7 +422,7 @@ def activity(records: Iterable[Record], per: str | int = "decade", start: int | 
     windows = {key: _windows(key[0], members) for key, members in parts.items()}
     blocks = _blocks_for(windows.values(), width, start, end, calendar)
     frames = [_part_table(key, windows[key], blocks, runs, seed, era,
-                          np.array([keyed[id(r)] for r in members], dtype=np.int64))
+                          np.array([keyed[id(r)] for r in members], dtype=np.int64), members)
               for key, members in parts.items()]
     table = _joined(frames, group is not None, runs > 0)
     table.attrs.update(_attrs(records, dated, windows, width, runs))
@@ -481,16 +482,28 @@ def _finite_days(arrays: tuple[np.ndarray, ...]):
 
 
 def _part_table(key: tuple, windows: tuple, blocks: Blocks | None, runs: int,
-                seed: int, era: str, keys: np.ndarray) -> pd.DataFrame:
+                seed: int, era: str, keys: np.ndarray, members: list[Record] = ()
+                ) -> pd.DataFrame:
     kind, group = key
     if blocks is None:
         return pd.DataFrame()
     edges = blocks.edges
     counts = event_counts(*windows, edges) if kind == EVENT else span_counts(*windows, edges)
+    # Calibrated radiocarbon dates weigh by their probability, not their window (calibrated.py).
+    dated_by_c14 = calibrated_points(members) if len(members) else np.zeros(0, dtype=bool)
+    plain = tuple(array[~dated_by_c14] for array in windows) if dated_by_c14.any() else windows
+    if dated_by_c14.any():
+        c14 = [record for record, flag in zip(members, dated_by_c14) if flag]
+        flat = event_counts(*plain, edges) if kind == EVENT else span_counts(*plain, edges)
+        counts["expected"] = flat["expected"] + calibrated_expected(c14, edges)
     columns = {"kind": KIND_NAMES[kind], "group": group, "block_start": edges[:-1],
                "block_end": edges[1:], "label": blocks.labels(era), **counts}
     if runs > 0:
-        columns.update(envelope(simulated(kind, windows, edges, runs, seed, keys)))
+        simulation = simulated(kind, plain, edges, runs, seed, keys[~dated_by_c14]
+                               if dated_by_c14.any() else keys)
+        if dated_by_c14.any():
+            simulation += simulate_calibrated(c14, keys[dated_by_c14], edges, runs, seed)
+        columns.update(envelope(simulation))
     table = pd.DataFrame(columns)
     return table.astype({"block_start": "int64", "block_end": "int64"})
 

@@ -16,7 +16,7 @@ from ..errors import TimelineError, UsageError
 from ..layout.distances import DAYS_PER_UNIT, parse_distance
 from ..model import Record
 from ..sources import ColumnMap, LoadResult, detect_columns, load_records, read_table
-from ..sources.conventions import signed_year_notes
+from ..sources.conventions import bp_age_notes, signed_year_notes
 from ..sources.fields import column_reader
 from ..sources.frames import table_from_data
 from ..sources.tables import TITLE_ROW, Table
@@ -175,8 +175,9 @@ def read_bands(source: object, settings: DateSettings = DEFAULT_SETTINGS,
 
 def _with_signed_year_notes(table: Table, columns: ColumnMap,
                             settings: DateSettings) -> Table:
-    """The table with a note per date column that writes years as signed numbers (-300)."""
-    notes = signed_year_notes(table, columns, settings)
+    """The table with a note when its date columns write years as signed numbers (-300),
+    and one when they write ages as `3450 ± 40 BP` read as calendar years."""
+    notes = signed_year_notes(table, columns, settings) + bp_age_notes(table, columns, settings)
     return replace(table, notes=table.notes + notes) if notes else table
 
 

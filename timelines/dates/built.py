@@ -18,6 +18,7 @@ _LATEST = Endpoint.latest.__set__
 _PRECISION = Endpoint.precision.__set__
 _QUALIFIERS = Endpoint.qualifiers.__set__
 _LIKELY = Endpoint.likely.__set__
+_RADIOCARBON = Endpoint.radiocarbon.__set__
 _START = Span.start.__set__
 _END = Span.end.__set__
 _DAY = Precision.DAY
@@ -32,6 +33,7 @@ def checked_window(earliest: int | None, latest: int | None, precision: Precisio
     _PRECISION(endpoint, precision)
     _QUALIFIERS(endpoint, qualifiers)
     _LIKELY(endpoint, likely)
+    _RADIOCARBON(endpoint, None)
     return endpoint
 
 
@@ -43,6 +45,7 @@ def day_point(fixed: int) -> Span:
     _PRECISION(endpoint, _DAY)
     _QUALIFIERS(endpoint, _NO_QUALIFIERS)
     _LIKELY(endpoint, None)
+    _RADIOCARBON(endpoint, None)
     span = _NEW(Span)
     _START(span, endpoint)
     _END(span, endpoint)

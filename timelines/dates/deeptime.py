@@ -57,6 +57,9 @@ _SCALES = {"ka": 1000, "kya": 1000, "thousand": 1000, "ma": 10 ** 6, "mya": 10 *
 def read_age(match: re.Match[str], era: str | None, marker: str | None,
              settings: DateSettings) -> Endpoint:
     unit = " ".join(match["unit"].lower().replace(".", " ").split())
+    if unit == "bp" and match["error"] and settings.bp == "radiocarbon":
+        from .c14 import PLAIN_BP, read_radiocarbon     # the table's BP ages are 14C ages
+        return read_radiocarbon(PLAIN_BP.fullmatch(match[0]), era, marker, settings)
     present = 2000 if unit.endswith("b2k") else 1950
     scale = _SCALES.get(unit.split()[0], 1)   # BP, years ago: years
     # Exact integer arithmetic in units of 1 / (2 * 10^decimals) of a year.
@@ -77,6 +80,9 @@ def read_age(match: re.Match[str], era: str | None, marker: str | None,
         trace.note(f"age {match[0]!r}: {nearest:,}..{farthest:,} years before {present}, "
                    f"{'the error term' if match['error'] else 'to its last digit'}: "
                    f"{trace.bounds(endpoint)}")
+        if unit == "bp":
+            trace.note("BP is read as calendar years before 1950; a radiocarbon age is written "
+                       "14C BP or uncal BP and calibrated (or give --bp radiocarbon)")
     return endpoint
 
 

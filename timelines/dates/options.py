@@ -15,7 +15,7 @@ from typing import Callable, Mapping
 from ..calendar import CALENDARS
 from .settings import (
     BOUND_READINGS, CENTURY_READINGS, DEFAULT_SETTINGS, HEMISPHERES, HUNDREDS_READINGS,
-    MAX_CIRCA, NAMED_REFORMS, PART_READINGS, SIGNED_YEAR_READINGS, SINGLE_VALUE_READINGS,
+    BP_READINGS, CURVE_NAMES, MAX_CIRCA, NAMED_REFORMS, PART_READINGS, SIGNED_YEAR_READINGS, SINGLE_VALUE_READINGS,
     TODAY, YEAR_ZERO_READINGS, DateSettings,
 )
 
@@ -143,6 +143,12 @@ OPTIONS: dict[str, _Option] = {
                             "with no year zero (bc: 300 BC) or astronomically (astronomical: "
                             "301 BC); -0300 is ISO 8601, always astronomical (default: bc)",
                             _choice(SIGNED_YEAR_READINGS)),
+    "bp": _Option("bp", "3450 ± 40 BP is calendar years before 1950 (calendar) or a "
+                  "radiocarbon age to calibrate (radiocarbon); 14C BP, uncal BP and a lab code "
+                  "say radiocarbon either way (default: calendar)", _choice(BP_READINGS)),
+    "curve": _Option("curve", "calibration curve of radiocarbon ages that name none: "
+                     "intcal20 (Reimer et al. 2020) or shcal20 (Hogg et al. 2020) "
+                     "(default: intcal20)", _choice(CURVE_NAMES)),
     "year-zero": _Option("year_zero", "a bare year 0 with signed-years bc: refuse (no such "
                          "year) or 1bc (read as 1 BC) (default: refuse)",
                          _choice(YEAR_ZERO_READINGS)),

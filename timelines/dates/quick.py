@@ -116,7 +116,7 @@ _DAYS_BEFORE = (0, 0, 31, 59, 90, 120, 151, 181, 212, 243, 273, 304, 334)
 
 def quick_span(text: str, settings: DateSettings) -> Span | None:
     """The span of a cell in one of the quick shapes; None for anything else."""
-    if trace.on or settings.year_start != "01-01" or len(text) > 24:
+    if trace.on or settings.year_start != "01-01" or len(text) > 24 or settings.bp != "calendar":
         return None
     found = (_DIGIT_SHAPE if text[:1] in _DIGITS else _LETTER_SHAPE)(text)
     if found is None:

@@ -18,6 +18,8 @@ HEMISPHERES = ("northern", "southern")
 SINGLE_VALUE_READINGS = ("unit", "moment")
 HUNDREDS_READINGS = ("century", "decade")
 SIGNED_YEAR_READINGS = ("bc", "astronomical")
+BP_READINGS = ("calendar", "radiocarbon")
+CURVE_NAMES = ("intcal20", "shcal20")
 YEAR_ZERO_READINGS = ("refuse", "1bc")
 TODAY = "today"
 # The first Gregorian day of published reforms, by name: the date that followed the last Julian
@@ -92,6 +94,12 @@ class DateSettings:
     signed_years: str = "bc"
     # A bare 0 as a year under "bc": "refuse" (the year does not exist) or "1bc".
     year_zero: str = "refuse"
+    # `3450 ± 40 BP`: "calendar" years before 1950 as written, or "radiocarbon" ages to be
+    # calibrated. `14C BP`, `uncal BP` and a laboratory code say radiocarbon either way (c14.py).
+    bp: str = "calendar"
+    # The calibration curve of radiocarbon ages that name none: IntCal20 (northern
+    # hemisphere) or SHCal20 (southern); radiocarbon.py gives the citations.
+    curve: str = "intcal20"
 
     def __post_init__(self) -> None:
         _check_choice("calendar", self.calendar, CALENDARS)
@@ -103,6 +111,8 @@ class DateSettings:
         _check_choice("hundreds", self.hundreds, HUNDREDS_READINGS)
         _check_choice("signed_years", self.signed_years, SIGNED_YEAR_READINGS)
         _check_choice("year_zero", self.year_zero, YEAR_ZERO_READINGS)
+        _check_choice("bp", self.bp, BP_READINGS)
+        _check_choice("curve", self.curve, CURVE_NAMES)
         if self.present != TODAY:
             present_setting_day(self.present)
         if self.day_first not in (None, True, False):

@@ -37,7 +37,8 @@ def paint_fades(fades: list[GradientRect], renderer, affine, page: _Page):
     gc.set_clip_rectangle(page.axes.bbox)
     if renderer.option_scale_image():
         for fade, (left, bottom, right, top) in zip(fades, boxes):
-            image = _sample_row(to_rgb(fade.fill), fade.opacity_left, fade.opacity_right)
+            image = _sample_row(to_rgb(fade.fill), fade.opacity_left, fade.opacity_right,
+                                fade.stops)
             renderer.draw_image(gc, left, bottom, image, Affine2D().scale(right - left,
                                                                           top - bottom))
             yield
@@ -62,8 +63,11 @@ def _device_fades(fades: list[GradientRect], boxes, canvas_width: float, canvas_
     centres = (numpy.clip(columns.values + 0.5, low, high) - low) / (high - low)
     opacity_left = numpy.array([fade.opacity_left for fade in fades])[columns.owner]
     opacity_right = numpy.array([fade.opacity_right for fade in fades])[columns.owner]
-    across = (_opacity_ramp(opacity_left, opacity_right, centres)
-              * _coverage(columns.values, low, high))
+    ramp = _opacity_ramp(opacity_left, opacity_right, centres)
+    for index in (i for i, fade in enumerate(fades) if fade.stops):      # through many stops
+        mine = columns.owner == index
+        ramp[mine] = _through_stops(fades[index].stops, centres[mine])
+    across = ramp * _coverage(columns.values, low, high)
     down = _coverage(rows.values, bottom[rows.owner], top[rows.owner])
     images = _fade_images(fades, columns, rows, across, down)
     return [None if image is None else (int(columns.first[i]), int(rows.first[i]), image)
@@ -103,11 +107,13 @@ class _Ranges:
 
 
 @functools.lru_cache(maxsize=4096)
-def _sample_row(rgb: tuple[float, float, float], left: float, right: float):
+def _sample_row(rgb: tuple[float, float, float], left: float, right: float,
+                stops: tuple[float, ...] = ()):
     """One row of samples for a vector backend. The same array object for the same fade, so
     the PDF writer (which keys images by identity) stores each distinct fade once."""
     centres = (numpy.arange(GRADIENT_SAMPLES) + 0.5) / GRADIENT_SAMPLES
-    alpha = _opacity_ramp(left, right, centres)[None]
+    alpha = (_through_stops(stops, centres) if stops
+             else _opacity_ramp(left, right, centres))[None]
     image = numpy.empty((*alpha.shape, 4), dtype=numpy.uint8)
     image[..., :3] = numpy.round(numpy.asarray(rgb) * 255)
     image[..., 3] = numpy.round(alpha * 255)
@@ -118,6 +124,12 @@ def _sample_row(rgb: tuple[float, float, float], left: float, right: float):
 def _opacity_ramp(left, right, position):
     """Opacity at `position` (0 at the left edge .. 1 at the right edge)."""
     return numpy.clip(left + (right - left) * position, 0.0, 1.0)
+
+
+def _through_stops(stops: tuple[float, ...], position):
+    """Opacity at `position` (0 .. 1) through `stops` spaced evenly from 0 to 1."""
+    return numpy.clip(numpy.interp(position, numpy.linspace(0.0, 1.0, len(stops)), stops),
+                      0.0, 1.0)
 
 
 def _coverage(pixels, low, high):

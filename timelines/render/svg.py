@@ -239,14 +239,32 @@ def _draw_gradient_rect(rect: GradientRect, context: _Context):
 
 
 def _gradient_id(rect: GradientRect, context: _Context) -> str:
-    """One <linearGradient> per (colour, left, right opacity): identical fades share a def."""
+    """One <linearGradient> per (colour, left, right opacity): identical fades share a def.
+    A fade through many stops is named by a digest of them."""
     colour = _colour(rect.fill)
+    if rect.stops:
+        return _stops_gradient_id(colour, rect.stops, context)
     key = (colour.lower(), _per_mille(rect.opacity_left), _per_mille(rect.opacity_right))
     if key not in context.gradients:
         gradient_id = _gradient_name(*key)
         gradient = context.drawing.linearGradient(start=(0, 0), end=(1, 0), id=gradient_id)
         gradient.add_stop_color(0, colour, _number(key[1] / 1000, 3))
         gradient.add_stop_color(1, colour, _number(key[2] / 1000, 3))
+        context.drawing.defs.add(gradient)
+        context.gradients[key] = gradient_id
+    return context.gradients[key]
+
+
+def _stops_gradient_id(colour: str, stops: tuple[float, ...], context: _Context) -> str:
+    per_mille = tuple(_per_mille(value) for value in stops)
+    key = (colour.lower(), per_mille)
+    if key not in context.gradients:
+        digest = hashlib.sha256(repr(key).encode()).hexdigest()[:12]
+        gradient_id = f"{GRADIENT_ID_PREFIX}s{digest}"
+        gradient = context.drawing.linearGradient(start=(0, 0), end=(1, 0), id=gradient_id)
+        last = len(per_mille) - 1
+        for index, value in enumerate(per_mille):
+            gradient.add_stop_color(_number(index / last, 4), colour, _number(value / 1000, 3))
         context.drawing.defs.add(gradient)
         context.gradients[key] = gradient_id
     return context.gradients[key]

@@ -14,7 +14,7 @@ from operator import attrgetter
 
 import numpy as np
 
-from ..calendar import iso_from_fixed
+from ..calendar import fixed_from_gregorian, iso_from_fixed, year_text
 from ..layout import PlacedRecord
 from ..model import Qualifier, Record, Span, event_endpoint
 from . import encodings as marks
@@ -173,12 +173,44 @@ def _bar_marks(span, geometry: DrawnSpan, scale, box, style, theme, used) -> lis
         elif endpoint.is_unknown or unbounded(endpoint, window.side):
             parts += marks.unknown_stretch(window, scale, box, style, theme.fringe)
             used.add(_stretch_kind(endpoint, window.side))
+        elif endpoint.radiocarbon is not None:
+            parts += calibrated_marks(window, endpoint.radiocarbon, scale, box, style, used)
         else:
             drawn = fringe(window, scale, box, style)
             parts += drawn
             if drawn:
                 used.add(f"fringe:{theme.fringe}")
     return parts
+
+
+def calibrated_marks(window: EndWindow, measured, scale, box, style, used) -> list[Primitive]:
+    """A calibrated radiocarbon date in its window: shaded by its probability, its 68.3%
+    ranges underlined; the legend names the curve."""
+    days, relative = calibrated_profile(measured)
+    parts = marks.density_fade(window, scale, box, style, days, relative)
+    inner = [(max(low, window.low), min(high, window.high))
+             for low, high in _range_days(measured, 0.683) if high >= window.low
+             and low <= window.high]
+    parts += marks.calibrated_ranges(inner, scale, box, style)
+    used.update({"calibrated", f"curve:{measured.citation}"})
+    return parts
+
+
+def calibrated_profile(measured) -> tuple[np.ndarray, np.ndarray]:
+    """The calibrated probability at the middle day of each year, as a share of its peak."""
+    density = np.asarray(measured.density)
+    years = range(measured.first_year, measured.first_year + len(density))
+    days = np.array([fixed_from_gregorian(year, 7, 2) for year in years], dtype=float)
+    return days, density / density.max()
+
+
+def _range_days(measured, level: float) -> list[tuple[int, int]]:
+    """The ranges at `level` as (first day, last day) of their years."""
+    for found_level, ranges in measured.ranges:
+        if abs(found_level - level) < 1e-9:
+            return [(fixed_from_gregorian(first, 1, 1), fixed_from_gregorian(last, 12, 31))
+                    for first, last, _ in ranges]
+    return []
 
 
 def _stretch_kind(endpoint, side: str) -> str:
@@ -191,14 +223,17 @@ def _stretch_kind(endpoint, side: str) -> str:
 def _point_marks(span, geometry: DrawnSpan, scale, box, style, used) -> list[Primitive]:
     parts: list[Primitive] = []
     endpoint = span.start
-    if geometry.start_high > geometry.start_low:
+    if endpoint.radiocarbon is not None:
+        parts += calibrated_marks(EndWindow(geometry.start_low, geometry.start_high, "end"),
+                                  endpoint.radiocarbon, scale, box, style, used)
+    elif geometry.start_high > geometry.start_low:
         parts += marks.moment_window(EndWindow(geometry.start_low, geometry.start_high, "end"),
                                      scale, box, style)
         used.add("point window")
     centre = _point_centre(endpoint, geometry)
     if scale.start <= centre <= scale.end:      # a window may leave only the line showing
         parts += marks.point_marker(centre, scale, box, style)
-        used.add("point")
+        used.add("point" if endpoint.radiocarbon is None else "calibrated median")
     return parts
 
 
@@ -217,7 +252,10 @@ def _event_marks(span, geometry: DrawnSpan, scale, box, style, used) -> list[Pri
             used.add("unknown")
     known = EndWindow(middle if endpoint.earliest is None else low,
                       middle if endpoint.latest is None else high, "event", centre)
-    drawn = marks.MOMENT_WINDOWS["event"](known, scale, box, style)
+    if endpoint.radiocarbon is not None:
+        drawn = calibrated_marks(known, endpoint.radiocarbon, scale, box, style, used)
+    else:
+        drawn = marks.MOMENT_WINDOWS["event"](known, scale, box, style)
     if drawn:
         parts += drawn
         used.add("event window")
@@ -255,8 +293,8 @@ def _qualifier_marks(span, geometry: DrawnSpan, scale, box, style, used) -> list
         # A mark whose date a --from/--to window cuts off is left out: the cut is marked.
         low = low if _on_axis(endpoint.earliest, scale) else None
         high = high if _on_axis(endpoint.latest, scale) else None
-        if endpoint.likely is not None and not span.is_point and _on_axis(endpoint.likely,
-                                                                           scale):
+        if (endpoint.likely is not None and endpoint.radiocarbon is None
+                and not span.is_point and _on_axis(endpoint.likely, scale)):
             parts += marks.likely_tick(endpoint.likely, scale, box, style)
             used.add("likely")
         parts += _bound_marks(endpoint, low, high, scale, box, style, used)
@@ -331,8 +369,28 @@ def tooltip(record: Record) -> str:
         lines.append("certain: " + (f"{_bound(core[0])} to {_bound(core[1])}" if core else "none"))
         if any(Qualifier.DURATION_BOUND in e.qualifiers for e in (span.start, span.end)):
             lines.append("limited by the longest duration set for it")
+    if span is not None:
+        ends = (span.start,) if span.is_point else (span.start, span.end)
+        names = ("",) if span.is_point else ("start: ", "end: ")
+        lines += [name + calibrated_text(end.radiocarbon) for name, end in zip(names, ends)
+                  if end.radiocarbon is not None]
     lines.append(f"source: {record.provenance}")
     return "\n".join(lines)
+
+
+def calibrated_text(measured) -> str:
+    """A calibrated date in words: the measurement, the curve, the ranges at each level with
+    their probabilities, the median."""
+    parts = [f"{measured}, calibrated ({measured.citation.split(',')[0]})"]
+    for level, ranges in reversed(measured.ranges):
+        found = ", ".join(f"{_year(first)}–{_year(last)} ({p:.1%})" for first, last, p in ranges)
+        parts.append(f"{level:.1%}: {found}")
+    parts.append(f"median {_year(measured.median_year)}")
+    return "; ".join(parts)
+
+
+def _year(year: int) -> str:
+    return year_text(year, "bc", mark_common_era=True)
 
 
 def _written(record: Record) -> str:

@@ -13,6 +13,8 @@ import difflib
 from dataclasses import dataclass, replace
 from typing import Callable
 
+import numpy as np
+
 from ..errors import UsageError
 from .primitives import GradientRect, Line, Polygon, Primitive, Rect, Text
 from .scale import TimeScale
@@ -128,6 +130,50 @@ def event_window(window: EndWindow, scale: TimeScale, lane: LaneBox,
 
 # A moment's whole window, by the kind of record: a dated moment, an event.
 MOMENT_WINDOWS: dict[str, Encoder] = {"span": moment_window, "event": event_window}
+
+
+DENSITY_STEP = 2.0    # px between the samples of a calibrated date's probability
+DENSITY_FLOOR = 0.01  # of the peak: a stretch below this is left undrawn
+MAX_STOPS = 400       # samples of one calibrated date at most
+
+
+def density_fade(window: EndWindow, scale: TimeScale, lane: LaneBox, style: MarkStyle,
+                 days, relative) -> list[Primitive]:
+    """A calibrated radiocarbon date across its window: the opacity follows its probability
+    (`relative`: the density at fixed `days`, 1 at its peak), so separate ranges show as
+    separate patches and the likeliest years darkest. Sampled every DENSITY_STEP px (at most
+    MAX_STOPS samples), one fade through many stops per stretch where the probability is not
+    all but nil."""
+    x_low, x_high = scale.x(window.low), scale.x(window.high)
+    if x_high - x_low <= 0:
+        return []
+    steps = min(max(2, int((x_high - x_low) / DENSITY_STEP)), MAX_STOPS)
+    at = np.linspace(window.low, window.high, steps + 1)
+    opacity = np.interp(at, days, relative, left=0.0, right=0.0)
+    shown = np.flatnonzero(opacity >= DENSITY_FLOOR)
+    if not len(shown):
+        return []
+    # Stretches of samples above the floor, each with one sample of margin either side.
+    breaks = np.flatnonzero(np.diff(shown) > 1)
+    parts: list[Primitive] = []
+    for first, last in zip(np.r_[shown[0], shown[breaks + 1]], np.r_[shown[breaks], shown[-1]]):
+        first, last = max(first - 1, 0), min(last + 1, steps)
+        if last == first:
+            continue
+        x0, x1 = scale.x(float(at[first])), scale.x(float(at[last]))
+        stops = tuple(round(float(value), 3) for value in opacity[first:last + 1])
+        parts.append(GradientRect(x0, lane.y, x1 - x0, lane.height, style.color, stops[0],
+                                  stops[-1], css_class="fringe calibrated", stops=stops))
+    return parts
+
+
+def calibrated_ranges(ranges, scale: TimeScale, lane: LaneBox,
+                      style: MarkStyle) -> list[Primitive]:
+    """The 68.3% ranges of a calibrated date: a thin line under the bar along each
+    (`ranges`: (first day, last day) pairs)."""
+    y = lane.y + lane.height + 1.5
+    return [Line(scale.x(low), y, max(scale.x(high), scale.x(low) + 1.0), y, style.color, 1.2,
+                 css_class="calibrated-range") for low, high in ranges]
 
 
 HATCH_SPACING = 4.0   # px between hatch lines, measured along the bar

@@ -37,6 +37,9 @@ ENTRIES = (
     ("point window", "a moment somewhere on the line"),
     ("event window", "an event: one moment somewhere in the shaded window, not a duration"),
     ("band fringe", "shaded period; its edge fades where its start or end is uncertain"),
+    ("calibrated", "radiocarbon date, calibrated: the darker, the likelier; the line beneath "
+                   "marks the 68.3% ranges, the shading spans the 95.4% ranges"),
+    ("calibrated median", "the median of a calibrated date"),
 )
 OUTSIDE_LISTED = 10     # records outside the window named in the note; the rest counted
 
@@ -49,7 +52,9 @@ def legend_and_notes(used: set[str], color_key, text, theme: Theme, top: float,
     if entries or color_key:
         legend, y = _legend(entries, color_key, text, theme, y, width)
         items.append(legend)
-    notes, y = _notes(text, theme, y, width)
+    curves = sorted(key.split(":", 1)[1] for key in used if key.startswith("curve:"))
+    notes, y = _notes(text, theme, y, width, [f"Radiocarbon ages calibrated with {citation}."
+                                              for citation in curves])
     items += notes
     return items, y
 
@@ -123,11 +128,17 @@ def _sample(key: str, theme: Theme, color: str):
         if key == "likely":
             return (fringe(EndWindow(0, 10, "start"), scale, box, style)
                     + marks.likely_tick(6, scale, box, style))
-        if key == "point":
+        if key in ("point", "calibrated median"):
             return marks.point_marker(5, scale, box, style)
         if key == "event window":
             return (marks.event_window(EndWindow(0, 10, "event", 5), scale, box, style)
                     + marks.point_marker(5, scale, box, style))
+        if key == "calibrated":
+            days = [0, 1.5, 3, 4, 5, 6.5, 8, 10]          # two ranges, the first the likelier
+            relative = [0.05, 1.0, 0.55, 0.02, 0.0, 0.45, 0.3, 0.05]
+            return (marks.density_fade(EndWindow(0, 10, "end"), scale, box, style, days,
+                                       relative)
+                    + marks.calibrated_ranges([(0.8, 2.4), (6, 7)], scale, box, style))
         if key == "point window":
             return (marks.moment_window(EndWindow(1, 9, "end"), scale, box, style)
                     + marks.point_marker(5, scale, box, style))
@@ -151,9 +162,10 @@ def _color_sample(color: str, theme: Theme):
     return draw
 
 
-def _notes(text, theme: Theme, top: float, width: float) -> tuple[list[Primitive], float]:
+def _notes(text, theme: Theme, top: float, width: float,
+           sources: list[str] = ()) -> tuple[list[Primitive], float]:
     room = width - 2 * theme.margin
-    paragraphs = [*_report_notes(text), *text.notes]
+    paragraphs = [*_report_notes(text), *sources, *text.notes]
     lines = [(line, "note") for paragraph in paragraphs
              for line in wrap(paragraph, theme.small_font_size, room)]
     if text.credit:

@@ -46,7 +46,10 @@ class Rect:
 
 @dataclass(frozen=True, slots=True)
 class GradientRect:
-    """A rectangle filled with one colour whose opacity runs linearly from left to right."""
+    """A rectangle filled with one colour whose opacity runs linearly from left to right; with
+    `stops` (at least two), through those opacities at evenly spaced points from the left
+    edge to the right instead (a calibrated date's probability; opacity_left and _right are
+    then the first and the last)."""
 
     x: float
     y: float
@@ -56,6 +59,7 @@ class GradientRect:
     opacity_left: float
     opacity_right: float
     css_class: str = ""
+    stops: tuple[float, ...] = ()
 
 
 @dataclass(frozen=True, slots=True)

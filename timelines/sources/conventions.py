@@ -5,6 +5,11 @@
 hundreds setting decides; one note per date column names the rows that depend on it, so that
 a reader can check them.
 
+`3450 ± 40 BP`, an age with an error term in years BP, is read as calendar years before 1950
+unless the bp setting says radiocarbon; written so, it is often an uncalibrated radiocarbon
+age, which lies centuries from its calendar reading. One note for the table names the columns
+and rows (dates/c14.py reads `14C BP`, `uncal BP` and laboratory codes as radiocarbon).
+
 `-300`, a year written as a signed number, is 300 BC to most historians and archaeologists
 and 301 BC to ISO 8601 (dates/signed.py). The signed-years setting decides; one note per date
 column names the rows that depend on it.
@@ -73,6 +78,38 @@ def signed_year_notes(table: Table, columns: ColumnMap,
             if rows:
                 found[name] = rows
     return (_signed_note(table.source, found, settings),) if found else ()
+
+
+# `3450 ± 40 BP` as written: a whole age within the curves' reach, an error term, plain BP.
+PLAIN_BP_AGE = re.compile(r"(?<![0-9.,])[0-9]{2,5}\s*(?:\u00b1|\+/-|\+-)\s*[0-9]{1,4}\s*BP\b"
+                          r"(?!\s*\(?\s*uncal)", re.IGNORECASE)
+
+
+def bp_age_notes(table: Table, columns: ColumnMap, settings: DateSettings) -> tuple[Problem, ...]:
+    """One note when date cells write `N ± E BP` read as calendar years (the bp setting
+    "calendar"), naming the columns and rows: they may be uncalibrated radiocarbon ages."""
+    if settings.bp != "calendar":
+        return ()
+    found: dict[str, list[int]] = {}
+    for name in dict.fromkeys((columns.start, columns.end, columns.when)):
+        if name is not None and name in table.header:
+            cells = table.columns[table.header.index(name)]
+            rows = [index + table.first_row for index, value in enumerate(cells)
+                    if type(value) is str and "BP" in value.upper()
+                    and PLAIN_BP_AGE.search(value) and "CAL" not in value.upper()]
+            if rows:
+                found[name] = rows
+    if not found:
+        return ()
+    count = sum(map(len, found.values()))
+    cells = "a cell writes" if count == 1 else f"{count} cells write"
+    where = "; ".join(f"{name!r} {row_ranges(rows)}" for name, rows in found.items())
+    reason = (f"{cells} an age such as 3450 ± 40 BP, read as calendar years before 1950 "
+              f"({where}); if these are radiocarbon ages they lie centuries from that")
+    hint = ("--bp radiocarbon calibrates them (IntCal20; --curve shcal20 for the southern "
+            "hemisphere); writing 14C BP or cal BP says which")
+    first = min(min(rows) for rows in found.values())
+    return (Problem(table.source, first, None, None, "", reason, "note", hint),)
 
 
 def _writes_signed_year(value: object) -> bool:

@@ -188,3 +188,20 @@ def test_activity_sums_each_calibrated_dates_probability(site):
     counts = simulate_calibrated([hearth], np.array([2]), edges, runs, 3)
     spread = np.sqrt(table["expected"] * (1 - table["expected"]) / runs) + 1e-9
     assert np.all(np.abs(counts.mean(axis=0) - table["expected"]) <= 4 * spread)
+
+
+def test_parse_prints_the_ranges_and_json_holds_them(capsys):
+    import json
+
+    from timelines.cli.commands import main
+    assert main(["parse", "3450 ± 40 14C BP"]) == 0
+    line = capsys.readouterr().out.strip()
+    assert "calibrated (intcal20), 95.4%: 1882 BC–" in line and "median" in line
+    assert main(["parse", "--json", "OxA-7: 3450 ± 40"]) == 0
+    found = json.loads(capsys.readouterr().out)["radiocarbon"]
+    assert (found["age"], found["error"], found["lab"]) == (3450, 40, "OxA-7")
+    ranges = found["ranges"]["95.4%"]
+    assert ranges[0]["from"] == "1882 BC" and ranges[0]["from_year"] == -1881
+    assert sum(r["probability"] for r in ranges) >= 0.954 - 1e-6
+    assert main(["parse", "--json", "1650"]) == 0
+    assert "radiocarbon" not in json.loads(capsys.readouterr().out)

@@ -472,7 +472,17 @@ def _plain(result: dict) -> str:
     qualifiers = f"; {', '.join(result['qualifiers'])}" if result["qualifiers"] else ""
     earliest = result["earliest"] or "open"
     latest = result["latest"] or "open"
-    return f"{result['input']}: {earliest} .. {latest} ({result['precision']}{qualifiers})"
+    line = f"{result['input']}: {earliest} .. {latest} ({result['precision']}{qualifiers})"
+    return line + "".join(_calibrated_text(part["radiocarbon"])
+                          for part in (result, result.get("start"), result.get("end"))
+                          if part and "radiocarbon" in part)
+
+
+def _calibrated_text(found: dict) -> str:
+    """A calibrated age's 95.4% ranges and curve, after the window: the reading in brief."""
+    ranges = ", ".join(f"{r['from']}–{r['to']} ({r['probability']:.1%})"
+                       for r in found["ranges"]["95.4%"])
+    return f"; calibrated ({found['curve']}), 95.4%: {ranges}, median {found['median']}"
 
 
 COMMANDS = {"render": run_render, "parse": run_parse, "check": run_check, "lanes": run_lanes,

@@ -1,7 +1,7 @@
 """`describe`: the JSON object `timelines parse --json` prints for one input (DESIGN §5)."""
 from __future__ import annotations
 
-from ..calendar import iso_from_fixed
+from ..calendar import iso_from_fixed, year_text
 from ..errors import DateError
 from ..model import Endpoint, Span
 from .cells import NO_DATE_WORDS
@@ -35,12 +35,31 @@ def describe(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> dict:
 
 
 def _window(endpoint: Endpoint) -> dict:
-    return {
+    window = {
         "earliest": _iso(endpoint.earliest),
         "latest": _iso(endpoint.latest),
         "likely": _iso(endpoint.likely),
         "precision": None if endpoint.precision is None else endpoint.precision.value,
         "qualifiers": sorted(q.value for q in endpoint.qualifiers),
+    }
+    if endpoint.radiocarbon is not None:
+        window["radiocarbon"] = _calibrated(endpoint.radiocarbon)
+    return window
+
+
+def _calibrated(measured) -> dict:
+    """A calibrated radiocarbon age: the measurement, the curve, the ranges per level (years
+    BC/AD and astronomical, with their probability) and the median year."""
+    return {
+        "age": measured.age, "error": measured.error, "curve": measured.curve,
+        "lab": measured.lab, "citation": measured.citation,
+        "ranges": {f"{level:.1%}": [{"from": year_text(first, "bc", mark_common_era=True),
+                                     "to": year_text(last, "bc", mark_common_era=True),
+                                     "from_year": first, "to_year": last,
+                                     "probability": probability}
+                                    for first, last, probability in ranges]
+                   for level, ranges in measured.ranges},
+        "median": year_text(measured.median_year, "bc", mark_common_era=True),
     }
 
 

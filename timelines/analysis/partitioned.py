@@ -20,6 +20,9 @@ Two passes over the partitions, each a pure module-level function with explicit 
    the same for any partitioning, and the same as `activity.activity` on the rows read on one
    machine (whose keys are the rows as `iloc` counts them).
 
+A calibrated radiocarbon date is weighed here by its window (uniform), not by its
+probability as `activity.activity` weighs it (calibrated.py): the windows hold no densities.
+
 A date column's reading can depend on the whole column (a column of bare numbers read as
 years or as spreadsheet days, say): give `settings` and `date_numbers` so every partition
 reads alike.

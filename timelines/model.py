@@ -22,7 +22,7 @@ from functools import lru_cache
 from itertools import repeat
 from typing import TypeVar
 
-from .calendar import iso_from_fixed
+from .calendar import fixed_from_gregorian, iso_from_fixed
 
 
 class Precision(StrEnum):
@@ -87,6 +87,11 @@ class Radiocarbon:
     def __str__(self) -> str:
         lab = f"{self.lab}: " if self.lab else ""
         return f"{lab}{self.age:g} ± {self.error:g} 14C BP"
+
+    def yearly(self) -> tuple[list[int], tuple[float, ...]]:
+        """(the middle day of each year of `density`, proleptic Gregorian; its probability)."""
+        years = range(self.first_year, self.first_year + len(self.density))
+        return [fixed_from_gregorian(year, 7, 2) for year in years], self.density
 
 
 @dataclass(frozen=True, slots=True)

@@ -18,7 +18,6 @@ from collections.abc import Sequence
 
 import numpy as np
 
-from ..calendar import fixed_from_gregorian
 from ..model import Record
 
 
@@ -31,10 +30,8 @@ def calibrated_points(records: Sequence[Record]) -> np.ndarray:
 
 def _profile(record: Record) -> tuple[np.ndarray, np.ndarray]:
     """(middle day of each year, its probability) of a calibrated date."""
-    measured = record.span.start.radiocarbon
-    years = range(measured.first_year, measured.first_year + len(measured.density))
-    days = np.array([fixed_from_gregorian(year, 7, 2) for year in years], dtype=np.float64)
-    return days, np.asarray(measured.density, dtype=np.float64)
+    days, density = record.span.start.radiocarbon.yearly()
+    return np.asarray(days, dtype=np.float64), np.asarray(density, dtype=np.float64)
 
 
 def calibrated_expected(records: Sequence[Record], edges: np.ndarray) -> np.ndarray:

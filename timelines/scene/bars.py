@@ -198,10 +198,9 @@ def calibrated_marks(window: EndWindow, measured, scale, box, style, used) -> li
 
 def calibrated_profile(measured) -> tuple[np.ndarray, np.ndarray]:
     """The calibrated probability at the middle day of each year, as a share of its peak."""
-    density = np.asarray(measured.density)
-    years = range(measured.first_year, measured.first_year + len(density))
-    days = np.array([fixed_from_gregorian(year, 7, 2) for year in years], dtype=float)
-    return days, density / density.max()
+    days, density = measured.yearly()
+    density = np.asarray(density)
+    return np.asarray(days, dtype=float), density / density.max()
 
 
 def _range_days(measured, level: float) -> list[tuple[int, int]]:

@@ -13,6 +13,10 @@ Words before the core (any case, any number, each at most once):
   (late), `first half of`, `second quarter of`, `last quarter of` ... (parts.py);
 - a calendar: `Julian`, `Gregorian`, `O.S.`, `N.S.`, GEDCOM's `@#DJULIAN@`, `@#DGREGORIAN@`;
 - `fl.`, `floruit`: the writer's mark for a date of activity; the bounds are the date's own;
+- event words (events.py): `b.` birth, `d.` death, `m.` marriage say what the date is of; `bapt.`
+  and `bur.` reach back to the birth and death they stand for, by the baptism-days and
+  burial-days settings. Other spellings (`born`, `né`, `geb.`) are rewritten to these first
+  (translate.py);
 - `the`, which says nothing.
 An era before (`AD 1066`) or after (`44 BC`, `44bc`, `5th c. BCE`) the core. Marks after it:
 `?`, `(?)` uncertain; `~` approximate; `%` both (ISO 8601-2); a calendar, bare or in brackets
@@ -30,8 +34,10 @@ from ..calendar import GREGORIAN, JULIAN
 from ..model import Endpoint, Qualifier
 from . import trace
 from .core import read_core
+from .events import of_event
 from .grammar import FLAGS
 from .parts import Part, part_from_words, part_of
+from .periods import read_period
 from .reasons import Unreadable
 from .settings import DateSettings
 from .windows import after, approximate, before, qualified
@@ -53,6 +59,7 @@ _WORD_KINDS = r"""
   | (?P<calendar> julian | gregorian | o\.s\. | n\.s\. | old\s+style | new\s+style
                 | @\#DJULIAN@ | @\#DGREGORIAN@ )
   | (?P<floruit> fl\.? | floruit )
+  | (?P<event> b\. | bapt\. | d\. | bur\. | m\. )
   | (?P<the> the )
 """
 _AFTER_WORD = r"(?: \s+ | (?<=[.\-@]) | (?=[0-9]) )"   # c.1650, mid-17th, c1650
@@ -104,6 +111,7 @@ class Around:
     part: Part | None = None
     calendar: str | None = None
     floruit: bool = False
+    event: str | None = None          # "b.", "bapt.", "d.", "bur.", "m."
     era: str | None = None            # "AD" when written before the core (AD 1066)
 
 
@@ -111,6 +119,10 @@ def read_framed(text: str, settings: DateSettings) -> Endpoint | None:
     """A date with its words, era and marks; None when its core is no date form."""
     if not text:
         return None
+    if settings.periods is not None:
+        named = read_period(text, settings.periods, settings)   # Late Bronze Age, as named
+        if named is not None:
+            return named
     has_words = _may_have_words(text)
     suffix = None if text[-1].isdigit() else SUFFIX_BACKWARDS.match(text[::-1])
     if not has_words and (suffix is None or not suffix.end()):
@@ -135,6 +147,9 @@ def read_framed(text: str, settings: DateSettings) -> Endpoint | None:
         trace.note(f"the text names the {around.calendar} calendar: it overrides the calendar "
                    f"setting ({settings.calendar})")
     found = read_core(core, era, around.calendar, settings)
+    if found is None and settings.periods is not None:
+        named = read_period(core, settings.periods, settings)   # early Bronze Age
+        found = None if named is None else (named, around.calendar or settings.reckoning)
     if found is None:
         return None
     return _applied(*found, around, settings)
@@ -172,6 +187,10 @@ def _read_words(text: str, around: Around) -> int:
             _set_calendar(around, written)
         elif kind == "floruit":
             around.floruit = True
+        elif kind == "event":
+            if around.event is not None:
+                raise Unreadable("one event word at a time", fragment=written)
+            around.event = written.lower()
     return position
 
 
@@ -218,6 +237,8 @@ def _applied(base: Endpoint, calendar: str, around: Around, settings: DateSettin
             trace.note(f"{around.uncertain!r}: uncertain; the bounds stay as they are")
     if around.floruit and trace.on:
         trace.note("fl. (floruit): a date of activity; the bounds are the date's own")
+    if around.event is not None:
+        endpoint = of_event(endpoint, around.event, settings)
     if around.bound is not None:
         inclusive = True if around.bound.endswith("inclusive") else None
         bound = before if around.bound.startswith("before") else after

@@ -95,6 +95,12 @@ def _present(name: str, value: object) -> object:
     return text
 
 
+def _language(name: str, value: object) -> object:
+    text = value.strip().lower().replace(" ", "") if isinstance(value, str) else value
+    replace(DEFAULT_SETTINGS, language=text)   # raises ValueError naming the languages
+    return text
+
+
 _DAYS, _YEARS = _whole_number(MAX_CIRCA), _whole_number(MAX_CIRCA)
 OPTIONS: dict[str, _Option] = {
     "calendar": _Option("calendar", "calendar of free-text dates: historical (Julian before "
@@ -149,6 +155,14 @@ OPTIONS: dict[str, _Option] = {
     "curve": _Option("curve", "calibration curve of radiocarbon ages that name none: "
                      "intcal20 (Reimer et al. 2020) or shcal20 (Hogg et al. 2020) "
                      "(default: intcal20)", _choice(CURVE_NAMES)),
+    "language": _Option("language", "languages of the words in dates: default (English and "
+                        "the forms of fr, de, it, es, nl, la that read one way only) or codes "
+                        "joined by commas, the first winning (fr,en) (default: default)",
+                        _language),
+    "baptism-days": _Option("baptism_days", "days a birth may come before a baptism written "
+                            "bapt. (0: the date as written) (default: 30)", _DAYS),
+    "burial-days": _Option("burial_days", "days a death may come before a burial written bur. "
+                           "(0: the date as written) (default: 7)", _DAYS),
     "year-zero": _Option("year_zero", "a bare year 0 with signed-years bc: refuse (no such "
                          "year) or 1bc (read as 1 BC) (default: refuse)",
                          _choice(YEAR_ZERO_READINGS)),

@@ -32,6 +32,7 @@ from .reasons import DATE_HINT, RANGE_HINT, date_error, locate
 from .settings import DEFAULT_SETTINGS, DateSettings, present_day
 from .frame import read_framed
 from .single import not_a_date, prepared, read_single
+from .translate import translated
 from .windows import collapsed, ordered_span
 
 DASH = re.compile(r"\s*[\u2012-\u2015]\s*")      # figure dash, en dash, em dash, horizontal bar
@@ -62,7 +63,7 @@ def general_span(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Span:
     """parse_span without the quick lane (quick.py), which must agree with it."""
     cleaned = prepared(text)
     try:
-        return _read_span(cleaned, text, settings)
+        return _read_span(translated(cleaned, settings), text, settings)
     except DateError:
         raise
     except ValueError as error:

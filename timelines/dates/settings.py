@@ -8,6 +8,10 @@ from __future__ import annotations
 import datetime
 from dataclasses import dataclass
 from functools import lru_cache
+from typing import TYPE_CHECKING
+
+if TYPE_CHECKING:
+    from .periods import PeriodTable
 
 from ..calendar import CALENDARS, HISTORICAL, first_gregorian_day, historical_calendar
 
@@ -100,6 +104,20 @@ class DateSettings:
     # The calibration curve of radiocarbon ages that name none: IntCal20 (northern
     # hemisphere) or SHCal20 (southern); radiocarbon.py gives the citations.
     curve: str = "intcal20"
+    # The languages of the words in free-text dates (languages/, translate.py): "default" is
+    # English with the forms of French, German, Italian, Spanish, Dutch and Latin that no two
+    # of them read differently; codes joined by commas ("fr,en") take every word of those
+    # languages, the first named winning where two differ. English is always read.
+    language: str = "default"
+    # Event words before a date (genealogists' bapt., bur.): how many days a birth may come
+    # before a baptism, and a death before a burial. The window of `bapt. 4 May 1760` is then
+    # the birth's, reaching that many days earlier; 0 reads the date as written. Common
+    # practice, no source: baptism within days to weeks of birth, burial within days of death.
+    baptism_days: int = 30
+    burial_days: int = 7
+    # The user's own named periods and reigns (periods.py; `--periods FILE`): each label is
+    # then a date form (`Bronze Age`, `early Bronze Age`, `reign of Aldric II`, `3 Aldric II`).
+    periods: "PeriodTable | None" = None
 
     def __post_init__(self) -> None:
         _check_choice("calendar", self.calendar, CALENDARS)
@@ -125,6 +143,7 @@ class DateSettings:
         if self.circa_percent_for_deep_time > 100:
             raise ValueError("circa_percent_for_deep_time is a percentage: 0 to 100")
         year_start_parts(self.year_start)
+        _check_language(self.language)
         _reckoning(self.calendar, self.reform)   # raises for a reform day that is no day
 
     @property
@@ -139,8 +158,8 @@ class DateSettings:
         return year_start_parts(self.year_start)
 
 
-_CIRCA_FIELDS = ("circa_days_for_day", "circa_days_for_month", "circa_years_for_year",
-                 "circa_years_for_decade", "circa_years_for_century",
+_CIRCA_FIELDS = ("baptism_days", "burial_days", "circa_days_for_day", "circa_days_for_month",
+                 "circa_years_for_year", "circa_years_for_decade", "circa_years_for_century",
                  "circa_years_for_millennium", "circa_percent_for_deep_time")
 
 # Days in each month when the year is a leap year: a year may begin on 29 February.
@@ -185,6 +204,14 @@ def present_day(settings: "DateSettings") -> int:
     if settings.present == TODAY:
         return datetime.date.today().toordinal()
     return present_setting_day(settings.present)
+
+
+@lru_cache(maxsize=64)
+def _check_language(value: str) -> None:
+    from .translate import language_codes   # the tables are read only when a text needs them
+    if not isinstance(value, str):
+        raise ValueError(f"language is default or codes joined by commas, not {value!r}")
+    language_codes(value)
 
 
 def _check_choice(name: str, value: object, choices: tuple[str, ...]) -> None:

@@ -27,6 +27,7 @@ from .months import misspelt_month
 from .reasons import DATE_HINT, Unreadable, date_error, locate
 from .sets import read_set
 from .settings import DEFAULT_SETTINGS, DateSettings
+from .translate import translated
 from .windows import after, before, normalise, spanning
 
 NOT_READ = "not a date form timelines reads"
@@ -52,7 +53,7 @@ def parse_date(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> Endpoint
     """One date (no range) as an endpoint window; raises DateError."""
     cleaned = prepared(text)
     try:
-        endpoint = read_single(cleaned, settings)
+        endpoint = read_single(translated(cleaned, settings), settings)
     except DateError:
         raise
     except ValueError as error:

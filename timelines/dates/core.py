@@ -16,6 +16,7 @@ from .centuries import CENTURY_FORMS
 from .c14 import RADIOCARBON_FORMS
 from .deeptime import AGE_FORMS
 from .edtf import EDTF_FORMS
+from .feasts import FEAST_FORMS
 from .grammar import FormTable
 from .iso import ISO_DIGIT_FORMS, ISO_FORMS
 from .months import MONTH_FORMS
@@ -27,7 +28,8 @@ from .text import YEAR_FORMS
 # A bare signed number (-300) before the ISO forms, which would claim -1500 and -12000 as
 # astronomical years: only a zero-padded year (-0300) is left to ISO 8601 (signed.py).
 _FORMS = (ISO_DIGIT_FORMS + YEAR_FORMS[:1] + SIGNED_YEAR_FORMS + ISO_FORMS + EDTF_FORMS
-          + YEAR_FORMS[1:] + CENTURY_FORMS + MONTH_FORMS + RADIOCARBON_FORMS + AGE_FORMS)
+          + YEAR_FORMS[1:] + CENTURY_FORMS + MONTH_FORMS + FEAST_FORMS + RADIOCARBON_FORMS
+          + AGE_FORMS)
 ALL_FORMS = FormTable(_FORMS)
 # With an era (44 BC) only the forms that take one are tried: 0044 BC is a year, not ISO.
 ERA_FORMS = FormTable(tuple(form for form in _FORMS if form.takes_era))

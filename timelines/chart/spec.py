@@ -24,6 +24,8 @@ from pathlib import Path
 
 from ..check.report import Report
 from ..dates import DateSettings, settings_from_options
+from ..dates.periods import PeriodTable
+from ..sources.periods import read_periods_file
 from ..errors import TimelineError, UsageError, did_you_mean
 from ..layout import LaneSettings
 from ..render import output_format, write, write_pages, write_to
@@ -109,11 +111,13 @@ class Chart:
         return self._with(lanes=replace(self._options.lanes, **settings))
 
     def dates(self, settings: DateSettings | None = None, *, date_numbers: str | None = None,
-              **conventions) -> "Chart":
+              periods: "str | Path | PeriodTable | None" = None, **conventions) -> "Chart":
         """How dates are read: a DateSettings, and/or conventions by name (calendar,
-        century, before_after, circa_year, day_first, year_start, ...: docs/dates.md);
-        date_numbers: a spreadsheet's numbers in date columns are "years" (the default)
-        or "serials" (days as the spreadsheet counts them)."""
+        century, before_after, circa_year, day_first, year_start, language, ...:
+        docs/dates.md); date_numbers: a spreadsheet's numbers in date columns are "years"
+        (the default) or "serials" (days as the spreadsheet counts them); periods: a table
+        file of your own named periods and reigns (or a PeriodTable), whose labels then read
+        as dates."""
         _check_choice(date_numbers, DATE_NUMBERS, "date_numbers")
         base = settings or self._options.settings
         given = {name.replace("_", "-"): value for name, value in conventions.items()}
@@ -121,6 +125,10 @@ class Chart:
             settings = settings_from_options(given, base)
         except ValueError as error:
             raise UsageError(str(error), hint="see docs/dates.md for each convention") from None
+        if periods is not None:
+            table = periods if isinstance(periods, PeriodTable) else read_periods_file(
+                periods, settings)
+            settings = replace(settings, periods=table)
         if date_numbers is None:
             return self._with(settings=settings)
         return self._with(settings=settings, date_numbers=date_numbers)

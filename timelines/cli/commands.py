@@ -18,6 +18,7 @@ import os
 import re
 import sys
 from importlib import resources
+from dataclasses import replace
 from pathlib import Path
 
 from ..chart import Chart, ChartOptions, Privacy, output_path, parse_window
@@ -32,6 +33,7 @@ from ..model import collection_paused
 from ..scene.page import parse_font_size, parse_size, png_dpi
 from ..scene.theme import DEFAULT_THEME, PALETTES
 from ..sources import ColumnMap
+from ..sources.periods import read_periods_file
 from .activity import run_activity
 from .config import apply_settings, config_lines
 from .constraints import constrained, run_constraints
@@ -121,9 +123,14 @@ def _print_error(error: TimelineError) -> None:
 def _settings(args) -> DateSettings:
     given = {name: getattr(args, name.replace("-", "_")) for name in SETTING_HELP}
     try:
-        return settings_from_options(given)
+        settings = settings_from_options(given)
     except ValueError as error:
         raise UsageError(str(error), hint="see docs/dates.md for each convention") from None
+    if getattr(args, "periods", None):
+        # The periods' own dates are read in the settings given; their labels then read too.
+        settings = replace(settings, periods=read_periods_file(
+            args.periods, settings, encoding=getattr(args, "encoding", None)))
+    return settings
 
 
 def _columns(args) -> ColumnMap:

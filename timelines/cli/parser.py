@@ -410,3 +410,8 @@ def _date_options(parser: argparse.ArgumentParser) -> None:
     for name, meaning in SETTING_HELP.items():
         conventions.add_argument(f"--{name}", metavar="VALUE", default=DATE_DEFAULTS[name],
                                  help=meaning.replace("%", "%%"))  # argparse formats help
+    conventions.add_argument("--periods", metavar="FILE", default=None,
+                             help="a table of your own named periods and reigns (columns "
+                                  "label, start, end, and optionally aliases, kind): each "
+                                  "label reads as a date (Bronze Age, early Bronze Age, reign "
+                                  "of X, 3 X for a regnal year); docs/dates.md")

@@ -134,3 +134,13 @@ def test_the_language_setting_is_checked():
                                   "before 1700", "1650s", "mid-17th century"])
 def test_english_text_passes_through_unchanged(text):
     assert translated(text, DateSettings()) == text
+
+
+def test_a_form_left_out_of_the_default_says_which_language_reads_it():
+    with pytest.raises(DateError) as caught:
+        parse_span("tussen 1650 en 1660")
+    assert "'en' reads differently in French, Spanish, Dutch" in caught.value.hint
+    assert caught.value.hint.endswith("--language nl")
+    with pytest.raises(DateError) as caught:
+        parse_span("entre 1650 y 1660")
+    assert "'y' is Spanish" in caught.value.hint

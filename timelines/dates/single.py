@@ -27,7 +27,7 @@ from .months import misspelt_month
 from .reasons import DATE_HINT, Unreadable, date_error, locate
 from .sets import read_set
 from .settings import DEFAULT_SETTINGS, DateSettings
-from .translate import translated
+from .translate import language_hint, translated
 from .windows import after, before, normalise, spanning
 
 NOT_READ = "not a date form timelines reads"
@@ -144,6 +144,9 @@ def not_a_date(text: str, cleaned: str) -> DateError:
                          hint="an empty cell is read as no date, not through the parser")
     if _RANGE_MARK.search(cleaned):
         return DateError(text, "a range where one date is expected", hint=DATE_HINT)
+    named = language_hint(normalise(text))
+    if named:
+        return DateError(text, NOT_READ, hint=named)
     misspelt = misspelt_month(cleaned)
     if misspelt:
         word, hint = misspelt

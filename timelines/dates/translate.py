@@ -79,6 +79,28 @@ def translated(text: str, settings) -> str:
     return result
 
 
+def language_hint(text: str) -> str | None:
+    """For a text no form reads: a word in it that only a named language reads (Dutch `en`
+    is left out of the default), and the setting that reads it."""
+    default = lexicon_for(DEFAULT)
+    for token in _TOKEN.findall(text):
+        word = token.lower()
+        if word in default.names:
+            continue
+        readers = [code for code in CODES if word in lexicon_for(code).names]
+        if readers:
+            names = ", ".join(table(code).name for code in readers)
+            why = ("reads differently in " + names if len(readers) > 1
+                   else f"is {names} and too short to guess")
+            # The language whose words cover most of the text: tussen ... en is Dutch.
+            words = [each.lower() for each in _TOKEN.findall(text)]
+            likely = max(readers, key=lambda code: sum(w in lexicon_for(code).names
+                                                       for w in words))
+            return (f"{token!r} {why}, so the default language setting leaves it out; "
+                    f"name the language: --language {likely}")
+    return None
+
+
 def _may_translate(text: str, lexicon: Lexicon) -> bool:
     for token in _TOKEN.findall(text):
         lower = token.lower()

@@ -23,7 +23,6 @@ from __future__ import annotations
 
 import re
 from dataclasses import dataclass
-from functools import lru_cache
 
 from . import trace
 from .languages import CODES, EVENTS, MONTHS, table
@@ -46,8 +45,8 @@ _BARE_AFTER = re.compile(rf"(?<!\w)(?P<word>century|millennium)\s+{_NUMBER}(?!\w
                          re.IGNORECASE)
 _INTERPRETED = re.compile(r"INT\s+(?P<date>.+?)\s*\((?P<phrase>[^()]*)\)", re.IGNORECASE)
 _TOKEN = re.compile(r"[^\W\d_]+'?|\u2020")
-# A Roman numeral with an ordinal ending, as a token: xvii, xviie, xviith, xviième.
-_ROMAN_TOKEN = re.compile(r"(?ai:[ivx])+[^\W\d_ivx]{0,3}")
+# A Roman numeral with an ordinal ending, as a word: xvii, xviie, xviith, xviième.
+_ROMAN_WORD = re.compile(r"(?<!\w)(?ai:[ivx])+[^\W\d_ivx]{0,3}(?!\w)")   # not the X of 198X
 
 
 @dataclass(frozen=True, slots=True)
@@ -83,30 +82,43 @@ def language_hint(text: str) -> str | None:
     """For a text no form reads: a word in it that only a named language reads (Dutch `en`
     is left out of the default), and the setting that reads it."""
     default = lexicon_for(DEFAULT)
-    for token in _TOKEN.findall(text):
-        word = token.lower()
-        if word in default.names:
-            continue
-        readers = [code for code in CODES if word in lexicon_for(code).names]
+    words = [token.lower() for token in _TOKEN.findall(text)]
+    for token, word in zip(_TOKEN.findall(text), words):
+        readers = _word_languages().get(word, ()) if word not in default.names else ()
         if readers:
             names = ", ".join(table(code).name for code in readers)
             why = ("reads differently in " + names if len(readers) > 1
                    else f"is {names} and too short to guess")
             # The language whose words cover most of the text: tussen ... en is Dutch.
-            words = [each.lower() for each in _TOKEN.findall(text)]
-            likely = max(readers, key=lambda code: sum(w in lexicon_for(code).names
+            likely = max(readers, key=lambda code: sum(code in _word_languages().get(w, ())
                                                        for w in words))
             return (f"{token!r} {why}, so the default language setting leaves it out; "
                     f"name the language: --language {likely}")
     return None
 
 
+def _word_languages() -> dict[str, tuple[str, ...]]:
+    """Each word of every table -> the codes of the languages that have it (built once)."""
+    if _WORD_LANGUAGES:
+        return _WORD_LANGUAGES
+    found: dict[str, list[str]] = {}
+    for code in CODES:
+        for word, _ in _uses(table(code)):
+            codes = found.setdefault(word.lower(), [])
+            if code not in codes:
+                codes.append(code)
+    _WORD_LANGUAGES.update((word, tuple(codes)) for word, codes in found.items())
+    return _WORD_LANGUAGES
+
+
+_WORD_LANGUAGES: dict[str, tuple[str, ...]] = {}
+
+
 def _may_translate(text: str, lexicon: Lexicon) -> bool:
     for token in _TOKEN.findall(text):
-        lower = token.lower()
-        if lower in lexicon.first_tokens or _ROMAN_TOKEN.fullmatch(lower):
+        if token.lower() in lexicon.first_tokens:
             return True
-    return False
+    return _ROMAN_WORD.search(text) is not None
 
 
 def _is_roman(token: str) -> bool:
@@ -186,9 +198,19 @@ def _roman_month(match: re.Match[str]) -> str:
     return f"{match['day']} {MONTHS[month - 1]} {match['year']}"
 
 
-@lru_cache(maxsize=16)
 def lexicon_for(setting: str) -> Lexicon:
-    """The compiled words of a language setting (`default`, or codes such as `fr,en`)."""
+    """The compiled words of a language setting (`default`, or codes such as `fr,en`),
+    compiled once, when a text first needs them (like the readers' regexes at import)."""
+    lexicon = _LEXICONS.get(setting)
+    if lexicon is None:
+        lexicon = _LEXICONS[setting] = _lexicon(setting)
+    return lexicon
+
+
+_LEXICONS: dict[str, Lexicon] = {}
+
+
+def _lexicon(setting: str) -> Lexicon:
     entries: dict[tuple[str, str], str] = {}   # (lower-case word, use) -> language names
     suffixes: list[str] = []   # ordinal endings act only after a number beside a century word
     for code in language_codes(setting):

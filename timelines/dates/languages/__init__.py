@@ -13,7 +13,6 @@ from __future__ import annotations
 
 import tomllib
 from dataclasses import dataclass
-from functools import lru_cache
 from importlib import resources
 
 CODES = ("en", "fr", "de", "it", "es", "nl", "la")
@@ -43,14 +42,20 @@ class Table:
         return dict(self.rules).get(name, ())
 
 
-@lru_cache(maxsize=None)
 def table(code: str) -> Table:
-    """One language's table; raises ValueError for a language there is no table for."""
-    if code not in CODES:
-        raise ValueError(f"no date words for language {code!r}; there are "
-                         f"{', '.join(CODES)}")
-    text = resources.files(__package__).joinpath(f"{code}.toml").read_text(encoding="utf-8")
-    return _table(code, tomllib.loads(text))
+    """One language's table, read once; raises ValueError for a language without one."""
+    found = _TABLES.get(code)
+    if found is None:
+        if code not in CODES:
+            raise ValueError(f"no date words for language {code!r}; there are "
+                             f"{', '.join(CODES)}")
+        text = resources.files(__package__).joinpath(f"{code}.toml").read_text(
+            encoding="utf-8")
+        found = _TABLES[code] = _table(code, tomllib.loads(text))
+    return found
+
+
+_TABLES: dict[str, Table] = {}   # read once, like a module's regexes at import
 
 
 def _table(code: str, data: dict) -> Table:

@@ -14,6 +14,7 @@ from ..model import Endpoint
 from . import trace
 from .centuries import CENTURY_FORMS
 from .c14 import RADIOCARBON_FORMS
+from .calendars.forms import CALENDAR_WORDS, OTHER_CALENDAR_FORMS
 from .deeptime import AGE_FORMS
 from .edtf import EDTF_FORMS
 from .feasts import FEAST_FORMS
@@ -29,7 +30,7 @@ from .text import YEAR_FORMS
 # astronomical years: only a zero-padded year (-0300) is left to ISO 8601 (signed.py).
 _FORMS = (ISO_DIGIT_FORMS + YEAR_FORMS[:1] + SIGNED_YEAR_FORMS + ISO_FORMS + EDTF_FORMS
           + YEAR_FORMS[1:] + CENTURY_FORMS + MONTH_FORMS + FEAST_FORMS + RADIOCARBON_FORMS
-          + AGE_FORMS)
+          + AGE_FORMS + OTHER_CALENDAR_FORMS)
 ALL_FORMS = FormTable(_FORMS)
 # With an era (44 BC) only the forms that take one are tried: 0044 BC is a year, not ISO.
 ERA_FORMS = FormTable(tuple(form for form in _FORMS if form.takes_era))
@@ -75,6 +76,8 @@ def iso_date(text: str, settings: DateSettings, marker: str | None = None) -> En
 
 
 def calendar_words(calendar: str) -> str:
+    if calendar in CALENDAR_WORDS:
+        return CALENDAR_WORDS[calendar]
     reform = reform_of(calendar)
     if reform is not None:
         return (f"historical calendar (Julian before {iso_from_fixed(reform.first_day)}, "

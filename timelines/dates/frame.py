@@ -33,6 +33,7 @@ from dataclasses import dataclass
 from ..calendar import GREGORIAN, JULIAN
 from ..model import Endpoint, Qualifier
 from . import trace
+from .calendars.forms import CALENDAR_WORDS
 from .core import read_core
 from .events import of_event
 from .grammar import FLAGS
@@ -227,6 +228,14 @@ def _set_calendar(around: Around, written: str) -> None:
 
 def _applied(base: Endpoint, calendar: str, around: Around, settings: DateSettings) -> Endpoint:
     endpoint = base
+    if calendar in CALENDAR_WORDS:
+        # Hijri, Hebrew, Republican ... dates: their own units end at the reader; c. widens
+        # by the settings' days and years as counted in the Gregorian calendar.
+        if around.part is not None:
+            raise Unreadable("early, mid and late are read in the Julian and Gregorian "
+                             "calendars only", fragment=around.part.words,
+                             hint="write the months or days of that calendar")
+        calendar = GREGORIAN
     if around.part is not None:
         endpoint = part_of(endpoint, around.part, calendar, settings)
     if around.approximate is not None:

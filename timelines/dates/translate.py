@@ -24,7 +24,7 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass
 
-from . import trace
+from . import gedcom, trace
 from .languages import CODES, EVENTS, MONTHS, table
 from .ordinals import ordinal_suffix
 
@@ -63,6 +63,8 @@ class Lexicon:
 
 def translated(text: str, settings) -> str:
     """The text in the readers' words; the text itself when nothing in it is foreign."""
+    if "@" in text:
+        text = gedcom.rewritten(text)
     lexicon = lexicon_for(settings.language)
     if not _may_translate(text, lexicon):
         return text

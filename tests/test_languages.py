@@ -144,3 +144,15 @@ def test_a_form_left_out_of_the_default_says_which_language_reads_it():
     with pytest.raises(DateError) as caught:
         parse_span("entre 1650 y 1660")
     assert "'y' is Spanish" in caught.value.hint
+
+
+@pytest.mark.parametrize("text", ["sans date", "s. d.", "o. J.", "ohne Datum", "sin fecha",
+                                  "senza data", "zonder datum", "sine anno"])
+def test_each_languages_words_for_no_date_make_a_row_undated(text, tmp_path):
+    from timelines.sources import ColumnMap, load_records, read_table
+
+    path = tmp_path / "t.csv"
+    path.write_text(f"label,when\nA,{text}\nB,1650\n", encoding="utf-8")
+    loaded = load_records(read_table(path), ColumnMap(when="when", label="label"))
+    [problem] = loaded.problems
+    assert problem.kind == "undated" and f"there is no date ('{text}')" in problem.reason

@@ -25,6 +25,20 @@ from .windows import day, digits_about, years
 
 # What cataloguers write for "no date" (n.d., Latin s.d. sine dato): the cell says no date.
 NO_DATE_WORDS = frozenset({"n.d.", "n.d", "nd", "s.d.", "s.d", "undated", "unknown", "?", "??"})
+_NO_DATE_WORDS: set[str] = set()
+
+
+def no_date_words() -> set[str]:
+    """NO_DATE_WORDS with each language table's words for no date (sans date, o. J., sine
+    anno), read when a cell first needs them."""
+    if not _NO_DATE_WORDS:
+        from .languages import CODES, table
+        _NO_DATE_WORDS.update(NO_DATE_WORDS, (spelling.lower() for code in CODES
+                                              for spelling, concept in table(code).spellings
+                                              if concept == "unknown"))
+    return _NO_DATE_WORDS
+
+
 # pandas' missing-value markers, known by name so that this module need not import pandas.
 _MISSING_TYPES = frozenset({"NaTType", "NAType"})
 
@@ -51,7 +65,8 @@ def is_empty_cell(value: object) -> bool:
     if value is None or type(value).__name__ in _MISSING_TYPES:
         return True
     if isinstance(value, str):
-        return not value.strip() or value.strip().lower() in NO_DATE_WORDS
+        return not value.strip() or value.strip().lower() in NO_DATE_WORDS or (
+            " ".join(value.lower().split()) in no_date_words())
     return isinstance(value, float) and math.isnan(value)
 
 

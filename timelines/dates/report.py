@@ -4,7 +4,7 @@ from __future__ import annotations
 from ..calendar import iso_from_fixed, year_text
 from ..errors import DateError
 from ..model import Endpoint, Span
-from .cells import NO_DATE_WORDS
+from .cells import no_date_words
 from .ranges import parse_span
 from .settings import DEFAULT_SETTINGS, DateSettings
 from .windows import coarser
@@ -20,7 +20,7 @@ def describe(text: str, settings: DateSettings = DEFAULT_SETTINGS) -> dict:
     possible extent: start's earliest .. end's latest, no likely day, the coarser of the two
     precisions, the union of their qualifiers.
     """
-    if text.strip().lower() in NO_DATE_WORDS:
+    if " ".join(text.lower().split()) in no_date_words():
         # Not a failure to read: the text says there is no date, as an empty cell does.
         return _failure(text, f"no date: {text.strip()!r} says the date is not known; in a "
                               "table, the row counts as undated and is listed under the chart")

@@ -312,7 +312,7 @@ def _problems(source: str, layout: _Layout, texts: _Texts, numbers: list[int],
     problems: list[Problem] = []
     for index, outcome in enumerate(outcomes):
         if outcome is None:
-            problems.append(_undated(source, numbers[index], layout, _identifier(texts, index)))
+            problems.append(_undated(source, numbers[index], layout, texts, index))
         elif type(outcome) is list:
             problems.extend(_failure(source, numbers[index], layout, texts, index, place, error)
                             for place, error in outcome)
@@ -341,11 +341,20 @@ def _identifier(texts: "_Texts", index: int) -> str | None:
     return texts.at(texts.layout.id, index) or None
 
 
-def _undated(source: str, number: int, layout: _Layout, identifier: str | None) -> Problem:
-    names = [repr(layout.header[place]) for place in (layout.start, layout.end, layout.when)
-             if place is not None]
-    if len(names) == 1:
+def _undated(source: str, number: int, layout: _Layout, texts: "_Texts",
+             index: int) -> Problem:
+    places = [place for place in (layout.start, layout.end, layout.when) if place is not None]
+    names = [repr(layout.header[place]) for place in places]
+    written = [texts.at(place, index).strip() for place in places]
+    if any(written):
+        # n.d., sans date, o. J.: the cell says there is no date, in so many words.
+        said = ", ".join(repr(text) for text in written if text)
+        cells = f"the {names[0]} cell says" if len(names) == 1 else \
+            f"the {' and '.join(names)} cells say"
+        reason = f"{cells} there is no date ({said})"
+    elif len(names) == 1:
         reason = f"the {names[0]} cell is empty"
     else:
         reason = f"the {' and '.join(names)} cells are empty"
+    identifier = _identifier(texts, index)
     return Problem(source, number, None, identifier, "", reason, "undated")

@@ -71,10 +71,11 @@ def translated(text: str, settings) -> str:
     used: list[str] = []
     result = _rewritten(text, lexicon, used)
     if result != text and trace.on:
-        names = ", ".join(dict.fromkeys(name for names in used if names
-                                        for name in names.split(", ")))
-        source = (f"the words of {names} (languages/ tables)" if names
-                  else "Roman numerals read as numbers")
+        names = list(dict.fromkeys(name for names in used if names
+                                   for name in names.split(", ")))
+        files = {table(code).name: f"languages/{code}.toml" for code in CODES}
+        source = (f"the words of {', '.join(f'{name} ({files[name]})' for name in names)}"
+                  if names else "Roman numerals read as numbers")
         trace.note(f"{text!r} read as {result!r} ({source}; language setting "
                    f"{settings.language})")
     return result

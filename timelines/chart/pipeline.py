@@ -17,7 +17,7 @@ from pathlib import Path
 from typing import Callable, Iterable, Sequence
 
 from ..check.report import Report, check
-from ..dates import DEFAULT_SETTINGS, DateError, DateSettings, parse_endpoint
+from ..dates import DEFAULT_SETTINGS, DateError, DateSettings, explain, parse_endpoint
 from ..errors import TimelineError, UsageError, did_you_mean
 from ..layout import (
     GroupNode, LaneRules, LaneSettings, Placement, TimeWindow, UnknownGroup, group_records,
@@ -30,6 +30,7 @@ from ..model import Record
 from ..render import output_format, writable, write
 from ..scene.activity import ActivitySeries
 from ..scene.bands import on_axis
+from ..scene.explore import ExploreData, explore_data
 from ..scene.compose import ChartText, colors_of, compose, title_height
 from ..scene.facets import Panel, compose_facets, panel_width
 from ..scene.measure import (
@@ -247,6 +248,24 @@ def arranged_page(arranged: Arranged, options: ChartOptions) -> FittedPage:
     return fit_height(lambda theme: placement_scene(
         records, arranged.placement, arranged.scale, theme, text=text, bands=bands,
         activity=counts), options.theme, options.size)
+
+
+def arranged_explore(arranged: Arranged, options: ChartOptions) -> ExploreData:
+    """The HTML explorer's data of an arranged table: the same placement as the chart."""
+    if arranged.scale is None or arranged.placement is None:
+        arranged_page(arranged, options)          # raises: nothing to draw, and why
+        raise UsageError("the explorer draws one panel", hint="leave out --facet")
+    options = page_options(options)
+    records = arranged.loaded.records
+    report = arranged.report
+    text = ChartText(options.title, tuple(r for r in records if r.span is None),
+                     report.not_drawn - report.undated, subtitle=options.subtitle,
+                     credit=options.credit, notes=options.notes, outside=arranged.outside,
+                     color_title=arranged.columns.color or "")
+    settings = options.settings
+    return explore_data(arranged.placement, arranged.scale, options.theme,
+                        *_colors(records, arranged, options.theme), text,
+                        explain=lambda written: explain(written, settings))
 
 
 def activity_strip_series(arranged: Arranged, options: ChartOptions

@@ -28,11 +28,12 @@ from ..dates.periods import PeriodTable
 from ..sources.periods import read_periods_file
 from ..errors import TimelineError, UsageError, did_you_mean
 from ..layout import LaneSettings
-from ..render import output_format, write, write_pages, write_to
+from ..render import output_format, write, write_html, write_pages, write_to
 from ..scene.coverage import missing_glyph_notes
 from ..scene.encodings import FRINGES
 from ..scene.fonts import font_list
 from ..scene.page import font_note, parse_font_size, parse_size, png_dpi, tall_note
+from ..scene.explore import ExploreData
 from ..scene.primitives import TEXT_MODES, Scene
 from ..scene.theme import PALETTES
 from ..calendar import ERAS
@@ -41,7 +42,8 @@ from ..sources.decoding import checked_encoding
 from ..sources.serials import DATE_NUMBERS
 from .options import ChartOptions, Privacy
 from .pipeline import (
-    Arranged, arrange_read, arranged_page, color_warning, page_options, paged_scenes,
+    Arranged, arrange_read, arranged_explore, arranged_page, color_warning, page_options,
+    paged_scenes,
     parse_window,
 )
 from .reading import ReadTable, duration_days, read_source
@@ -325,7 +327,9 @@ class Chart:
             path = Path(target)
             suffix = output_format(path if format is None else path.with_suffix("." + format))
             self._check_strict()
-            if self._options.pages:
+            if suffix == ".html":
+                write_html(self.explore(), path)
+            elif self._options.pages:
                 write_pages(self.pages(), path if suffix == ".pdf" else path.with_suffix(suffix))
             else:
                 write(self.scene(), path, dpi=self.options.dpi, text=self.options.text,
@@ -333,7 +337,9 @@ class Chart:
             return path
         suffix = output_format(Path("chart." + (format or _name_suffix(target))))
         self._check_strict()
-        if self._options.pages and suffix == ".pdf":
+        if suffix == ".html":
+            target.write(self.to_html().encode("utf-8"))
+        elif self._options.pages and suffix == ".pdf":
             from ..render.mpl import render_pdf_pages
             render_pdf_pages(self.pages(), target)
         else:
@@ -349,6 +355,15 @@ class Chart:
     def to_svg(self) -> str:
         """The chart as SVG text."""
         return self._cached("svg", lambda: self._bytes(".svg").decode("utf-8"))
+
+    def explore(self) -> "ExploreData":
+        """What the HTML explorer draws: the chart's placement, in days, as plain data."""
+        return self._cached("explore", lambda: arranged_explore(self.layout(), self.options))
+
+    def to_html(self) -> str:
+        """The chart as a self-contained HTML page to explore (zoom, filter, details)."""
+        from ..render.html import render_html
+        return render_html(self.explore())
 
     def to_png(self) -> bytes:
         """The chart as PNG bytes, at the page's dpi."""

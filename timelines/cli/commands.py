@@ -187,7 +187,7 @@ def run_render(args, parser) -> int:
     if args.when and (args.start or args.end):
         parser.error("give either --when or --start/--end, not both")
     if not args.output:
-        parser.error("render needs -o OUT.svg, OUT.png or OUT.pdf")
+        parser.error("render needs -o OUT.svg, OUT.png, OUT.pdf or OUT.html")
     if args.size and args.width != DEFAULT_THEME.width:
         parser.error("give either --size or --width, not both")
     output_path(args.output)                                # fail before any work
@@ -200,11 +200,13 @@ def run_render(args, parser) -> int:
     if args.strict and (arranged.not_drawn or _band_problems(arranged)):
         print("error: nothing written (--strict and some rows were not drawn)", file=sys.stderr)
         return 1
+    explorer = Path(args.output).suffix.lower() == ".html"
     with progress.step("drawing"):
-        chart.scene()
+        chart.explore() if explorer else chart.scene()
     with progress.step(f"writing {Path(args.output).name}"):
         written = chart.save(args.output)
-    for warning in chart.warnings:
+    # The warnings are about the static page (its height, its fonts): the explorer has none.
+    for warning in () if explorer else chart.warnings:
         _say(f"warning: {warning}", file=sys.stderr)
     _say(f"wrote {written}", file=sys.stderr)
     return 1 if arranged.not_drawn or _band_problems(arranged) else 0

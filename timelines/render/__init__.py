@@ -22,14 +22,15 @@ from typing import BinaryIO
 from ..errors import UsageError
 from ..scene.primitives import Scene
 
-FORMATS = (".svg", ".png", ".pdf")
+FORMATS = (".svg", ".png", ".pdf", ".html")
 
 
 def output_format(path: str | Path) -> str:
     path = Path(path)
     suffix = path.suffix.lower()
     if suffix not in FORMATS:
-        raise UsageError(f"cannot write {path.name!r}: the output must end in .svg, .png or .pdf")
+        raise UsageError(f"cannot write {path.name!r}: the output must end in .svg, .png, .pdf "
+                         "or .html")
     return suffix
 
 
@@ -67,8 +68,19 @@ def write_to(scene: Scene, file: BinaryIO, suffix: str, dpi: float = 150.0,
     elif suffix == ".pdf":
         from .mpl import render_pdf
         render_pdf(scene, file)
+    elif suffix == ".html":
+        raise UsageError("an .html explorer is written from the chart's data, not its scene",
+                         hint="use Chart.save or write_html")
     else:
         raise UsageError(f"cannot write {suffix!r}: the format must be svg, png or pdf")
+
+
+def write_html(data, path: str | Path) -> None:
+    """Write the explorer page of `data` (scene.explore.ExploreData) to `path`, whole or not
+    at all."""
+    from .html import render_html
+    with replacing(Path(path)) as file:
+        file.write(render_html(data).encode("utf-8"))
 
 
 def writable(path: str | Path) -> Path:

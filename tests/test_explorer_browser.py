@@ -238,3 +238,30 @@ def test_a_compressed_data_block_draws_the_same(browser, tmp_path, monkeypatch):
         finally:
             page.close(path)
     assert seen[0] == seen[1] and seen[0][0]["total"] == 200 and seen[0][1].count("\n") == 201
+
+
+def test_who_else_was_possibly_active_then(opened, register_page):
+    """The details' button keeps the record's group and the records of it whose possible
+    extents meet the record's, an empty end reaching without limit (checked here against
+    the records' own bounds, read in Python)."""
+    from timelines.sources import ColumnMap, load_records, read_table
+
+    opened.page.fill("#tl-search", "Tamsin Larkhurst")
+    opened.page.focus("#tl-main")
+    opened.page.keyboard.press("Home")
+    opened.page.fill("#tl-search", "")
+    opened.page.click("#tl-alongside")
+    state = opened.state()
+    assert state["time"] == "possibly" and len(state["hiddenGroups"]) == 9
+    records = [r for r in load_records(read_table(REGISTER), ColumnMap(
+        start="admitted", end="left", label="name", group="craft")).records if r.span]
+    data = json.loads(opened.page.locator("#tl-data").text_content())["records"]
+    row = data["row"][state["selected"]]
+    [me] = [r for r in records if r.provenance.row == row]
+    low, high = me.span.possible_extent
+
+    def reaches(record):
+        first, last = record.span.possible_extent
+        return ((first is None or first <= high) and (last is None or last >= low))
+    expected = sum(r.group == me.group and reaches(r) for r in records)
+    assert state["shown"] == expected

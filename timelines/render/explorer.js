@@ -641,7 +641,8 @@
   // qualifiers (the base filters, also behind the overview's histogram) and time. A lane
   // with no record shown folds away. The time filter follows the view as it pans, so its
   // lanes fold and unfold while panning: the lane at the top stays put meanwhile.
-  //   possibly:  the record's drawn extent (open sides: without end) overlaps the view's range;
+  //   possibly:  the record may reach into the view's range: its drawn extent, where an open
+  //              side and a side without a far bound (an empty cell) reach without end;
   //   certainly: the record has a certain core and that core overlaps the view's range, i.e.
   //              it was certainly active at some time within the range.
   // ==========================================================================================
@@ -674,12 +675,22 @@
     }
   }
 
+  // How far a record may reach: a side with no far bound (an empty cell, 'before 1700' as a
+  // start) is drawn short but may lie anywhere beyond, so it is possibly active there too.
+  function possibleLow(i) {
+    return flags[i] & F_STUB_START ? -Infinity : extentLow[i];
+  }
+
+  function possibleHigh(i) {
+    return flags[i] & F_STUB_END ? Infinity : extentHigh[i];
+  }
+
   function computeTimeMask() {
     const { from, to, time } = state;
     let count = 0;
     for (let i = 0; i < N; i++) {
       let ok = baseShown[i] === 1;
-      if (ok && time === "possibly") ok = extentLow[i] <= to && extentHigh[i] >= from;
+      if (ok && time === "possibly") ok = possibleLow(i) <= to && possibleHigh(i) >= from;
       else if (ok && time === "certainly") {
         ok = (flags[i] & F_CORE) !== 0 && coreLow[i] <= to && coreHigh[i] >= from;
       }
@@ -870,14 +881,19 @@
         parent.appendChild(node);
       },
       text(x, y, text, size, weight, anchor, fill, halo) {
-        const node = make("text", { x: round(x), y: round(y), "font-size": size, fill: paint(fill) });
-        if (halo) {
-          for (const [k, v] of [["stroke", halo], ["stroke-width", 3], ["stroke-linejoin", "round"], ["paint-order", "stroke"]]) node.setAttribute(k, String(v));
+        // A halo is a stroked copy of the text under it, not paint-order: not every SVG
+        // reader (cairosvg, some slide and drawing programs) knows paint-order.
+        const layers = halo ? [[halo, true], [fill, false]] : [[fill, false]];
+        for (const [colour, stroked] of layers) {
+          const node = make("text", { x: round(x), y: round(y), "font-size": size, fill: paint(colour) });
+          if (stroked) {
+            for (const [k, v] of [["stroke", halo], ["stroke-width", 3], ["stroke-linejoin", "round"]]) node.setAttribute(k, String(v));
+          }
+          if (weight) node.setAttribute("font-weight", weight);
+          if (anchor && anchor !== "start") node.setAttribute("text-anchor", anchor);
+          node.textContent = text;
+          parent.appendChild(node);
         }
-        if (weight) node.setAttribute("font-weight", weight);
-        if (anchor && anchor !== "start") node.setAttribute("text-anchor", anchor);
-        node.textContent = text;
-        parent.appendChild(node);
       },
     };
   }
@@ -1595,6 +1611,10 @@
     fact(flags[i] & F_POINT ? "Date as written" : "Start as written", start || "(empty)");
     if (!(flags[i] & F_POINT) || end) fact("End as written", end || endCellNote(i));
     nodes.push(list);
+    const alongside = el("button", { type: "button", class: "tl-alongside", id: "tl-alongside" },
+      GROUPS.length > 1 ? "Who else was possibly active then, in this group" : "Who else was possibly active then");
+    alongside.addEventListener("click", () => showAlongside(i));
+    nodes.push(alongside);
     // The static chart's tooltip, without the lines shown above (label, written, source);
     // a large chart's data leave the tooltips out, and the two main lines are made here.
     const tooltip = COLUMNS.details && COLUMNS.details[i];
@@ -1836,6 +1856,19 @@
 
   const zoomCentre = (factor) => zoomAround((state.from + state.to) / 2, factor);
   const pan = (share) => { const shift = (state.to - state.from) * share; setRange(state.from + shift, state.to + shift); };
+
+  // The records of i's group possibly active while i possibly was: the view set to i's
+  // possible extent, the time filter to "possibly", the other groups hidden.
+  function showAlongside(i) {
+    const low = Number.isFinite(possibleLow(i)) ? possibleLow(i) : DOMAIN[0];
+    const high = Number.isFinite(possibleHigh(i)) ? possibleHigh(i) : DOMAIN[1];
+    state.hiddenGroups = new Set(GROUPS.map((_, g) => g).filter((g) => g !== groupOf[i]));
+    state.time = "possibly";
+    setRange(low, Math.max(high, low + MIN_SPAN));
+    syncControls();
+    filtersChanged();
+    invalidate("time");
+  }
 
   function filtersChanged() {
     invalidate("filters", "hash", "details");

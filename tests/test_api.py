@@ -114,7 +114,7 @@ def test_save_to_file_objects(table, tmp_path):
 
 
 def test_save_checks_the_target_before_drawing(table, tmp_path):
-    with pytest.raises(UsageError, match="must end in .svg, .png or .pdf"):
+    with pytest.raises(UsageError, match="must end in .svg, .png, .pdf or .html"):
         _chart(table).save(tmp_path / "chart.jpg")
     with pytest.raises(UsageError, match="does not exist"):
         _chart(table).save(tmp_path / "no" / "such" / "chart.svg")

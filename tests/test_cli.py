@@ -72,7 +72,7 @@ def test_usage_errors_exit_2_with_a_hint(tmp_path, capsys):
     assert code == 2
     assert "error: no column 'brn'" in err and "hint: did you mean 'born'?" in err
     code, _, err = run(capsys, "render", "--demo", "-o", str(tmp_path / "x.gif"))
-    assert code == 2 and "must end in .svg, .png or .pdf" in err
+    assert code == 2 and "must end in .svg, .png, .pdf or .html" in err
     with pytest.raises(SystemExit) as exited:
         main(["render", "-o", str(tmp_path / "x.svg")])
     assert exited.value.code == 2

@@ -278,5 +278,5 @@ def test_write_takes_a_path_as_text_too(tmp_path):
     write(scene, str(tmp_path / "chart.svg"))
     write(scene, tmp_path / "chart-path.svg")
     assert (tmp_path / "chart.svg").read_bytes() == (tmp_path / "chart-path.svg").read_bytes()
-    with pytest.raises(UsageError, match="must end in .svg, .png or .pdf"):
+    with pytest.raises(UsageError, match="must end in .svg, .png, .pdf or .html"):
         write(scene, str(tmp_path / "chart.txt"))

@@ -36,6 +36,13 @@ class ChartOptions:
     pages: bool = False                 # a PDF split into pages at group breaks
     constraints: str | Path | None = None   # statements between records that tighten bounds
     activity: str | None = None         # a block (decade, century, 25 ...): counts under the lanes
+    # A table too large to read lane by lane: "auto" draws the overview (counts per block and
+    # group, overview.py) above the lanes of a part from OVERVIEW_FROM records on; "yes",
+    # "no" force it. The part: --from/--to, `where` (COLUMN=VALUE), and the first `first`
+    # records by start.
+    overview: str = "auto"
+    where: str | None = None
+    first: int | None = None
     longest: str | None = None          # a longest plausible duration bounding open sides
     longest_column: str | None = None   # a column giving each record its own
     longest_by_group: tuple[tuple[str, str], ...] = ()   # (group, duration): each group's own

@@ -31,6 +31,7 @@ from ..render import output_format, writable, write
 from ..scene.activity import ActivitySeries
 from ..scene.bands import on_axis
 from ..scene.explore import ExploreData, explore_data
+from ..scene.overview import Overview
 from ..scene.compose import ChartText, colors_of, compose, title_height
 from ..scene.facets import Panel, compose_facets, panel_width
 from ..scene.measure import (
@@ -47,6 +48,7 @@ from ..sources.columns import existing_column
 from ..sources.fields import column_reader
 from .activity import activity_notes, activity_series
 from .options import ChartOptions
+from .overview import choose_part, wanted
 from .reading import ReadTable, read_bands, read_source
 
 _GROUP = attrgetter("group")   # a record's group: the C-level getter, called per record
@@ -68,6 +70,8 @@ class Arranged:
     panels: tuple[Panel, ...] = ()      # with --facet: one placement per value
     bounded: int = 0                    # records whose open side --longest bounded
     narrowed: int = 0                   # bounds the --constraints statements narrowed
+    overview: Overview | None = None    # a large table's counts above the lanes of a part
+    summarised: int = 0                 # dated records in the overview only, not in lanes
 
     @property
     def placements(self) -> tuple[Placement, ...]:
@@ -95,9 +99,11 @@ class Arranged:
     def summary(self, max_lanes: int | None = None) -> str:
         """The check's one-line summary, with the records the lanes had no room for and those
         outside the window."""
-        hidden = len(self.left_out) + len(self.outside)
+        hidden = len(self.left_out) + len(self.outside) + self.summarised
         counts = replace(self.report.counts, drawn=self.report.counts.drawn - hidden)
         text = replace(self.report, counts=counts).summary()
+        if self.summarised:
+            text += f"; {self.summarised} counted in the overview only (--overview)"
         if self.left_out:
             limit = f" (at most {max_lanes} lanes a group)" if max_lanes else ""
             text += f"; {len(self.left_out)} left out for lack of room{limit}"
@@ -177,8 +183,16 @@ def arrange_read(read: ReadTable, options: ChartOptions = ChartOptions()) -> Arr
     kept, outside = split_by_window(loaded.records, options.window)      # the window
     bands = (read_bands(options.bands, options.settings, options.date_numbers,
                         options.encoding) if options.bands is not None else None)
+    part = None
+    if not options.facet and wanted(report.counts.drawn, options.overview):
+        part = choose_part(loaded.records, kept, options.window, options.where, options.first,
+                           lambda name: column_reader(columns, header, name, "--where"),
+                           options.theme.era, options.theme.calendar)
+        kept, outside = part.records, []          # the others are in the overview
     arranged = Arranged(loaded, report, columns, None, None, read.withheld, tuple(outside),
-                        bands, bounded=read.bounded, narrowed=read.narrowed)
+                        bands, bounded=read.bounded, narrowed=read.narrowed,
+                        overview=part.overview if part else None,
+                        summarised=part.summarised if part else 0)
     dated = [r for r in kept if r.span is not None]
     if not dated:
         return arranged
@@ -247,7 +261,7 @@ def arranged_page(arranged: Arranged, options: ChartOptions) -> FittedPage:
     text = replace(text, notes=(*text.notes, *count_notes))
     return fit_height(lambda theme: placement_scene(
         records, arranged.placement, arranged.scale, theme, text=text, bands=bands,
-        activity=counts), options.theme, options.size)
+        activity=counts, overview=arranged.overview), options.theme, options.size)
 
 
 def arranged_explore(arranged: Arranged, options: ChartOptions) -> ExploreData:
@@ -326,13 +340,14 @@ def build_scene(records: Iterable[Record], theme: Theme = DEFAULT_THEME, title: 
 def placement_scene(records: Iterable[Record], placement: Placement, scale: TimeScale,
                     theme: Theme, title: str = "", not_drawn: int = 0, *,
                     text: ChartText | None = None, bands: Iterable[Record] = (),
-                    activity: Sequence[ActivitySeries] = ()) -> Scene:
+                    activity: Sequence[ActivitySeries] = (),
+                    overview: Overview | None = None) -> Scene:
     # Colours in order of first appearance in the table, for the records drawn.
     color_of, colors = _drawn_colors(records, (placement,), theme)
     text = text or ChartText(title, placement.undated, not_drawn)
     return compose(placement, scale, theme, text, color_of, colors,
                    plot_top=title_height(text, theme) + 8, bands=tuple(bands),
-                   activity=activity)
+                   activity=activity, overview=overview)
 
 
 def _group_tree(records: list[Record], rules: LaneRules,

@@ -241,6 +241,14 @@ class Chart:
         years; `analysis.activity`), events and spans each in their own panel. None: none."""
         return self._with(activity=None if per is None else str(per))
 
+    def overview(self, mode: str = "yes", *, where: str | None = None,
+                 first: int | None = None) -> "Chart":
+        """For a table too large to read lane by lane: per group, the counts of records
+        active per block over all the time, above the lanes of a part (chart/overview.py).
+        `mode`: "auto" (from 5,000 dated records on: the default), "yes" or "no"; the part:
+        the window (`window`), `where` ("COLUMN=VALUE"), the `first` N by start (50)."""
+        return self._with(overview=mode, where=where, first=first)
+
     def withhold_living(self, as_of: int | None = None, years: int = 100) -> "Chart":
         """Show records that may be of living persons without their names and details
         (docs/privacy.md): those that could have started within `years` before `as_of`
@@ -358,7 +366,11 @@ class Chart:
 
     def explore(self) -> "ExploreData":
         """What the HTML explorer draws: the chart's placement, in days, as plain data."""
-        return self._cached("explore", lambda: arranged_explore(self.layout(), self.options))
+        # The explorer shows every record itself: no overview of a part.
+        whole = self if self._options.overview == "no" else self._with(overview="no")
+        if whole is not self and "read" in self._cache:
+            whole._cache["read"] = self._cache["read"]      # the table, read once
+        return self._cached("explore", lambda: arranged_explore(whole.layout(), self.options))
 
     def to_html(self) -> str:
         """The chart as a self-contained HTML page to explore (zoom, filter, details)."""

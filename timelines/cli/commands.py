@@ -193,7 +193,10 @@ def run_render(args, parser) -> int:
     output_path(args.output)                                # fail before any work
     if args.pages and Path(args.output).suffix.lower() != ".pdf":
         parser.error("--pages writes a PDF: give -o OUT.pdf")
-    chart = Chart.from_options(_input_path(args, parser), _render_options(args))
+    options = _render_options(args)
+    if Path(args.output).suffix.lower() == ".html":
+        options = replace(options, overview="no")    # the explorer shows every record itself
+    chart = Chart.from_options(_input_path(args, parser), options)
     progress = Progress(4, quiet=args.quiet)
     arranged = _laid_out(chart, progress)
     _print_run(arranged, args, args.era)
@@ -250,6 +253,7 @@ def _render_options(args) -> ChartOptions:
         bands=args.bands, facet=args.facet, facet_order=args.facet_order, size=size,
         date_numbers=args.date_numbers, pages=args.pages, constraints=args.constraints,
         activity=args.activity, events=_events(args),
+        overview=args.overview, where=args.where, first=args.first,
         longest=args.longest, longest_column=args.longest_column,
         longest_by_group=_group_durations(args))
 

@@ -81,6 +81,17 @@ def build_parser() -> argparse.ArgumentParser:
                       type=_checked_period, default=None,
                       help="a strip under the lanes: how many records were active per PERIOD "
                            "(year, decade: the default, century, millennium or N years)")
+    draw.add_argument("--overview", choices=("auto", "yes", "no"), default="auto",
+                      help="a table too large to read lane by lane: per group, counts of "
+                           "records active per block over all the time, above the lanes of a "
+                           "part (--from/--to, --where, --first); auto: from 5,000 dated "
+                           "records on (default: auto)")
+    draw.add_argument("--where", metavar="COLUMN=VALUE", default=None,
+                      help="with the overview: lanes only for the records whose COLUMN holds "
+                           "VALUE")
+    draw.add_argument("--first", metavar="N", type=_count(1), default=None,
+                      help="with the overview: lanes for the first N records by start "
+                           "(default: 50)")
     draw.add_argument("--pages", action="store_true",
                       help="a PDF in pages at group breaks, each the --size height (A4 of the "
                            "chart's width without one), the axis on every page")

@@ -63,15 +63,15 @@ def activity_scene(series: list[ActivitySeries], title: str = "",
                  background=theme.background, font_family=theme.font_family)
 
 
-def activity_strip(series: list[ActivitySeries], scale: TimeScale, theme: Theme, top: float
-                   ) -> tuple[list[Primitive], float]:
+def activity_strip(series: list[ActivitySeries], scale: TimeScale, theme: Theme, top: float,
+                   height: float = PANEL_HEIGHT) -> tuple[list[Primitive], float]:
     """The same panels under a timeline, on its time `scale` (its counts at the left, in the
-    captions' margin), with their legend; the y below. A block the chart's edge cuts is drawn
-    only as far as the edge (its counts are the whole block's)."""
+    captions' margin), `height` px of counts each, with their legend; the y below. A block
+    the chart's edge cuts is drawn only as far as the edge (its counts are the whole block's)."""
     panels: list[Primitive] = []
     y = top
     for one in series:
-        panel, y = _panel(_within(one, scale.start, scale.end), scale, theme, y + 8)
+        panel, y = _panel(_within(one, scale.start, scale.end), scale, theme, y + 8, height)
         panels.append(panel)
     legend, y = _legend(series, theme, y + 6)
     return [*panels, legend], y
@@ -96,18 +96,18 @@ class _Heading:
     subtitle: str = ""
 
 
-def _panel(series: ActivitySeries, scale: TimeScale, theme: Theme, top: float
-           ) -> tuple[Group, float]:
+def _panel(series: ActivitySeries, scale: TimeScale, theme: Theme, top: float,
+           height: float = PANEL_HEIGHT) -> tuple[Group, float]:
     """One kind's counts: its name, the band, the bars, the lines, the count and time axes."""
-    lines = wrap(f"{series.name}: {series.method}", theme.group_label_size,
-                 theme.width - 2 * theme.margin, weight="bold")
+    caption = f"{series.name}: {series.method}" if series.method else series.name
+    lines = wrap(caption, theme.group_label_size, theme.width - 2 * theme.margin, weight="bold")
     names = [Text(theme.margin, top + theme.group_label_size * (1 + 1.25 * number), line,
                   theme.group_label_size, weight="bold", fill=theme.text_color,
                   css_class="panel-title") for number, line in enumerate(lines)]
     plot_top = top + theme.group_label_size * (1 + 1.25 * (len(lines) - 1)) + 10
-    bottom = plot_top + PANEL_HEIGHT
+    bottom = plot_top + height
     most = max(max(series.possible, default=0), max(series.high, default=0), 1)
-    y_of = (lambda count: bottom - count / most * PANEL_HEIGHT)
+    y_of = (lambda count: bottom - count / most * height)
     grid, axis, below = draw_axis(scale, theme, plot_top, bottom)
     items = [*names, grid, *_counts_axis(most, scale, theme, y_of),
              *_envelope(series, scale, theme, y_of), *_bars(series, scale, theme, y_of),

@@ -21,6 +21,7 @@ from .bands import draw_bands, place_bands, strip_height
 from .bars import draw_record, drawn_spans, stub_days
 from .encodings import LaneBox
 from .legend import fit_text, heading, legend_and_notes
+from .overview import Overview, draw_overview
 from .primitives import Group, Line, Primitive, Scene, Text
 from .scale import TimeScale
 from .theme import Theme
@@ -54,12 +55,16 @@ class ChartText:
 def compose(placement: Placement, scale: TimeScale, theme: Theme, text: ChartText,
             color_of: Callable[[Record], str], color_key: tuple[tuple[str, str], ...] = (),
             plot_top: float | None = None, bands: Sequence[Record] = (),
-            activity: Sequence[ActivitySeries] = ()) -> Scene:
+            activity: Sequence[ActivitySeries] = (), overview: Overview | None = None) -> Scene:
     """The timeline page; with `activity`, its counts per block in a strip under the lanes
-    on the same time axis."""
+    on the same time axis; with `overview`, the counts of the whole table above the lanes
+    of the part they show."""
     used: set[str] = set()      # the marks that occur, so the legend shows only those
     header, header_bottom = heading(text, theme, theme.width)
     top = plot_top if plot_top is not None else header_bottom
+    if overview is not None:
+        strips, top = draw_overview(overview, theme, top, scale.x0)
+        header += strips
     plot, plot_bottom = draw_plot(placement, scale, theme, top, color_of, used, bands)
     if activity:
         strip, plot_bottom = activity_strip(list(activity), scale, theme, plot_bottom + 8)
@@ -71,7 +76,9 @@ def compose(placement: Placement, scale: TimeScale, theme: Theme, text: ChartTex
     legend, bottom = legend_and_notes(used, color_key, text, theme, plot_bottom,
                                       width=theme.width)
     return Scene(theme.width, bottom + theme.margin, tuple(header + plot + legend),
-                 title=text.title or "Timeline", desc=describe(placement, scale, theme, text),
+                 title=text.title or "Timeline",
+                 desc=describe(placement, scale, theme, text) + (
+                     f" {overview.note}" if overview is not None else ""),
                  background=theme.background, font_family=theme.font_family)
 
 

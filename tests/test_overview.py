@@ -1,0 +1,99 @@
+"""The overview of a large table (issue 15): counts per group above the lanes of a part.
+
+Geometry is read from the scene. The counts drawn are those of `analysis.activity` (tested
+against published worked examples in tests/test_activity.py), so here the wiring is checked:
+the strips' bars stand for those numbers, every row is drawn, counted or reported, and the
+part chosen is the part drawn.
+"""
+from __future__ import annotations
+
+import pytest
+
+from timelines import Chart
+from timelines.chart.overview import FIRST_SHOWN, OVERVIEW_FROM, wanted
+from timelines.errors import UsageError
+from timelines.scene.primitives import Group, Rect, Text, find, walk
+
+
+def _table(tmp_path, count: int, groups: int = 3):
+    path = tmp_path / "t.csv"
+    rows = [f"R{i},{1600 + i % 200},{1610 + i % 200},g{i % groups},{'x' if i % 5 == 0 else 'y'}"
+            for i in range(count)]
+    path.write_text("label,start,end,group,kind\n" + "\n".join(rows) + "\n", encoding="utf-8")
+    return path
+
+
+def test_the_overview_comes_from_its_threshold_on_or_when_asked():
+    assert not wanted(OVERVIEW_FROM - 1, "auto") and wanted(OVERVIEW_FROM, "auto")
+    assert wanted(10, "yes") and not wanted(10 ** 6, "no")
+    with pytest.raises(UsageError):
+        wanted(10, "sometimes")
+
+
+def test_a_small_table_forced_into_the_overview(tmp_path):
+    chart = Chart(_table(tmp_path, 300), group="group").overview("yes")
+    arranged = chart.layout()
+    drawn = [p.record for _, g in arranged.placement.leaves() for p in g.records]
+    assert len(drawn) == FIRST_SHOWN
+    assert arranged.summarised == 300 - FIRST_SHOWN
+    # The first by start: no record left out starts before the last one drawn.
+    latest = max(r.span.start.earliest for r in drawn)
+    left = [r for r in arranged.loaded.records if r not in drawn]
+    assert all(r.span.start.earliest >= latest for r in left)
+    assert f"{300 - FIRST_SHOWN} counted in the overview only" in arranged.summary()
+    scene = chart.scene()
+    strips = find(scene, "overview")
+    assert len(strips) == 1
+    captions = [t.text for t in walk(strips[0].children)
+                if isinstance(t, Text) and "panel-title" in t.css_class]
+    assert captions == ["g0", "g1", "g2"]              # in the order the groups appear
+
+
+def test_the_strips_bars_are_the_activity_counts(tmp_path):
+    from timelines.analysis.activity import activity
+
+    chart = Chart(_table(tmp_path, 120, groups=1), group="group").overview("yes")
+    scene = chart.scene()
+    [strip] = find(scene, "overview")
+    panels = [p for p in walk(strip.children) if isinstance(p, Group) and p.css_class == "activity"]
+    bars = [p for panel in panels for p in walk(panel.children)
+            if isinstance(p, Rect) and "expected" in p.css_class]
+    per = "year" if "per year" in chart.layout().overview.note else "decade"
+    table = activity(chart.layout().loaded.records, per=per, group="group")
+    expected = [v for v in table["expected"].tolist() if v > 0]
+    heights = [bar.height for bar in sorted(bars, key=lambda b: b.x)]
+    # Heights are proportional to the counts: one scale for the panel.
+    ratios = {round(h / e, 6) for h, e in zip(heights, expected)}
+    assert len(heights) == len(expected) and len(ratios) == 1
+
+
+def test_where_and_first_choose_the_lanes(tmp_path):
+    chart = Chart(_table(tmp_path, 400), group="group").overview("yes", where="kind=x",
+                                                                  first=7)
+    arranged = chart.layout()
+    drawn = [p.record for _, g in arranged.placement.leaves() for p in g.records]
+    assert len(drawn) == 7 and all(dict(r.fields).get("kind", "x") == "x" for r in drawn)
+    assert "those with kind = x; the first 7 by start" in arranged.overview.note
+    with pytest.raises(UsageError, match="COLUMN=VALUE"):
+        Chart(_table(tmp_path, 10)).overview("yes", where="kind").layout()
+
+
+def test_the_window_is_marked_on_the_strips(tmp_path):
+    chart = Chart(_table(tmp_path, 400), group="group").overview("yes").window("1650", "1660")
+    scene = chart.scene()
+    [mark] = [p for p in walk(scene.children) if isinstance(p, Rect)
+              and "overview-window" in p.css_class]
+    assert mark.width > 0
+    drawn = [p.record for _, g in chart.layout().placement.leaves() for p in g.records]
+    assert drawn and all(r.span.possible_extent[1] >= 602_000 for r in drawn)
+
+
+def test_the_command_line_counts_every_row(tmp_path, capsys):
+    from timelines.cli import main
+
+    out = tmp_path / "o.svg"
+    assert main(["render", str(_table(tmp_path, 250)), "--group", "group", "--overview", "yes",
+                 "--first", "20", "-o", str(out)]) == 0
+    err = capsys.readouterr().err
+    assert "250 rows read: 20 drawn; 230 counted in the overview only (--overview)" in err
+    assert 'class="overview"' in out.read_text(encoding="utf-8")

@@ -8,7 +8,6 @@ from __future__ import annotations
 import json
 import sys
 
-from ..analysis.activity import PERIODS, activity
 from ..chart import Chart, ChartOptions, output_path, parse_window
 from ..chart.activity import save_activity
 from ..scene.theme import DEFAULT_THEME
@@ -34,6 +33,7 @@ def run_activity(args, parser) -> int:
     for problem in loaded.problems:
         commands._say(problem, file=sys.stderr)
     window = parse_window(args.window_from, args.window_to, settings)
+    from ..analysis.activity import activity   # pandas: loaded when counts are asked for
     table = activity(loaded.records, per=args.per, group="group" if args.group else None,
                      runs=args.runs, seed=args.seed, calendar=settings.calendar,
                      era=args.era, start=window and window.start, end=window and window.end)
@@ -117,6 +117,7 @@ def _print_notes(table: pandas.DataFrame, problems: int, say) -> None:
 
 
 def _period_name(per: str) -> str:
+    from ..analysis.activity import PERIODS
     return per if per in PERIODS else f"{per} years"
 
 

@@ -8,8 +8,6 @@ from __future__ import annotations
 import json
 import sys
 
-from ..analysis.relations import (ALLEN_RELATIONS, CRM_RELATIONS, CRM_SOURCE, contemporaries,
-                                  relate, relations_with)
 from ..chart import Chart, ChartOptions
 from ..dates import parse_endpoint
 from ..errors import DateError, UsageError, did_you_mean
@@ -17,6 +15,8 @@ from ..model import Record
 
 
 def run_relate(args, parser) -> int:
+    # pandas comes with the relations: loaded by this command only, not by every start.
+    from ..analysis.relations import contemporaries, relate, relations_with
     from . import commands    # the shared option readers; commands imports this module
     asked = [bool(args.b), bool(args.with_id), bool(args.on), bool(args.alongside)]
     if sum(asked) != 1 or (args.with_id or args.on or args.alongside) and args.a:
@@ -111,6 +111,7 @@ def _formulas_guarded(frame):
 
 
 def _write_relation(found, form: str, commands) -> None:
+    from ..analysis.relations import ALLEN_RELATIONS, CRM_RELATIONS
     if form == "json":
         print(json.dumps(found.as_dict(), ensure_ascii=False, indent=2))
     elif form == "csv":
@@ -128,6 +129,7 @@ def _write_relation(found, form: str, commands) -> None:
 
 
 def relation_lines(found) -> list[str]:
+    from ..analysis.relations import CRM_SOURCE
     """The answer in words: the certain relation or the possible ones, the CRM comparisons,
     and the probabilities with their method."""
     lines = [f"{found.a} {found.certain} {found.b} (certain)" if found.certain else

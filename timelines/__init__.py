@@ -22,7 +22,8 @@ before it:
 - `check`: counts and warnings; withholding possibly living persons' details.
 - `layout`: groups, lanes and labels in fixed days; the user's lane settings; the lanes report.
 - `scene`: scale, ticks, marks, legend -> a renderer-neutral `Scene` of primitives.
-- `render`: Scene -> SVG (svgwrite), PNG and PDF (matplotlib); drawing into one's own Axes.
+- `render`: Scene -> SVG (a streaming XML writer), PNG and PDF (matplotlib), an HTML explorer;
+  drawing into one's own Axes.
 - `chart`: the whole job in named steps and the `Chart` object; `cli`: a thin command line.
 
 matplotlib and pandas are imported only when something asks for them.

@@ -1,6 +1,7 @@
 """Renderers: a Scene in, a file out. Each knows only the scene's primitives.
 
-- `svg` (svgwrite; never imports matplotlib), with `outlines` for text as glyph paths;
+- `svg` (written as a stream by `xmlwriter`; never imports matplotlib), with `outlines`
+  for text as glyph paths; `html`, the explorer page (`explorer.js`, `explorer.css`);
 - `mpl` (matplotlib's object API) for PNG and PDF, with `png` writing Agg's pixels;
 - `axes`: the same marks drawn into a matplotlib Axes of the caller's, and a BCE-aware year
   locator and formatter for any Axes.
@@ -13,7 +14,6 @@ was.
 from __future__ import annotations
 
 import contextlib
-import io
 import os
 import tempfile
 from pathlib import Path
@@ -59,9 +59,8 @@ def write_to(scene: Scene, file: BinaryIO, suffix: str, dpi: float = 150.0,
              text: str = "text") -> None:
     """Write `scene` to a binary file object (a text one takes SVG only)."""
     if suffix == ".svg":
-        from .svg import render_svg
-        svg = render_svg(scene, text=text)
-        file.write(svg if isinstance(file, io.TextIOBase) else svg.encode("utf-8"))
+        from .svg import write_svg
+        write_svg(scene, file, text=text)    # piece by piece: memory bounded by the scene
     elif suffix == ".png":
         from .mpl import render_png
         render_png(scene, file, dpi=dpi)

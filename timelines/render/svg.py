@@ -1,31 +1,42 @@
-"""Scene -> SVG with svgwrite: small, deterministic, accessible, safe to embed.
+"""Scene -> SVG, written as a stream: small, deterministic, accessible, safe to embed.
 
-One `_draw_<kind>` per primitive, chosen from a dispatch table. Coordinates are written with one
-decimal, sizes of strokes and fonts with two, opacities with three, so the same scene always gives
-the same bytes. To keep large charts small, presentation every text of a class shares becomes one
-<style> rule scoped to the chart, and the fade most shapes of a top-level <g> share is set once on
-that <g>; every element keeps its class. Every user string is escaped by ElementTree (through
-svgwrite) and cleaned of characters XML 1.0 forbids; colours are checked, so a scene can never
-smuggle in script, event handlers or an external reference. This module never imports
-matplotlib: the SVG path must start fast.
+One `_draw_<kind>` per primitive, chosen from a dispatch table, writes its element straight to
+an XMLWriter (render/xmlwriter.py): no element objects and no tree, so a chart of 100,000
+records costs the memory of its scene, not of its document. The <defs> gradients and the
+<style> rules come before the first shape, so a quick survey of the scene finds them first.
+
+Coordinates are written with one decimal, sizes of strokes and fonts with two, opacities with
+three, so the same scene always gives the same bytes. Presentation every text of a class
+shares becomes one <style> rule scoped to the chart; every element keeps its class. Every user
+string is escaped and cleaned of characters XML 1.0 forbids; colours are checked, so a scene
+can never smuggle in script, event handlers or an external reference. This module never
+imports matplotlib: the SVG path must start fast.
+
+svgwrite is no longer used at run time: one Python object per element, serialised through
+ElementTree at the end, took most of a 100,000-record run and over a gigabyte. The bytes are
+still the ones it wrote: attributes sorted by name, empty values left out, ElementTree's
+escaping, `/>` for empty elements, none of the root attributes it adds that nothing here uses
+(xmlns:xlink, xmlns:ev, baseProfile).
 """
 from __future__ import annotations
 
+import functools
 import hashlib
+import io
 import math
 import re
 import unicodedata
 from dataclasses import dataclass, field
 from pathlib import Path
-from xml.etree import ElementTree
-
-import svgwrite
-from svgwrite.base import Desc, Title
+from typing import IO
 
 from timelines.scene.fonts import font_list
 from timelines.scene.primitives import (
     TEXT_MODES, GradientRect, Group, Line, Polygon, Rect, Scene, Text, clean_text, drawable_text,
+    walk,
 )
+
+from .xmlwriter import XMLWriter
 
 # The chart's <title> and <desc> ids: these prefixes and a digest of the two texts, so that
 # two different charts inlined in one HTML page do not share an id (the same chart always
@@ -34,11 +45,7 @@ TITLE_ID = "timelines-title-"
 DESC_ID = "timelines-desc-"
 ROOT_ID_PREFIX = "timelines-chart-"     # the root's id, when it has a style sheet to scope
 GRADIENT_ID_PREFIX = "f"                # scene ids are group-N and panel-N: no clash
-# Root attributes svgwrite always writes and nothing here needs: no element uses a name in the
-# xlink or xml-events namespace (no href, no handlers), and baseProfile is metadata without any
-# processing restriction, absent meaning "none" (SVG 1.1 Second Edition, the 'svg' element;
-# SVG 2 drops it; MDN's baseProfile page).
-_UNUSED_ROOT_ATTRIBUTES = ("xmlns:xlink", "xmlns:ev", "baseProfile")
+SVG_NAMESPACE = "http://www.w3.org/2000/svg"
 _BASE36 = "0123456789abcdefghijklmnopqrstuvwxyz"
 # Metric-compatible fallbacks after the scene's font, so text measured for DejaVu Sans fits.
 FONT_FALLBACKS = ("Bitstream Vera Sans", "sans-serif")
@@ -47,6 +54,7 @@ XML_DECLARATION = '<?xml version="1.0" encoding="utf-8"?>\n'
 
 # Hex colours and CSS colour keywords only: nothing that could be url(...) or a script.
 _COLOUR = re.compile(r"#[0-9a-fA-F]{3}(?:[0-9a-fA-F]{3})?|[a-zA-Z]{1,40}")
+_BLACK = ("#000000", "#000", "black")     # a text's initial fill: not written
 _FONT_NAME_UNSAFE = re.compile(r"[^\w \-]")
 # Class names that may go into a CSS selector as they are (no escaping needed).
 _CSS_IDENT = re.compile(r"-?[_a-zA-Z][_a-zA-Z0-9-]*")
@@ -59,85 +67,100 @@ COORDINATE_DECIMALS = 1
 _TEXT_STYLES = ("fill", "font-weight", "font-style", "text-anchor")
 
 
-def render_svg(scene: Scene, *, text: str = "text") -> str:
+def render_svg(scene: Scene, *, text: str = "text", file: IO | None = None) -> str | None:
     """The scene as a complete SVG document (with XML declaration).
 
     `text="paths"` draws every text as glyph outlines instead of `<text>` (for print shops
-    without the font); labels stay readable in each record's `<title>`."""
+    without the font); labels stay readable in each record's `<title>`. With `file` (a text or
+    binary file object) the document is written there piece by piece, UTF-8 in a binary file,
+    and None returned; a scene that cannot be drawn (a bad colour, a coordinate that is not
+    finite) raises part-way, leaving a partial document there."""
+    if file is None:
+        chunks: list[str] = []
+        _write_document(scene, chunks.append, text)
+        return "".join(chunks)
+    if isinstance(file, io.TextIOBase):
+        _write_document(scene, file.write, text)
+    else:
+        _write_document(scene, lambda chunk: file.write(chunk.encode("utf-8")), text)
+    return None
+
+
+def write_svg(scene: Scene, file: str | Path | IO, *, text: str = "text") -> None:
+    """Write the scene to a file object as `render_svg(..., file=file)` does, or to a path as
+    UTF-8 with LF line ends on every platform, whole or not at all (render.replacing)."""
+    if hasattr(file, "write"):
+        render_svg(scene, text=text, file=file)
+        return
+    from . import replacing
+
+    with replacing(Path(file)) as binary:
+        render_svg(scene, text=text, file=binary)
+
+
+def _write_document(scene: Scene, write, text: str) -> None:
+    """The document through `write`; every check that concerns the whole chart is made
+    before the first piece is written."""
     digest = _chart_digest(scene)
-    context = _Context(_new_drawing(scene, digest),
-                       outlines=_choice(text, TEXT_MODES) == "paths", id_suffix=digest,
-                       font_family=scene.font_family)
+    width, height = _number(scene.width), _number(scene.height)
+    background = None if scene.background is None else _colour(scene.background)
+    outlines = _choice(text, TEXT_MODES) == "paths"
+    gradients, texts = _survey(scene, outlines)
+    rules = _text_style_rules(texts)
+    sheet = _style_sheet(rules) if rules else None
+    writer = XMLWriter(write)
+    context = _Context(writer, {key: name for key, (name, _) in gradients.items()}, rules,
+                       outlines, id_suffix=digest, font_family=scene.font_family)
+    writer.raw(XML_DECLARATION)
+    writer.start("svg", _root_attributes(scene, width, height, digest, sheet))
+    _describe_chart(writer, scene, digest)
+    if sheet is not None:
+        writer.element("style", (), sheet[1])
+    if gradients:
+        _write_gradients(writer, gradients)
+    if background is not None:
+        writer.element("rect", (("class", "background"), ("fill", background),
+                                ("height", height), ("width", width), ("x", "0"), ("y", "0")))
     for item in scene.children:
-        _draw_into(context.drawing, item, context)
-    if not context.gradients:
-        context.drawing.elements.remove(context.drawing.defs)
-    rules = _text_style_rules(context.texts)
-    if rules:
-        context.drawing["id"], sheet = _style_sheet(rules)
-        heading = sum(isinstance(e, Title) for e in context.drawing.elements[:3])
-        context.drawing.elements.insert(heading, _StyleSheet(sheet))
-    return XML_DECLARATION + _serialise(context.drawing) + "\n"
-
-
-def _serialise(drawing: svgwrite.Drawing) -> str:
-    """The drawing's XML as svgwrite builds it, less the root attributes nothing uses."""
-    root = drawing.get_xml()
-    for name in _UNUSED_ROOT_ATTRIBUTES:
-        root.attrib.pop(name, None)
-    # ElementTree writes empty elements as "<x />"; "/>" is the same XML. Text and attribute
-    # values have ">" escaped, so the replacement can only meet the ends of tags.
-    return ElementTree.tostring(root, encoding="unicode").replace(" />", "/>")
-
-
-def write_svg(scene: Scene, path: str | Path, *, text: str = "text") -> None:
-    """Write the scene to `path` as UTF-8 SVG with LF line ends on every platform."""
-    Path(path).write_bytes(render_svg(scene, text=text).encode("utf-8"))
+        _DRAW[type(item)](item, context)
+    writer.end()
+    writer.raw("\n")
+    writer.close()
 
 
 @dataclass(slots=True)
 class _Context:
-    """The drawing being built and the gradients already defined in it (key -> id)."""
+    """The writer, and what the survey found that each element needs: gradient ids by key and
+    the (classes, property) pairs a style rule sets."""
 
-    drawing: svgwrite.Drawing
-    gradients: dict[tuple[str, int, int], str] = field(default_factory=dict)
+    writer: XMLWriter
+    gradients: dict[tuple, str] = field(default_factory=dict)
+    rules: dict[tuple[frozenset, str], str] = field(default_factory=dict)
     outlines: bool = False          # draw text as glyph outlines
-    texts: list = field(default_factory=list)       # the <text> elements, for _text_style_rules
     id_suffix: str = ""             # ends every scene id (_chart_digest)
     font_family: str | None = None  # the scene's families, for text drawn as outlines
+    fills: dict[tuple, str] = field(default_factory=dict)   # a fade as drawn -> its url(#id)
 
 
-def _new_drawing(scene: Scene, digest: str) -> svgwrite.Drawing:
-    width, height = _number(scene.width), _number(scene.height)
-    drawing = svgwrite.Drawing(
-        size=(width, height), viewBox=f"0 0 {width} {height}", profile="full", debug=False,
-    )
-    drawing["role"] = "img"
-    drawing["font-family"] = font_family_list(scene.font_family)
-    _describe_chart(drawing, scene, digest)
-    if scene.background is not None:
-        drawing.add(drawing.rect(
-            size=(width, height), fill=_colour(scene.background), class_="background",
-        ))
-    return drawing
+def _root_attributes(scene: Scene, width: str, height: str, digest: str,
+                     sheet: tuple[str, str] | None) -> tuple:
+    labels = TITLE_ID + digest + (f" {DESC_ID}{digest}" if scene.desc else "")
+    return (("aria-labelledby", labels), ("font-family", font_family_list(scene.font_family)),
+            ("height", height), ("id", sheet and sheet[0]), ("role", "img"),
+            ("version", "1.1"), ("viewBox", f"0 0 {width} {height}"), ("width", width),
+            ("xmlns", SVG_NAMESPACE))
 
 
-def _describe_chart(drawing: svgwrite.Drawing, scene: Scene, digest: str) -> None:
+def _describe_chart(writer: XMLWriter, scene: Scene, digest: str) -> None:
     """Chart-level <title>/<desc> first in the root, named by aria-labelledby (SVG-AAM); their
-    ids end with the chart's digest."""
-    labels = [TITLE_ID + digest]
-    title = Title(clean_text(scene.title))
-    title.xml.set("id", labels[0])
-    drawing.elements.insert(0, title)
+    ids end with the chart's digest. Then the metadata, as plain `key: value` lines: readable,
+    and no foreign namespace needed."""
+    writer.element("title", (("id", TITLE_ID + digest),), clean_text(scene.title))
     if scene.desc:
-        desc = Desc(clean_text(scene.desc))
-        labels.append(DESC_ID + digest)
-        desc.xml.set("id", labels[1])
-        drawing.elements.insert(1, desc)
-    drawing["aria-labelledby"] = " ".join(labels)
+        writer.element("desc", (("id", DESC_ID + digest),), clean_text(scene.desc))
     if scene.metadata:
         lines = (f"{clean_text(key)}: {clean_text(value)}" for key, value in scene.metadata)
-        drawing.elements.insert(len(labels), _MetadataText("\n".join(lines)))
+        writer.element("metadata", (), "\n".join(lines))
 
 
 def _chart_digest(scene: Scene) -> str:
@@ -147,188 +170,198 @@ def _chart_digest(scene: Scene) -> str:
     return hashlib.sha256(text.encode()).hexdigest()[:10]
 
 
-class _MetadataText(Title):
-    """<metadata> as plain `key: value` lines: readable, and no foreign namespace needed."""
+# --- the survey: what must be written before the first shape --------------------------------
 
-    elementname = "metadata"
-
-
-class _StyleSheet(Title):
-    """<style> with CSS rules only this module writes (classes and checked values)."""
-
-    elementname = "style"
-
-
-def _style_sheet(rules: list[tuple[str, str]]) -> tuple[str, str]:
-    """(root id, CSS) with every rule scoped to this chart: a <style> in an SVG inlined in an
-    HTML page applies to the whole page, so an unscoped `text.label` rule would restyle the
-    other charts there. The id comes from the rules, so charts whose rules differ never share
-    one, and the same chart always gets the same id."""
-    text = "".join(f"{selector}{{{declarations}}}" for selector, declarations in rules)
-    root_id = f"{ROOT_ID_PREFIX}{hashlib.sha256(text.encode()).hexdigest()[:12]}"
-    return root_id, "".join(f"#{root_id} {selector}{{{declarations}}}"
-                            for selector, declarations in rules)
+def _survey(scene: Scene, outlines: bool) -> tuple[dict[tuple, tuple[str, str]], tuple]:
+    """(gradient key -> (id, colour) in order of first use, (styles, class sets) of the drawn
+    texts: see _survey_text). A primitive that cannot be drawn is passed over here: drawing it
+    raises, at the same primitive."""
+    gradients: dict[tuple, tuple[str, str]] = {}
+    texts: tuple[dict, set] = ({}, set())
+    for item in walk(scene.children):
+        try:
+            if isinstance(item, GradientRect) and item.width > 0 and item.height > 0:
+                key, colour = _gradient_key(item)
+                if key not in gradients:
+                    gradients[key] = (_gradient_name(key), colour)
+            elif isinstance(item, Text) and not outlines and drawable_text(item.text):
+                _survey_text(item, *texts)
+        except (ValueError, TypeError, AttributeError):
+            continue
+    return gradients, texts
 
 
-def _text_style_rules(texts: list) -> list[tuple[str, str]]:
-    """(selector `text.a.b`, declarations `prop:value;...`) for the presentation every text of
-    class "a b" shares, with those attributes taken off the texts. A rule for classes T also
-    matches texts whose classes include T; those must then have their own, more specific rule
-    for that property (CSS 2.1 section 6.4.3: more classes win), else the rule is dropped."""
-    rules = _shared_text_styles(texts)
-    classes = {_class_set(text) for text in texts}
+def _survey_text(text: Text, styles: dict[tuple[frozenset, str], set],
+                 class_sets: set[frozenset]) -> None:
+    """Adds the text's class set to `class_sets` and, when those classes can go into a
+    selector, the value it gives each property (None: left out) to `styles`."""
+    classes = _class_set(text.css_class)
+    class_sets.add(classes)
+    if classes and all(_CSS_IDENT.fullmatch(name) for name in classes):
+        for prop, value in zip(_TEXT_STYLES, _text_styles(text)):
+            styles.setdefault((classes, prop), set()).add(value)
+
+
+def _text_style_rules(texts: tuple[dict, set]) -> dict[tuple[frozenset, str], str]:
+    """(classes, property) -> value, where every text of those classes sets that value; each
+    is one style rule, and left off those texts. A rule for classes T also matches texts
+    whose classes include T; those must then have their own, more specific rule for that
+    property (CSS 2.1 section 6.4.3: more classes win), else the rule is dropped."""
+    styles, class_sets = texts
+    rules = {key: next(iter(found)) for key, found in styles.items()
+             if len(found) == 1 and None not in found}
     while dropped := {(cls, prop) for cls, prop in rules if any(
-            cls < other and (other, prop) not in rules for other in classes)}:
+            cls < other and (other, prop) not in rules for other in class_sets)}:
         rules = {key: value for key, value in rules.items() if key not in dropped}
-    for text in texts:
-        for prop in _TEXT_STYLES:
-            if (_class_set(text), prop) in rules:
-                del text.attribs[prop]
+    return rules
+
+
+def _style_sheet(rules: dict[tuple[frozenset, str], str]) -> tuple[str, str]:
+    """(root id, CSS): one rule `text.a.b{prop:value;...}` per class set, scoped to this chart:
+    a <style> in an SVG inlined in an HTML page applies to the whole page, so an unscoped
+    `text.label` rule would restyle the other charts there. The id comes from the rules, so
+    charts whose rules differ never share one, and the same chart always gets the same id."""
     declarations: dict[frozenset, list[str]] = {}
     for (classes, prop), value in sorted(rules.items(), key=lambda rule: rule[0][1]):
         declarations.setdefault(classes, []).append(f"{prop}:{value}")
-    return [(f"text.{'.'.join(sorted(classes))}", ";".join(declarations[classes]))
-            for classes in sorted(declarations, key=lambda c: (len(c), sorted(c)))]
+    selected = [(f"text.{'.'.join(sorted(classes))}", ";".join(declarations[classes]))
+                for classes in sorted(declarations, key=lambda c: (len(c), sorted(c)))]
+    text = "".join(f"{selector}{{{body}}}" for selector, body in selected)
+    root_id = f"{ROOT_ID_PREFIX}{hashlib.sha256(text.encode()).hexdigest()[:12]}"
+    return root_id, "".join(f"#{root_id} {selector}{{{body}}}" for selector, body in selected)
 
 
-def _shared_text_styles(texts: list) -> dict[tuple[frozenset, str], str]:
-    """(classes, property) -> value, where every text of those classes sets that value."""
-    values: dict[tuple[frozenset, str], set] = {}
-    for text in texts:
-        classes = _class_set(text)
-        if classes and all(_CSS_IDENT.fullmatch(name) for name in classes):
-            for prop in _TEXT_STYLES:
-                values.setdefault((classes, prop), set()).add(text.attribs.get(prop))
-    return {key: found.pop() for key, found in values.items()
-            if len(found) == 1 and None not in found}
+# --- gradients ------------------------------------------------------------------------------
 
-
-def _class_set(element) -> frozenset:
-    return frozenset(element.attribs.get("class", "").split())
-
-
-def _draw_into(parent, item, context: _Context) -> None:
-    element = _DRAW[type(item)](item, context)
-    if element is not None:
-        parent.add(element)
-
-
-def _draw_rect(rect: Rect, context: _Context):
-    if rect.width <= 0 or rect.height <= 0:
-        return None  # SVG draws nothing for a zero size and rejects a negative one
-    (x, width), (y, height) = _extent(rect.x, rect.width), _extent(rect.y, rect.height)
-    element = context.drawing.rect(
-        insert=(x, y), size=(width, height),
-        fill=_paint(rect.fill),
-    )
-    _set_stroke(element, rect.stroke, rect.stroke_width)
-    _set_common(element, rect.opacity, rect.css_class)
-    return element
-
-
-def _draw_gradient_rect(rect: GradientRect, context: _Context):
-    if rect.width <= 0 or rect.height <= 0:
-        return None  # a bounding-box gradient on a zero-width box is an error in SVG
-    (x, width), (y, height) = _extent(rect.x, rect.width), _extent(rect.y, rect.height)
-    element = context.drawing.rect(
-        insert=(x, y), size=(width, height),
-        fill=f"url(#{_gradient_id(rect, context)})",
-    )
-    _set_common(element, 1.0, rect.css_class)
-    return element
-
-
-def _gradient_id(rect: GradientRect, context: _Context) -> str:
-    """One <linearGradient> per (colour, left, right opacity): identical fades share a def.
-    A fade through many stops is named by a digest of them."""
+def _gradient_key(rect: GradientRect) -> tuple[tuple, str]:
+    """(key, colour): identical fades (one colour, any case, and the same per-mille stops)
+    share one <linearGradient>; the colour as the first rect of a fade spells it."""
     colour = _colour(rect.fill)
     if rect.stops:
-        return _stops_gradient_id(colour, rect.stops, context)
-    key = (colour.lower(), _per_mille(rect.opacity_left), _per_mille(rect.opacity_right))
-    if key not in context.gradients:
-        gradient_id = _gradient_name(*key)
-        gradient = context.drawing.linearGradient(start=(0, 0), end=(1, 0), id=gradient_id)
-        gradient.add_stop_color(0, colour, _number(key[1] / 1000, 3))
-        gradient.add_stop_color(1, colour, _number(key[2] / 1000, 3))
-        context.drawing.defs.add(gradient)
-        context.gradients[key] = gradient_id
-    return context.gradients[key]
+        return (colour.lower(), tuple(_per_mille(value) for value in rect.stops)), colour
+    return (colour.lower(), _per_mille(rect.opacity_left), _per_mille(rect.opacity_right)), colour
 
 
-def _stops_gradient_id(colour: str, stops: tuple[float, ...], context: _Context) -> str:
-    per_mille = tuple(_per_mille(value) for value in stops)
-    key = (colour.lower(), per_mille)
-    if key not in context.gradients:
-        digest = hashlib.sha256(repr(key).encode()).hexdigest()[:12]
-        gradient_id = f"{GRADIENT_ID_PREFIX}s{digest}"
-        gradient = context.drawing.linearGradient(start=(0, 0), end=(1, 0), id=gradient_id)
-        last = len(per_mille) - 1
-        for index, value in enumerate(per_mille):
-            gradient.add_stop_color(_number(index / last, 4), colour, _number(value / 1000, 3))
-        context.drawing.defs.add(gradient)
-        context.gradients[key] = gradient_id
-    return context.gradients[key]
-
-
-def _gradient_name(colour: str, left: int, right: int) -> str:
+def _gradient_name(key: tuple) -> str:
     """A short id that still spells out its fade: the colour's hex digits (a CSS name after a
     '-', which no hex digit is), then each per-mille opacity as two base-36 digits (1000 < 36²).
     Fringes repeat the id on every bar, so its length counts; and as it is one id per content,
-    two charts inlined in one HTML page that both define it define the same fade."""
+    two charts inlined in one HTML page that both define it define the same fade. A fade
+    through many stops is named by a digest of them."""
+    if len(key) == 2:
+        return f"{GRADIENT_ID_PREFIX}s{hashlib.sha256(repr(key).encode()).hexdigest()[:12]}"
+    colour, left, right = key
     name = colour[1:] if colour.startswith("#") else f"-{colour}"
     return GRADIENT_ID_PREFIX + name + "".join(
         _BASE36[digit] for value in (left, right) for digit in divmod(value, 36))
 
 
-def _draw_line(line: Line, context: _Context):
-    element = context.drawing.line(
-        start=(_coordinate(line.x1), _coordinate(line.y1)),
-        end=(_coordinate(line.x2), _coordinate(line.y2)),
-    )
-    _set_stroke(element, line.stroke, line.stroke_width)
-    if line.dash:
-        element["stroke-dasharray"] = " ".join(_number(d) for d in line.dash)
-    _set_common(element, line.opacity, line.css_class)
-    return element
+def _stops(key: tuple) -> list[tuple[str, int]]:
+    """(offset, per-mille opacity) of each stop of a fade: its two ends, or its many stops
+    spaced evenly from the left edge to the right."""
+    if len(key) == 3:
+        return [("0", key[1]), ("1", key[2])]
+    last = len(key[1]) - 1
+    return [(_number(index / last, 4), value) for index, value in enumerate(key[1])]
 
 
-def _draw_polygon(polygon: Polygon, context: _Context):
+def _write_gradients(writer: XMLWriter, gradients: dict[tuple, tuple[str, str]]) -> None:
+    """<defs> with one left-to-right <linearGradient> per fade, in order of first use."""
+    writer.start("defs")
+    for key, (gradient_id, colour) in gradients.items():
+        writer.start("linearGradient", (("id", gradient_id), ("x1", "0"), ("x2", "1"),
+                                        ("y1", "0"), ("y2", "0")))
+        for offset, per_mille in _stops(key):
+            writer.element("stop", (("offset", offset), ("stop-color", colour),
+                                    ("stop-opacity", _number(per_mille / 1000, 3))))
+        writer.end()
+    writer.end()
+
+
+# --- the primitives -------------------------------------------------------------------------
+
+def _draw_rect(rect: Rect, context: _Context) -> None:
+    if rect.width <= 0 or rect.height <= 0:
+        return  # SVG draws nothing for a zero size and rejects a negative one
+    (x, width), (y, height) = _extent(rect.x, rect.width), _extent(rect.y, rect.height)
+    fill = _paint(rect.fill)
+    stroke, stroke_width = _stroke(rect.stroke, rect.stroke_width)
+    context.writer.element("rect", (
+        ("class", _class(rect.css_class)), ("fill", fill), ("height", height),
+        ("opacity", _opacity(rect.opacity)), ("stroke", stroke), ("stroke-width", stroke_width),
+        ("width", width), ("x", x), ("y", y)))
+
+
+def _draw_gradient_rect(rect: GradientRect, context: _Context) -> None:
+    if rect.width <= 0 or rect.height <= 0:
+        return  # a bounding-box gradient on a zero-width box is an error in SVG
+    (x, width), (y, height) = _extent(rect.x, rect.width), _extent(rect.y, rect.height)
+    fade = (rect.fill, rect.opacity_left, rect.opacity_right, tuple(rect.stops))
+    fill = context.fills.get(fade)
+    if fill is None:    # not drawn before: find its gradient (the colour checked once)
+        fill = context.fills[fade] = f"url(#{context.gradients[_gradient_key(rect)[0]]})"
+    context.writer.element("rect", (
+        ("class", _class(rect.css_class)), ("fill", fill), ("height", height),
+        ("width", width), ("x", x), ("y", y)))
+
+
+def _draw_line(line: Line, context: _Context) -> None:
+    x1, y1 = _coordinate(line.x1), _coordinate(line.y1)
+    x2, y2 = _coordinate(line.x2), _coordinate(line.y2)
+    stroke, stroke_width = _stroke(line.stroke, line.stroke_width)
+    dash = " ".join(_number(d) for d in line.dash) if line.dash else None
+    context.writer.element("line", (
+        ("class", _class(line.css_class)), ("opacity", _opacity(line.opacity)),
+        ("stroke", stroke), ("stroke-dasharray", dash), ("stroke-width", stroke_width),
+        ("x1", x1), ("x2", x2), ("y1", y1), ("y2", y2)))
+
+
+def _draw_polygon(polygon: Polygon, context: _Context) -> None:
     if not polygon.points:
-        return None
-    points = [(_coordinate(x), _coordinate(y)) for x, y in polygon.points]
-    if polygon.closed:
-        element = context.drawing.polygon(points, fill=_paint(polygon.fill))
-    else:
-        element = context.drawing.polyline(points, fill="none")  # an open polyline is stroke only
-    _set_stroke(element, polygon.stroke, polygon.stroke_width)
-    _set_common(element, polygon.opacity, polygon.css_class)
-    return element
+        return
+    points = " ".join(f"{_coordinate(x)},{_coordinate(y)}" for x, y in polygon.points)
+    # an open polyline is stroke only
+    fill = _paint(polygon.fill) if polygon.closed else "none"
+    stroke, stroke_width = _stroke(polygon.stroke, polygon.stroke_width)
+    context.writer.element("polygon" if polygon.closed else "polyline", (
+        ("class", _class(polygon.css_class)), ("fill", fill),
+        ("opacity", _opacity(polygon.opacity)), ("points", points), ("stroke", stroke),
+        ("stroke-width", stroke_width)))
 
 
-def _draw_text(text: Text, context: _Context):
+def _draw_text(text: Text, context: _Context) -> None:
     content = drawable_text(text.text)
     if not content:
-        return None
+        return
     if context.outlines:
-        return _draw_text_outline(text, content, context)
-    element = context.drawing.text(
-        _isolated(content), insert=(_coordinate(text.x), _coordinate(text.y)), font_size=_number(text.size),
-    )
-    # Defaults are left out (SVG's own initial values) to keep large charts small.
-    if text.anchor != "start":
-        element["text-anchor"] = _choice(text.anchor, ("start", "middle", "end"))
-    if text.weight != "normal":
-        element["font-weight"] = _choice(text.weight, ("normal", "bold"))
-    if text.style != "normal":
-        element["font-style"] = _choice(text.style, ("normal", "italic", "oblique"))
-    if text.fill.lower() not in ("#000000", "#000", "black"):
-        element["fill"] = _colour(text.fill)
-    _set_common(element, 1.0, text.css_class)
-    context.texts.append(element)
-    return element
+        _draw_text_outline(text, content, context)
+        return
+    x, y, size = _coordinate(text.x), _coordinate(text.y), _number(text.size)
+    css_class = _class(text.css_class)
+    fill, weight, style, anchor = _text_styles(text)
+    if context.rules:       # presentation a style rule gives this text's classes is left off
+        classes = _class_set(text.css_class)
+        fill, weight, style, anchor = (
+            None if (classes, prop) in context.rules else value
+            for prop, value in zip(_TEXT_STYLES, (fill, weight, style, anchor)))
+    context.writer.element("text", (
+        ("class", css_class), ("fill", fill), ("font-size", size), ("font-style", style),
+        ("font-weight", weight), ("text-anchor", anchor), ("x", x), ("y", y)),
+        _isolated(content))
 
 
-def _draw_text_outline(text: Text, content: str, context: _Context):
+def _text_styles(text: Text) -> tuple[str | None, ...]:
+    """The presentation attributes of a text in _TEXT_STYLES order, None where it keeps SVG's
+    initial value (left out to keep large charts small)."""
+    anchor = _choice(text.anchor, ("start", "middle", "end")) if text.anchor != "start" else None
+    weight = _choice(text.weight, ("normal", "bold")) if text.weight != "normal" else None
+    style = (_choice(text.style, ("normal", "italic", "oblique"))
+             if text.style != "normal" else None)
+    fill = None if text.fill.lower() in _BLACK else _colour(text.fill)
+    return fill, weight, style, anchor
+
+
+def _draw_text_outline(text: Text, content: str, context: _Context) -> None:
     from .outlines import outliner  # fontTools only when outlines are asked for
 
     weight = _choice(text.weight, ("normal", "bold"))
@@ -336,24 +369,21 @@ def _draw_text_outline(text: Text, content: str, context: _Context):
     data = outliner(weight).path_data(content, text.x, text.y, text.size, anchor,
                                       context.font_family)
     if not data:
-        return None     # only spaces
-    element = context.drawing.path(d=data)
-    if text.fill.lower() not in ("#000000", "#000", "black"):
-        element["fill"] = _colour(text.fill)
-    _set_common(element, 1.0, text.css_class)
-    return element
+        return     # only spaces
+    fill = None if text.fill.lower() in _BLACK else _colour(text.fill)
+    context.writer.element("path", (
+        ("class", _class(text.css_class)), ("d", data), ("fill", fill)))
 
 
-def _draw_group(group: Group, context: _Context):
-    element = context.drawing.g()
-    _set_common(element, 1.0, group.css_class)
-    if group.id:
-        element["id"] = f"{clean_text(group.id)}-{context.id_suffix}"
+def _draw_group(group: Group, context: _Context) -> None:
+    writer = context.writer
+    group_id = f"{clean_text(group.id)}-{context.id_suffix}" if group.id else None
+    writer.start("g", (("class", _class(group.css_class)), ("id", group_id)))
     if group.title:
-        element.elements.append(Title(clean_text(group.title)))  # the record's tooltip
+        writer.element("title", (), clean_text(group.title))  # the record's tooltip
     for child in group.children:
-        _draw_into(element, child, context)
-    return element
+        _DRAW[type(child)](child, context)
+    writer.end()
 
 
 _DRAW = {
@@ -366,17 +396,28 @@ _DRAW = {
 }
 
 
-def _set_stroke(element, stroke: str | None, width: float) -> None:
+# --- values ---------------------------------------------------------------------------------
+
+def _stroke(stroke: str | None, width: float) -> tuple[str | None, str | None]:
     if stroke is not None and width > 0:
-        element["stroke"] = _colour(stroke)
-        element["stroke-width"] = _number(width)
+        return _colour(stroke), _number(width)
+    return None, None
 
 
-def _set_common(element, opacity: float, css_class: str) -> None:
-    if opacity < 1:
-        element["opacity"] = _number(max(opacity, 0.0), 3)
-    if css_class:
-        element["class"] = clean_text(css_class)
+def _opacity(opacity: float) -> str | None:
+    return _number(max(opacity, 0.0), 3) if opacity < 1 else None
+
+
+# A chart repeats a few class lists on every record: each is cleaned once.
+@functools.lru_cache(maxsize=1024)
+def _class(css_class: str) -> str:
+    """The class attribute's value: the scene's class list, cleaned."""
+    return clean_text(css_class) if css_class else ""
+
+
+@functools.lru_cache(maxsize=1024)
+def _class_set(css_class: str) -> frozenset:
+    return frozenset(_class(css_class).split())
 
 
 def font_family_list(font_family: str) -> str:

@@ -4,14 +4,21 @@
     python benchmarks/bench_render.py [N] [svg|png ...]    (default 100,000; both formats)
 
 Prints seconds, bytes and the ratios ours / matplotlib's. A script, not a test: timings on a
-shared machine are noisy, so compare the ratios printed by one run. matplotlib's Agg draws
-images under 2^16 pixels a side, so a PNG of this benchmark's spans stops at about 6,000
-of them at 150 dpi, ours and matplotlib's alike; SVG has no such bound.
+shared machine are noisy, so compare the ratios printed by one run.
+
+Each side of the PNG runs in a Python process of its own, which reports its time; its peak
+memory (resident set) is read when it ends (`os.wait4`). matplotlib's side holds the whole
+page as one Agg canvas (N = 100,000 at 150 dpi: 1,500 x 967,000 px, 5.8 GB), and Agg draws
+nothing over 2^23 px a side (2^16 before matplotlib 3.10, its pull request 28904: about 6,000
+spans at 150 dpi). Ours draws and writes the PNG in bands of rows
+(`timelines.render.mpl.PNG_BAND_HEIGHT`): its memory follows the band, and no page is too
+tall for it.
 """
 from __future__ import annotations
 
 import os
 import random
+import subprocess
 import sys
 import tempfile
 import time
@@ -75,7 +82,46 @@ def matplotlib_bars(scene, rows, path: Path, dpi: float) -> None:
     figure.savefig(path, dpi=dpi, metadata=metadata)
 
 
+def png_side(side: str, n: int, path: Path) -> None:
+    """One side of the PNG run, in a process of its own: prints its seconds."""
+    records = make_records(n)
+    if side == "ours":   # ours end to end: layout and scene included, as a user's run
+        seconds = timed(lambda: write(build_scene(records), path, dpi=DPI))
+    else:
+        scene = build_scene(records)
+        rows = bar_rows(scene)
+        seconds = timed(lambda: matplotlib_bars(scene, rows, path, DPI))
+    print(seconds)
+
+
+def in_child(side: str, n: int, path: Path) -> tuple[float, float]:
+    """(seconds, peak resident GB) of `png_side` run in a fresh Python process."""
+    child = subprocess.Popen([sys.executable, __file__, "--png-side", side, str(n), str(path)],
+                             stdout=subprocess.PIPE, text=True)
+    output = child.stdout.read()
+    _, status, usage = os.wait4(child.pid, 0)
+    child.returncode = os.waitstatus_to_exitcode(status)
+    if child.returncode:
+        raise SystemExit(f"{side}: the PNG failed (exit {child.returncode})")
+    return float(output.split()[-1]), usage.ru_maxrss / 1e6   # ru_maxrss is in KiB on Linux
+
+
+def compare_png(n: int, folder: Path) -> None:
+    ours, theirs = folder / "ours.png", folder / "theirs.png"
+    our_time, our_memory = in_child("ours", n, ours)
+    their_time, their_memory = in_child("theirs", n, theirs)
+    our_size, their_size = os.path.getsize(ours), os.path.getsize(theirs)
+    print(f"png: ours {our_time:.2f} s, {our_size / 1e6:.1f} MB, peak {our_memory:.2f} GB; "
+          f"matplotlib broken_barh {their_time:.2f} s, {their_size / 1e6:.1f} MB, "
+          f"peak {their_memory:.2f} GB; time ratio {our_time / their_time:.2f}, "
+          f"size ratio {our_size / their_size:.2f}, memory ratio "
+          f"{our_memory / their_memory:.2f}")
+
+
 def main() -> None:
+    if sys.argv[1:2] == ["--png-side"]:
+        png_side(sys.argv[2], int(sys.argv[3]), Path(sys.argv[4]))
+        return
     n = int(sys.argv[1]) if len(sys.argv) > 1 else 100_000
     formats = [f".{name}" for name in sys.argv[2:]] or [".svg", ".png"]
     records = make_records(n)
@@ -85,6 +131,9 @@ def main() -> None:
     rows = bar_rows(scene)
     print(f"page {scene.width:.0f} x {scene.height:.0f} px, {sum(map(len, rows.values())):,} bars")
     for suffix in formats:
+        if suffix == ".png":
+            compare_png(n, folder)
+            continue
         ours, theirs = folder / f"ours{suffix}", folder / f"theirs{suffix}"
         # ours end to end: layout and scene included, as a user's run
         our_time = timed(lambda: write(build_scene(records), ours, dpi=DPI))

@@ -397,7 +397,9 @@ def one_fade(fade: GradientRect, box, canvas_width: int, canvas_height: int):
     centres = (numpy.clip(columns + 0.5, left, right) - left) / (right - left)
     ramp = numpy.clip(fade.opacity_left + (fade.opacity_right - fade.opacity_left) * centres,
                       0, 1)
-    alpha = numpy.outer(coverage(rows, bottom, top)[::-1], ramp * coverage(columns, left, right))
+    # Image row 0 is the fade's lowest device row, as Agg draws an image (the orientation is
+    # checked against Agg's own rects in test_a_fade_of_one_opacity_covers_the_pixels_...).
+    alpha = numpy.outer(coverage(rows, bottom, top), ramp * coverage(columns, left, right))
     image = numpy.empty((*alpha.shape, 4), dtype=numpy.uint8)
     image[..., :3] = (0, 114, 178)   # #0072B2
     image[..., 3] = numpy.round(alpha * 255)
@@ -456,3 +458,26 @@ def test_png_text_without_the_glyph_cache_lands_in_the_same_place(tmp_path, monk
     cached = ink("cached.png")
     monkeypatch.setattr(mpl, "glyph_cache_works", lambda: False)
     assert numpy.abs(ink("text.png") - cached).max() <= 1
+
+
+def test_a_fade_of_one_opacity_covers_the_pixels_a_rect_covers():
+    """At a fractional top and bottom, a fade's partly covered rows are the rect's: the fade
+    image's rows run the way Agg draws them (the top row once came out with the bottom's
+    coverage and the bottom with the top's)."""
+    import io
+
+    import numpy
+    from PIL import Image
+
+    from timelines.render.mpl import render_png
+    from timelines.scene.primitives import GradientRect, Rect, Scene
+
+    def column(item) -> numpy.ndarray:
+        out = io.BytesIO()
+        render_png(Scene(100, 40, (item,), background="#ffffff"), out, dpi=150)
+        return numpy.array(Image.open(io.BytesIO(out.getvalue())).convert("L"))[:, 60]
+
+    for top, height in ((10.3, 12.4), (7.8, 5.55), (20.05, 3.3)):
+        rect = column(Rect(10, top, 80, height, "#000000")).astype(int)
+        fade = column(GradientRect(10, top, 80, height, "#000000", 1.0, 1.0)).astype(int)
+        assert numpy.abs(rect - fade).max() <= 2, (top, height)

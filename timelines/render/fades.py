@@ -76,15 +76,16 @@ def _device_fades(fades: list[GradientRect], boxes, canvas_width: float, canvas_
 
 def _fade_images(fades: list[GradientRect], columns: _Ranges, rows: _Ranges, across, down):
     """Each fade's RGBA image, or None if it has no pixels: its colour, and as alpha the
-    product of its column's value `across` and its row's `down` (image row 0 is the top)."""
+    product of its column's value `across` and its row's `down`. Rows count up from the
+    fade's lowest device row (y grows upward), and Agg's draw_image puts an image's row 0 at
+    its lowest row too: so image row k takes row k's coverage."""
     from matplotlib.colors import to_rgb
 
     sizes = rows.counts * columns.counts
     pixels = _Ranges(numpy.zeros(len(fades)), sizes)      # each fade's pixels 0, 1, ...
     owner = pixels.owner
     row, column = numpy.divmod(pixels.values.astype(numpy.intp), columns.counts[owner])
-    alpha = (down[rows.starts[owner] + rows.counts[owner] - 1 - row]
-             * across[columns.starts[owner] + column])
+    alpha = down[rows.starts[owner] + row] * across[columns.starts[owner] + column]
     images = numpy.empty((len(alpha), 4), dtype=numpy.uint8)
     images[:, :3] = numpy.round(numpy.array([to_rgb(fade.fill) for fade in fades]) * 255)[owner]
     images[:, 3] = numpy.round(alpha * 255)

@@ -97,3 +97,14 @@ def test_the_command_line_counts_every_row(tmp_path, capsys):
     err = capsys.readouterr().err
     assert "250 rows read: 20 drawn; 230 counted in the overview only (--overview)" in err
     assert 'class="overview"' in out.read_text(encoding="utf-8")
+
+
+def test_the_lanes_report_lists_every_record_however_many(tmp_path, capsys):
+    """The overview is a way of drawing: `timelines lanes` reports the lane of every record,
+    above the overview's threshold too."""
+    from timelines.cli import main
+
+    path = _table(tmp_path, OVERVIEW_FROM + 10)
+    assert main(["lanes", str(path), "--group", "group", "--format", "csv"]) == 0
+    rows = capsys.readouterr().out.strip().splitlines()
+    assert len(rows) == OVERVIEW_FROM + 10 + 1              # a header and every record

@@ -329,7 +329,8 @@ def run_lanes(args, parser) -> int:
                            events=_events(args),
                            longest=args.longest, longest_column=args.longest_column,
                            longest_by_group=_group_durations(args),
-                           size=parse_size(args.size) if args.size else None)
+                           size=parse_size(args.size) if args.size else None,
+                           overview="no")     # the lanes of every record, however many
     chart = Chart.from_options(_input_path(args, parser), options)
     arranged = _laid_out(chart, Progress(2, quiet=args.quiet))
     _print_run(arranged, args, theme.era)

@@ -62,7 +62,8 @@ def choose_part(records: list[Record], kept: list[Record], window, where: str | 
             chosen = sorted(chosen, key=_start)[:limit]
         how.append(f"the first {limit:,} by start")
     undated = [r for r in kept if r.span is None]
-    per = _block(dated)
+    first, last = min(map(_low, dated)), max(map(_high, dated))    # the whole time, once
+    per = _block((last - first) / 365.2425)
     table = _activity(dated, per, era, calendar)
     note = (f"{len(dated):,} dated records, too many to read lane by lane: the strips count "
             f"them per {per}, by group. The lanes below show {len(chosen):,} of them: "
@@ -73,7 +74,7 @@ def choose_part(records: list[Record], kept: list[Record], window, where: str | 
     order = {group: place for place, group in enumerate(dict.fromkeys(r.group for r in dated))}
     series = sorted(activity_series(table), key=lambda s: order.get(_group_name(s), len(order)))
     overview = Overview(tuple(_named(s) for s in series),
-                        min(_low(r) for r in dated), max(_high(r) for r in dated), shown, note)
+                        first, last, shown, note)
     return Part(undated + chosen, overview, len(dated) - len(chosen))
 
 
@@ -106,9 +107,8 @@ def _named(series):
                         series.possible, series.expected, series.low, series.high)
 
 
-def _block(dated: list[Record]) -> str:
-    """About a hundred blocks across the records' time: year, decade, century, millennium."""
-    years = (max(_high(r) for r in dated) - min(_low(r) for r in dated)) / 365.2425
+def _block(years: float) -> str:
+    """About a hundred blocks across `years`: year, decade, century, millennium."""
     for block, size in (("year", 1), ("decade", 10), ("century", 100)):
         if years <= 150 * size:
             return block

@@ -85,8 +85,9 @@ def language_hint(text: str) -> str | None:
     """For a text no form reads: a word in it that only a named language reads (Dutch `en`
     is left out of the default), and the setting that reads it."""
     default = lexicon_for(DEFAULT)
-    words = [token.lower() for token in _TOKEN.findall(text)]
-    for token, word in zip(_TOKEN.findall(text), words):
+    tokens = _TOKEN.findall(text)
+    words = [token.lower() for token in tokens]
+    for token, word in zip(tokens, words):
         readers = _word_languages().get(word, ()) if word not in default.names else ()
         if readers:
             names = ", ".join(table(code).name for code in readers)

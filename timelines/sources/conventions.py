@@ -13,17 +13,22 @@ and rows (dates/c14.py reads `14C BP`, `uncal BP` and laboratory codes as radioc
 `-300`, a year written as a signed number, is 300 BC to most historians and archaeologists
 and 301 BC to ISO 8601 (dates/signed.py). The signed-years setting decides; one note per date
 column names the rows that depend on it.
+
+Each note asks its question once per distinct value of a column (guarded.flagged_offsets): a
+million-row table has a hundred thousand distinct dates or fewer, and most have no note.
 """
 from __future__ import annotations
 
 import re
+from collections.abc import Callable
 
 from ..dates.settings import DateSettings
 from ..dates.text import writes_hundreds
 from .columns import ColumnMap
+from .guarded import flagged_offsets
 from .problems import Problem, row_ranges
 from .serials import LARGEST_YEAR_NUMBER
-from .tables import Table, cell_text
+from .tables import Table
 
 _READINGS = {"century": ("centuries", "1600–1699", "decade", "1600–1609"),
              "decade": ("decades", "1600–1609", "century", "1600–1699")}
@@ -35,12 +40,16 @@ def hundreds_notes(source: str, header: tuple[str, ...], cells: list[list[object
     """A note for each date column with cells such as `1600s`, naming their rows."""
     notes = []
     for place in sorted(date_places):
-        written = {value for value in set(cells[place])
-                   if type(value) is str and writes_hundreds(value)}
-        if written:
-            found = [rows[index] for index, value in enumerate(cells[place]) if value in written]
-            notes.append(_note(source, header[place], found, min(written), settings))
+        offsets = flagged_offsets(cells[place], _writes_hundreds)
+        if offsets:
+            found = [rows[offset] for offset in offsets]
+            example = min(map(cells[place].__getitem__, offsets))
+            notes.append(_note(source, header[place], found, example, settings))
     return notes
+
+
+def _writes_hundreds(value: object) -> bool:
+    return type(value) is str and writes_hundreds(value)
 
 
 def _note(source: str, column: str, found: list[int], example: str,
@@ -69,15 +78,23 @@ def signed_year_notes(table: Table, columns: ColumnMap,
     a negative number cell), naming the columns and rows: the signed-years setting decided
     what they mean."""
     zero_read = settings.signed_years == "astronomical" or settings.year_zero == "1bc"
+    written = _writes_signed_or_zero if zero_read else _writes_signed_year
+    found = _date_rows(table, columns, written)
+    return (_signed_note(table.source, found, settings),) if found else ()
+
+
+def _date_rows(table: Table, columns: ColumnMap,
+               flagged: Callable[[object], object]) -> dict[str, list[int]]:
+    """The rows of each date column (start, end, when, each once) whose cells are flagged,
+    for the columns that have any."""
     found: dict[str, list[int]] = {}
     for name in dict.fromkeys((columns.start, columns.end, columns.when)):
         if name is not None and name in table.header:
             cells = table.columns[table.header.index(name)]
-            rows = [index + table.first_row for index, value in enumerate(cells)
-                    if _writes_signed_year(value) or zero_read and _writes_zero(value)]
-            if rows:
-                found[name] = rows
-    return (_signed_note(table.source, found, settings),) if found else ()
+            offsets = flagged_offsets(cells, flagged)
+            if offsets:
+                found[name] = [offset + table.first_row for offset in offsets]
+    return found
 
 
 # `3450 ± 40 BP` as written: a whole age within the curves' reach, an error term, plain BP.
@@ -90,15 +107,7 @@ def bp_age_notes(table: Table, columns: ColumnMap, settings: DateSettings) -> tu
     "calendar"), naming the columns and rows: they may be uncalibrated radiocarbon ages."""
     if settings.bp != "calendar":
         return ()
-    found: dict[str, list[int]] = {}
-    for name in dict.fromkeys((columns.start, columns.end, columns.when)):
-        if name is not None and name in table.header:
-            cells = table.columns[table.header.index(name)]
-            rows = [index + table.first_row for index, value in enumerate(cells)
-                    if type(value) is str and "BP" in value.upper()
-                    and PLAIN_BP_AGE.search(value) and "CAL" not in value.upper()]
-            if rows:
-                found[name] = rows
+    found = _date_rows(table, columns, _writes_plain_bp_age)
     if not found:
         return ()
     count = sum(map(len, found.values()))
@@ -110,6 +119,16 @@ def bp_age_notes(table: Table, columns: ColumnMap, settings: DateSettings) -> tu
             "hemisphere); writing 14C BP or cal BP says which")
     first = min(min(rows) for rows in found.values())
     return (Problem(table.source, first, None, None, "", reason, "note", hint),)
+
+
+def _writes_plain_bp_age(value: object) -> bool:
+    return (type(value) is str and "BP" in value.upper()
+            and PLAIN_BP_AGE.search(value) is not None and "CAL" not in value.upper())
+
+
+def _writes_signed_or_zero(value: object) -> bool:
+    """Under settings that read a year 0 (as 1 BC), a 0 depends on them as -300 does."""
+    return _writes_signed_year(value) or _writes_zero(value)
 
 
 def _writes_signed_year(value: object) -> bool:

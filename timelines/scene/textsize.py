@@ -25,6 +25,12 @@ from __future__ import annotations
 import unicodedata
 from functools import lru_cache
 
+# numpy only for the annotations: the table path loads nothing, and `text_widths` imports
+# numpy when it is first asked for many widths at once (`typing` too would be a load).
+TYPE_CHECKING = False
+if TYPE_CHECKING:
+    import numpy as np
+
 _ZERO_WIDTH_CATEGORIES = frozenset({"Mn", "Me", "Cf", "Cc"})
 _BOLD_WEIGHTS = frozenset({"bold", "bolder", "600", "700", "800", "900"})
 
@@ -40,6 +46,84 @@ def text_width(text: str, size_px: float, weight: str = "normal",
         return _shaped_width(text, "bold" if table is _ADVANCE_BOLD else "normal",
                              families) * size_px
     return units * size_px / UNITS_PER_EM
+
+
+# `text_widths` measures this many texts at a time, so its arrays (about 8 bytes for each
+# character of the chunk) stay small however many labels there are: for ordinary labels they
+# fit the processor's cache (measured: chunks of 65,536 45-character labels took twice as long).
+_WIDTHS_CHUNK = 4096
+
+
+def text_widths(texts: list[str], size_px: float, weight: str = "normal",
+                families: str | None = None) -> np.ndarray:
+    """`text_width` of each of `texts`, equal to it bit for bit, as a float64 array.
+
+    Laying out a million records measures a million labels; this sums the table advances with
+    numpy instead of a Python loop per label. The sums are exact integers, scaled to px by the
+    same expression as `text_width`, so the floats are the same. Texts with a character beyond
+    the tables are measured by `text_width` itself.
+    """
+    import numpy as np
+
+    widths = np.empty(len(texts), dtype=np.float64)
+    for start in range(0, len(texts), _WIDTHS_CHUNK):
+        chunk = texts[start:start + _WIDTHS_CHUNK]
+        widths[start:start + len(chunk)] = _chunk_widths(chunk, size_px, weight, families)
+    return widths
+
+
+def _chunk_widths(texts: list[str], size_px: float, weight: str,
+                  families: str | None) -> np.ndarray:
+    """`text_widths` of one chunk: the texts the tables cover at once, the rest one by one."""
+    import numpy as np
+
+    units, covered = _table_units(texts, weight in _BOLD_WEIGHTS)
+    widths = units * size_px / UNITS_PER_EM
+    for i in np.flatnonzero(~covered).tolist():
+        widths[i] = text_width(texts[i], size_px, weight, families)
+    return widths
+
+
+def _table_units(texts: list[str], bold: bool) -> tuple[np.ndarray, np.ndarray]:
+    """Summed advances in font units of each text (int64, exact) and whether the tables cover
+    it; the sum of a text they do not cover is meaningless.
+
+    The texts are joined into one run of code points and summed per text (`reduceat`), so
+    nothing is padded: a long text costs its own length, and a NUL is just a character the
+    tables lack. `surrogatepass` keeps a lone surrogate a code point, left to `text_width`.
+    """
+    import numpy as np
+
+    lengths = np.fromiter(map(len, texts), dtype=np.intp, count=len(texts))
+    codes = np.frombuffer("".join(texts).encode("utf-32-le", "surrogatepass"), dtype=np.uint32)
+    # One spare element at the end: `reduceat` needs every start, an empty last text's too,
+    # to index into the array.
+    advances = np.zeros(len(codes) + 1, dtype=np.int32)
+    np.take(_advance_lookup(bold), codes, mode="clip", out=advances[:-1])
+    starts = np.cumsum(lengths) - lengths
+    empty = lengths == 0
+    # `reduceat` gives an empty text the element at its start, not 0: set those apart.
+    units = np.add.reduceat(advances, starts, dtype=np.int64)
+    units[empty] = 0
+    if advances.min() >= 0:         # the usual chunk: every character in the tables
+        return units, np.ones(len(texts), dtype=bool)
+    covered = np.minimum.reduceat(advances, starts) >= 0
+    covered[empty] = True
+    return units, covered
+
+
+@lru_cache(maxsize=2)
+def _advance_lookup(bold: bool) -> np.ndarray:
+    """The advance table as an array indexed by code point, -1 for characters not in it; its
+    last entry, -1, stands for every code point beyond the table (`take(mode="clip")`)."""
+    import numpy as np
+
+    table = _ADVANCE_BOLD if bold else _ADVANCE_REGULAR
+    lookup = np.full(max(map(ord, table)) + 2, -1, dtype=np.int32)
+    for ch, units in table.items():
+        lookup[ord(ch)] = units
+    lookup.setflags(write=False)
+    return lookup
 
 
 def covered_by_tables(text: str) -> bool:

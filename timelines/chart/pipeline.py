@@ -12,9 +12,10 @@ from __future__ import annotations
 
 from dataclasses import dataclass, replace
 from functools import partial
-from operator import attrgetter
 from pathlib import Path
 from typing import Callable, Iterable, Sequence
+
+import numpy as np
 
 from ..check.report import Report, check
 from ..dates import DEFAULT_SETTINGS, DateError, DateSettings, explain, parse_endpoint
@@ -23,9 +24,10 @@ from ..layout import (
     GroupNode, LaneRules, LaneSettings, Placement, TimeWindow, UnknownGroup, group_records,
     group_tree, lane_rules, place, split_by_window,
 )
-from ..layout.grouping import check_listed_names
+from ..layout.grouping import BY_GROUP, check_listed_names
 from ..layout.settings import group_order
 from ..layout.distances import Distance, parse_distance
+from ..columnar import RecordColumns
 from ..model import Record
 from ..render import output_format, writable, write
 from ..scene.activity import ActivitySeries
@@ -36,6 +38,7 @@ from ..scene.compose import ChartText, colors_of, compose, title_height
 from ..scene.facets import Panel, compose_facets, panel_width
 from ..scene.measure import (
     LABEL_CLEARANCE, chart_scale, days_per_px, drawn_measure, key_width, label_width,
+    label_widths,
 )
 from ..scene.fonts import font_list
 from ..scene.page import FittedPage, fit_height, font_note
@@ -51,7 +54,7 @@ from .options import ChartOptions
 from .overview import choose_part, wanted
 from .reading import ReadTable, read_bands, read_source
 
-_GROUP = attrgetter("group")   # a record's group: the C-level getter, called per record
+_GROUP = BY_GROUP   # a record's group: the C-level getter; a table's columns group at once
 
 
 @dataclass(frozen=True, slots=True)
@@ -193,7 +196,7 @@ def arrange_read(read: ReadTable, options: ChartOptions = ChartOptions()) -> Arr
                         bands, bounded=read.bounded, narrowed=read.narrowed,
                         overview=part.overview if part else None,
                         summarised=part.summarised if part else 0)
-    dated = [r for r in kept if r.span is not None]
+    dated = _dated(kept)
     if not dated:
         return arranged
     rules, gap = lane_rules(options.lanes, partial(column_reader, columns, header))
@@ -204,6 +207,13 @@ def arrange_read(read: ReadTable, options: ChartOptions = ChartOptions()) -> Arr
     placement = lay_out(kept, scale, options.theme, rules, gap,          # layout
                         options.lanes.labels, tree)
     return replace(arranged, scale=scale, placement=placement)
+
+
+def _dated(records: Sequence[Record]) -> Sequence[Record]:
+    """The records with a span; a table's columns stay columns."""
+    if isinstance(records, RecordColumns):
+        return records.take(np.flatnonzero(records.dated()))
+    return [r for r in records if r.span is not None]
 
 
 def _arrange_panels(arranged: Arranged, dated: list[Record], options: ChartOptions,
@@ -325,7 +335,7 @@ def build_scene(records: Iterable[Record], theme: Theme = DEFAULT_THEME, title: 
     """The scene of records made by the caller (no table): what `render` draws."""
     records = list(records)
     kept, outside = split_by_window(records, window)
-    dated = [r for r in kept if r.span is not None]
+    dated = _dated(kept)
     if not dated:
         raise TimelineError("nothing to draw: no row has a usable date")
     rules, gap = lane_rules(lanes, partial(column_reader, columns, None))
@@ -373,7 +383,8 @@ def lay_out(records: list[Record], scale: TimeScale, theme: Theme,
                      label_pad=theme.label_pad * per_px,
                      label_clearance=LABEL_CLEARANCE * theme.label_pad * per_px,
                      labels=labels, rules=rules, tree=tree,
-                     key_width=key_width(len(records), scale, theme))
+                     key_width=key_width(len(records), scale, theme),
+                     label_widths=label_widths(scale, theme))
     except UnknownGroup as error:
         raise UsageError(str(error), hint=did_you_mean(error.name, error.known)) from error
 

@@ -30,7 +30,10 @@ from collections import Counter
 from dataclasses import asdict, dataclass, is_dataclass
 from typing import Iterable, Protocol, Sequence
 
-from ..model import Precision, Record, Span, holds
+import numpy as np
+
+from ..columnar import RecordColumns
+from ..model import EVENT, Precision, Record, Span, holds
 
 DAYS_PER_YEAR = 365.2425  # the mean Gregorian year (97 leap days in 400 years)
 _LONG_BY_NATURE = frozenset({Precision.MILLENNIUM, Precision.DEEP_TIME})
@@ -164,20 +167,38 @@ def check(loaded: Loaded | Iterable[Record], limits: CheckLimits = CheckLimits()
     findings = [*findings, *_duplicate_ids(records, errors), *_long_spans(records, limits)]
     findings = tuple(sorted(findings, key=lambda finding: (finding.source, finding.row)))
     counts = _counts(records, errors, rows_read, len(findings))
-    return Report(errors, findings, counts, undated, notes, holds(records))
+    return Report(errors, findings, counts, undated, notes, _holds(records))
+
+
+Records = tuple[Record, ...] | RecordColumns   # a table's records as read stay columns
 
 
 def _unpack(loaded: Loaded | Iterable[Record]
-            ) -> tuple[tuple[Record, ...], tuple[Reportable, ...], int | None]:
+            ) -> tuple[Records, tuple[Reportable, ...], int | None]:
     if hasattr(loaded, "records") and hasattr(loaded, "problems"):
-        return (tuple(loaded.records), tuple(loaded.problems),  # type: ignore[union-attr]
+        records = loaded.records  # type: ignore[union-attr]
+        return (records if isinstance(records, RecordColumns) else tuple(records),
+                tuple(loaded.problems),  # type: ignore[union-attr]
                 getattr(loaded, "rows_read", None))
+    if isinstance(loaded, RecordColumns):
+        return loaded, (), None
     return tuple(loaded), (), None  # type: ignore[arg-type]
 
 
-def _counts(records: tuple[Record, ...], errors: tuple[Reportable, ...],
+def _holds(records: Records) -> str:
+    if isinstance(records, RecordColumns):
+        if records.kind == EVENT and records.dated().any():
+            return "events"
+        return "spans"
+    return holds(records)
+
+
+def _counts(records: Records, errors: tuple[Reportable, ...],
             rows_read: int | None, warnings: int) -> Counts:
-    undated = sum(1 for record in records if record.span is None)
+    if isinstance(records, RecordColumns):
+        undated = len(records) - int(np.count_nonzero(records.dated()))
+    else:
+        undated = sum(1 for record in records if record.span is None)
     unreadable = len({(item.source, item.row) for item in errors if item.kind == "error"})
     contradictory = len({(item.source, item.row) for item in errors
                          if item.kind == "contradiction"})
@@ -194,16 +215,24 @@ def _drawn(drawn: int, held: str) -> str:
     return f"{drawn} (events and spans)" if held == "events and spans" else str(drawn)
 
 
-def _duplicate_ids(records: tuple[Record, ...], errors: tuple[Reportable, ...]
-                   ) -> list[Finding]:
+def _duplicate_ids(records: Records, errors: tuple[Reportable, ...]) -> list[Finding]:
     """A Finding on each later row that repeats an id, naming the row that had it first."""
-    ids = Counter(record.id for record in records if record.id)
+    if isinstance(records, RecordColumns):
+        record_ids = records.column("ids")
+        ids = Counter(record_ids)
+        ids.pop(None, None)
+    else:
+        ids = Counter(record.id for record in records if record.id)
     ids.update(error.id for error in errors if error.id)
     repeated = {identifier for identifier, count in ids.items() if count > 1}
     if not repeated:
         return []   # the usual case, found without sorting every row
-    rows = {(record.provenance.source, record.provenance.row): record.id for record in records
-            if record.id in repeated}
+    if isinstance(records, RecordColumns):
+        rows = {(records.source, row): identifier for row, identifier
+                in zip(records.row_numbers().tolist(), record_ids) if identifier in repeated}
+    else:
+        rows = {(record.provenance.source, record.provenance.row): record.id
+                for record in records if record.id in repeated}
     for error in errors:
         if error.id in repeated:
             rows.setdefault((error.source, error.row), error.id)
@@ -219,9 +248,11 @@ def _duplicate_ids(records: tuple[Record, ...], errors: tuple[Reportable, ...]
     return findings
 
 
-def _long_spans(records: tuple[Record, ...], limits: CheckLimits) -> list[Finding]:
+def _long_spans(records: Records, limits: CheckLimits) -> list[Finding]:
     if limits.max_extent_years is None:
         return []
+    if isinstance(records, RecordColumns):
+        return _long_spans_of_columns(records, limits.max_extent_years)
     # Records read from one table share Span objects: each distinct one is measured once.
     spans = {id(record.span): record.span for record in records}
     long_days: dict[int, int] = {}
@@ -232,6 +263,22 @@ def _long_spans(records: tuple[Record, ...], limits: CheckLimits) -> list[Findin
             long_days[key] = days
     return [_long_span(record, long_days[id(record.span)], limits.max_extent_years)
             for record in records if id(record.span) in long_days]
+
+
+def _long_spans_of_columns(records: RecordColumns, limit: int) -> list[Finding]:
+    """The same rule on a table's columns: each distinct span measured once, and a Record
+    made only for the rows it finds."""
+    long_days = {}
+    for code, span in enumerate(records.spans):
+        days = _extent_days(span)
+        if days is not None and round(days / DAYS_PER_YEAR) > limit:
+            long_days[code] = days
+    if not long_days:
+        return []
+    codes = records.codes()
+    found = np.flatnonzero(np.isin(codes, list(long_days)))
+    return [_long_span(record, long_days[code], limit) for record, code
+            in zip(records.records(records.positions[found]), codes[found].tolist())]
 
 
 def _extent_days(span: Span | None) -> int | None:

@@ -3,7 +3,8 @@
 `parse_column(values)` gives, for each cell, what `endpoint_from_cell` gives (an Endpoint, or
 None for an empty cell) or the DateError it raises; `parse_span_column` does the same with
 `span_from_cell`. Real columns repeat a lot (a thousand rows, forty distinct decades), so the
-results are shared objects, one per distinct value.
+results are shared objects, one per distinct value; the `_coded` forms give them as they are
+made, each distinct result once and a numpy array of each cell's index into them.
 
 A column whose cells are all `YYYY-MM-DD` strings is read by numpy's ISO 8601 day parser,
 which is proleptic Gregorian and refuses days that do not exist, as the language does; a
@@ -12,7 +13,10 @@ each bad cell its own error.
 """
 from __future__ import annotations
 
+from dataclasses import dataclass
 from typing import Callable, Iterable, Sequence
+
+import numpy as np
 
 from ..calendar import fixed_from_gregorian
 from ..errors import DateError
@@ -39,6 +43,13 @@ def parse_column(values: Iterable[object], settings: DateSettings = DEFAULT_SETT
     column says which side is open, so the caller decides; without it `..` is not a date.
     With an open end, a cell holding only `present`, `now`, `today` or `ongoing` runs on
     (ranges.running_on); with an open start such a cell is refused."""
+    return parse_column_coded(values, settings, open_cell=open_cell).expanded()
+
+
+def parse_column_coded(values: Iterable[object], settings: DateSettings = DEFAULT_SETTINGS, *,
+                       open_cell: Endpoint | None = None) -> "Coded":
+    """What `parse_column` gives, as codes: each distinct value's result once, and for each
+    cell the index of its own (a plain ISO column's days come from one array)."""
     values = values if isinstance(values, list) else list(values)
     days = _iso_days(values)
     if days is not None:
@@ -57,6 +68,19 @@ def parse_column(values: Iterable[object], settings: DateSettings = DEFAULT_SETT
     return _each_distinct_once(values, endpoint_or_open, settings)
 
 
+@dataclass(frozen=True, slots=True)
+class Coded:
+    """A column read once per distinct value: `results` holds each distinct value's result
+    (shared objects), `codes` each cell's index into it."""
+
+    codes: np.ndarray
+    results: list
+
+    def expanded(self) -> list:
+        """The result of each cell, in cell order."""
+        return list(map(self.results.__getitem__, self.codes.tolist()))
+
+
 def _running_on_cell(value: str, open_cell: Endpoint, settings: DateSettings) -> Endpoint:
     """`present` alone in an end cell: the span runs on (ranges.running_on); in a start cell it
     is refused, since what is still going on cannot begin at the present."""
@@ -72,6 +96,12 @@ def parse_span_column(values: Iterable[object],
     """The span (or None, or the DateError) of each cell of a single date column (a `when`
     column): a range as written, a single value as covering dates (covering.py) unless the
     single-value setting is `moment`."""
+    return parse_span_column_coded(values, settings).expanded()
+
+
+def parse_span_column_coded(values: Iterable[object],
+                            settings: DateSettings = DEFAULT_SETTINGS) -> Coded:
+    """What `parse_span_column` gives, as codes (`Coded`)."""
     values = values if isinstance(values, list) else list(values)
     if settings.single_value == "moment":
         return _each_distinct_once(values, span_from_cell, settings)
@@ -88,17 +118,22 @@ def covering_span_from_cell(value: object,
 
 
 def _each_distinct_once(values: list[object], parse: Callable[[object, DateSettings], Result],
-                        settings: DateSettings) -> list:
-    results: dict[object, Result] = {}
-    for key in dict.fromkeys(map(_key, values)):
+                        settings: DateSettings) -> Coded:
+    distinct = dict.fromkeys(values)
+    if not all(type(value) is str for value in distinct):
+        # 1650, 1650.0 and True are equal dict keys: cells of other types are told apart
+        values = list(map(_key, values))
+        distinct = dict.fromkeys(values)
+    place = dict(zip(distinct, range(len(distinct))))
+    codes = np.fromiter(map(place.__getitem__, values), dtype=np.intp, count=len(values))
+    results: list[Result] = []
+    for key in place:
         value = key if type(key) is str else key[1]
         try:
-            results[key] = parse(value, settings)
+            results.append(parse(value, settings))
         except DateError as error:
-            results[key] = error
-    if all(type(value) is str for value in results):
-        return list(map(results.__getitem__, values))
-    return [results[_key(value)] for value in values]
+            results.append(error)
+    return Coded(codes, results)
 
 
 def _key(value: object) -> object:
@@ -106,7 +141,7 @@ def _key(value: object) -> object:
     return value if type(value) is str else (type(value), value)
 
 
-def _iso_days(values: Sequence[object]) -> list[Endpoint] | None:
+def _iso_days(values: Sequence[object]) -> Coded | None:
     """Every cell as its day when all are `YYYY-MM-DD` strings; None otherwise."""
     if not values:
         return None
@@ -115,26 +150,22 @@ def _iso_days(values: Sequence[object]) -> list[Endpoint] | None:
             return None  # a cell of another length, or a sign (+/- sort before digits)
     except TypeError:
         return None      # a cell that is not a string
-    import numpy
     try:
-        parsed = numpy.array(values, dtype="datetime64[D]")
+        parsed = np.array(values, dtype="datetime64[D]")
     except (ValueError, TypeError, OverflowError):
         return None
-    if numpy.isnat(parsed).any():
+    if np.isnat(parsed).any():
         return None      # 'NaT' and the like: not a date
-    days = parsed.astype(numpy.int64) + _UNIX_EPOCH
+    days = parsed.astype(np.int64) + _UNIX_EPOCH
     return _shared_days(days)
 
 
-def _shared_days(days) -> list[Endpoint]:
-    """One Endpoint per distinct day, each cell pointing at its own."""
-    import numpy
+def _shared_days(days: np.ndarray) -> Coded:
+    """One Endpoint per distinct day, each cell coded by its day's rank."""
     low = int(days.min())
     offsets = days - low
-    present = numpy.zeros(int(offsets.max()) + 1, dtype=bool)
+    present = np.zeros(int(offsets.max()) + 1, dtype=bool)
     present[offsets] = True
-    distinct = numpy.flatnonzero(present)
-    # A table over the days from the first to the last, holding each distinct day's Endpoint.
-    table = numpy.empty(len(present), dtype=object)
-    table[distinct] = day_endpoints((distinct + low).tolist())
-    return table[offsets].tolist()
+    distinct = np.flatnonzero(present)
+    rank = np.cumsum(present, dtype=np.intp) - 1     # of each day among the distinct ones
+    return Coded(rank[offsets], day_endpoints((distinct + low).tolist()))

@@ -10,12 +10,13 @@ from __future__ import annotations
 
 import itertools
 import math
-from collections.abc import Callable, Iterable, Sequence
+from collections.abc import Callable, Sequence
 from dataclasses import dataclass
 from operator import attrgetter
 
 import numpy as np
 
+from ..columnar import RecordColumns
 from ..model import Record, Span
 from .labels import LABEL_SIDES, label_boxes
 
@@ -44,32 +45,45 @@ class BoxMeasure:
     once, then each group's boxes from them."""
 
     __slots__ = ("domain", "label_width", "label_pad", "clearance", "mode", "widths",
-                 "measured", "rows", "key_width", "keys")
+                 "measured", "rows", "key_width", "keys", "label_widths", "coded")
 
     def __init__(self, domain: tuple[float, float], measure_spans: SpanMeasure,
                  label_width: Callable[[str], float], label_pad: float, clearance: float,
-                 mode: str, records: Iterable[Record], key_width: float | None = None) -> None:
+                 mode: str, parts: list[Sequence[Record]], key_width: float | None = None,
+                 label_widths: Callable[[list[str]], np.ndarray] | None = None) -> None:
+        """`parts`: the records of each group; `label_widths` measures many labels at once."""
         self.domain, self.label_pad, self.clearance, self.mode = domain, label_pad, clearance, mode
         self.key_width = key_width
         self.keys = itertools.count(1)      # the key numbers of labels shown by number
-        self.label_width = label_width
+        self.label_width, self.label_widths = label_width, label_widths
         self.widths: dict[str, float] = {}
-        # Records of one table share Span objects for equal cells: id names them (the
-        # records keep them alive), and each distinct one is measured once.
-        spans = list(map(_SPAN, records))
-        by_key = dict(zip(map(id, spans), spans))
-        self.measured = np.asarray(measure_spans(list(by_key.values())),
-                                   dtype=float).reshape(-1, 4)
-        self.rows = dict(zip(by_key, range(len(by_key))))   # of each span's measures
+        first = parts[0] if parts else None
+        self.coded = isinstance(first, RecordColumns) and all(map(first.same_table, parts))
+        if self.coded:
+            # A table as columns: its distinct spans referenced by the groups, each once.
+            codes = np.unique(np.concatenate([part.used_codes() for part in parts]))
+            spans = [first.spans[code] for code in codes.tolist()]
+            self.rows = np.full(len(first.spans), -1, dtype=np.intp)
+            self.rows[codes] = np.arange(len(codes))
+        else:
+            # Records of one table share Span objects for equal cells: id names them (the
+            # records keep them alive), and each distinct one is measured once.
+            every = [span for part in parts for span in map(_SPAN, part)]
+            by_key = dict(zip(map(id, every), every))
+            spans = list(by_key.values())
+            self.rows = dict(zip(by_key, range(len(by_key))))   # of each span's measures
+        self.measured = np.asarray(measure_spans(spans), dtype=float).reshape(-1, 4)
 
     def boxes(self, records: Sequence[Record]) -> Boxes:
-        labels = list(map(_LABEL, records))
-        span_rows = np.fromiter(map(self.rows.__getitem__, map(id, map(_SPAN, records))),
-                                dtype=np.intp, count=len(records))
+        if self.coded:
+            labels = records.column("labels")
+            span_rows = self.rows[records.codes()]
+        else:
+            labels = list(map(_LABEL, records))
+            span_rows = np.fromiter(map(self.rows.__getitem__, map(id, map(_SPAN, records))),
+                                    dtype=np.intp, count=len(records))
         bars, rooms = self.measured[span_rows, :2], self.measured[span_rows, 2:]
-        distinct_labels = dict.fromkeys(labels)
-        widths = np.array([self._width(label) for label in distinct_labels], dtype=float)
-        found = label_boxes(labels, bars, widths[_codes(labels, distinct_labels)], self.domain,
+        found = label_boxes(labels, bars, self._widths(labels), self.domain,
                             self.label_pad, rooms, self.clearance, self.mode, self.key_width)
         shown = self._shorten(labels, bars, found) if self.mode == "beside" else None
         return Boxes(found.start, found.end, bars[:, 0], bars[:, 1], found.side, shown)
@@ -113,6 +127,18 @@ class BoxMeasure:
             else:
                 high = middle - 1
         return label[:low].rstrip() + "…"
+
+    def _widths(self, labels: list[str]) -> np.ndarray:
+        """Each label's width, each distinct text measured once."""
+        distinct = dict.fromkeys(labels)
+        texts = list(distinct)
+        if self.label_widths is not None:
+            widths = self.label_widths(texts)
+        else:
+            widths = np.array([self._width(text) for text in texts], dtype=float)
+        if len(texts) == len(labels):
+            return widths                           # every label its own: the usual case
+        return widths[_codes(labels, distinct)]
 
     def _width(self, label: str) -> float:
         if label not in self.widths:

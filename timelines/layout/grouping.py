@@ -18,7 +18,11 @@ from __future__ import annotations
 
 import re
 from collections.abc import Callable, Iterable, Sequence
+from operator import attrgetter
 
+import numpy as np
+
+from ..columnar import EARLIEST_END, EARLIEST_START, LATEST_END, LATEST_START, RecordColumns
 from ..model import Record
 
 NO_GROUP = ""
@@ -26,7 +30,14 @@ GROUP_ORDERS = ("first", "name", "size")
 
 GroupKey = Callable[[Record], str | None]
 GroupOrder = str | tuple[str, ...]
-Groups = list[tuple[str, list[Record]]]
+Groups = list[tuple[str, Sequence[Record]]]
+# The keys a table read as columns groups by without making a Record: its group column, and
+# none at all (one group).
+BY_GROUP: GroupKey = attrgetter("group")
+
+
+def NO_KEY(record: Record) -> None:
+    return None
 
 
 class UnknownGroup(ValueError):
@@ -40,7 +51,10 @@ class UnknownGroup(ValueError):
 
 
 def collect_groups(records: Iterable[Record], key: GroupKey) -> Groups:
-    """Records by `key`, groups in order of first appearance, records in input order."""
+    """Records by `key`, groups in order of first appearance, records in input order. A
+    table's records as columns, grouped by BY_GROUP or NO_KEY, stay columns."""
+    if isinstance(records, RecordColumns) and key in (BY_GROUP, NO_KEY):
+        return _column_groups(records, key)
     members: dict[str, list[Record]] = {}
     for record in records:
         members.setdefault(key(record) or NO_GROUP, []).append(record)
@@ -51,6 +65,21 @@ def group_records(records: Iterable[Record], key: GroupKey, order: GroupOrder = 
                   ) -> Groups:
     """Records grouped by `key` and the groups put in `order` (see the module notes)."""
     return order_groups(collect_groups(records, key), order)
+
+
+def _column_groups(records: RecordColumns, key: GroupKey) -> Groups:
+    if key is NO_KEY or records.groups is None:
+        return [(NO_GROUP, records)] if len(records) else []
+    values = records.column("groups")
+    names: dict[str, int] = {}
+    code_of = {value: names.setdefault(value or NO_GROUP, len(names))
+               for value in dict.fromkeys(values)}
+    codes = np.fromiter(map(code_of.__getitem__, values), dtype=np.intp, count=len(values))
+    order = np.argsort(codes, kind="stable")          # each group's records in input order
+    ends = np.cumsum(np.bincount(codes, minlength=len(names)))
+    return [(name, records.take(order[end - size:end]))
+            for name, end, size in zip(names, ends.tolist(),
+                                       np.bincount(codes, minlength=len(names)).tolist())]
 
 
 def merge_small_groups(groups: Groups, min_size: int, other: str
@@ -65,16 +94,26 @@ def merge_small_groups(groups: Groups, min_size: int, other: str
         return groups, ()
     merged_names = set(small)
     result: Groups = []
-    remainder: list[Record] | None = None
+    remainder: list[Sequence[Record]] | None = None
     for name, members in groups:
         if name in merged_names or name == other:
             if remainder is None:
                 remainder = []
                 result.append((other, remainder))
-            remainder.extend(members)
+            remainder.append(members)
         else:
             result.append((name, members))
-    return result, tuple(small)
+    return [(name, _joined(members) if name == other and members is remainder else members)
+            for name, members in result], tuple(small)
+
+
+def _joined(parts: list[Sequence[Record]]) -> Sequence[Record]:
+    """The records of several groups as one, in group order: columns where all are parts of
+    one table read as columns."""
+    first = parts[0]
+    if all(isinstance(part, RecordColumns) and first.same_table(part) for part in parts):
+        return first.at(np.concatenate([part.positions for part in parts]))
+    return [record for part in parts for record in part]
 
 
 def order_groups(groups: Groups, order: GroupOrder, *, last: Iterable[str] = ()) -> Groups:
@@ -85,7 +124,7 @@ def order_groups(groups: Groups, order: GroupOrder, *, last: Iterable[str] = ())
     if order not in GROUP_ORDERS:
         raise ValueError(f"group order must be one of {', '.join(GROUP_ORDERS)} or a tuple "
                          f"of names, not {order!r}")
-    firsts = {name: _first_start(members) for name, members in groups}
+    firsts = _first_starts(groups)
     position = {name: index for index, (name, _) in enumerate(groups)}
 
     def key(group: tuple[str, list[Record]]):
@@ -128,7 +167,41 @@ def check_listed_names(names: tuple[str, ...], known: Iterable[str]) -> None:
             raise UnknownGroup(wanted, known)
 
 
-def _first_start(records: list[Record]) -> tuple[int, float]:
+def _first_starts(groups: Groups) -> dict[str, tuple[int, float]]:
+    """Each group's first start (`_start_order`); a table's columns' spans ordered once."""
+    orders: dict[int, tuple[np.ndarray, np.ndarray]] = {}
+    firsts = {}
+    for name, members in groups:
+        if isinstance(members, RecordColumns) and len(members):
+            key = id(members.spans)
+            if key not in orders:
+                orders[key] = _span_start_orders(members)
+            kinds, days = orders[key]
+            codes = members.codes()
+            kind = int(kinds[codes].min())
+            firsts[name] = (kind, float(days[codes][kinds[codes] == kind].min()))
+        else:
+            firsts[name] = _first_start(members)
+    return firsts
+
+
+def _span_start_orders(records: RecordColumns) -> tuple[np.ndarray, np.ndarray]:
+    """`_start_order` of each distinct span of a table: (kinds, days) arrays."""
+    bounds = records.span_bounds()
+    first_known = np.full(len(bounds), np.nan)
+    for column in (LATEST_END, EARLIEST_END, LATEST_START, EARLIEST_START):  # first wins
+        known = ~np.isnan(bounds[:, column])
+        first_known[known] = bounds[known, column]
+    open_start = np.fromiter((span is not None and span.start.is_open
+                              for span in records.spans), dtype=bool, count=len(bounds))
+    undated = np.fromiter((span is None for span in records.spans), dtype=bool,
+                          count=len(bounds))
+    kinds = np.where(undated, 2, np.where(open_start | np.isnan(first_known), 0, 1))
+    days = np.where(kinds == 1, first_known, 0.0)
+    return kinds, days
+
+
+def _first_start(records: Sequence[Record]) -> tuple[int, float]:
     # Records of one table share Span objects: order each span once.
     orders = {id(record.span): record for record in records}
     return min(map(_start_order, orders.values()))

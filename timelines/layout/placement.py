@@ -27,19 +27,21 @@ picture and listed in `Placement.notes` (kind "left out") and in its group's `le
 from __future__ import annotations
 
 import math
-from collections.abc import Callable, Iterable, Iterator
+from collections.abc import Callable, Iterable, Iterator, Sequence
 from dataclasses import dataclass, field
 from itertools import repeat
 from operator import attrgetter
 
 import numpy as np
 
+from ..columnar import RecordColumns
 from ..model import Record, collection_paused, many
 from .boxes import Boxes, BoxMeasure, SpanMeasure
 from .grouping import (
-    GROUP_ORDERS, GroupKey, GroupOrder, check_listed_names, collect_groups, merge_small_groups,
-    natural_key, order_groups,
+    GROUP_ORDERS, NO_KEY, GroupKey, GroupOrder, check_listed_names, collect_groups,
+    merge_small_groups, natural_key, order_groups,
 )
+from .placed import PlacedColumns, PlacedRecord
 from .labels import LABEL_MODES, LABEL_SIDES
 from .packing import (
     LEFT_OUT, check_distance, first_fit, max_overlap_depth, most_that_fit, pack_lanes,
@@ -87,27 +89,13 @@ class LaneRules:
 
 
 @dataclass(frozen=True, slots=True)
-class PlacedRecord:
-    record: Record
-    lane: int
-    box_start: float
-    box_end: float
-    bar_start: float
-    bar_end: float
-    label_side: str   # "inside", "right", "left", "key right"/"key left" (a number spelled out
-    #                   under the chart) or "none" (left out; kept in the tooltip)
-    key: int = 0      # with a key side: its number, 1, 2, ... in drawing order
-    shown: str = ""   # the label as drawn when shortened to fit ("" when whole)
-
-
-@dataclass(frozen=True, slots=True)
 class GroupPlacement:
     """A group's lanes. A group with subgroups holds no records itself: its subgroups do,
     each in lanes of its own, and `lanes` is their sum."""
 
     name: str
     lanes: int
-    records: tuple[PlacedRecord, ...]
+    records: Sequence[PlacedRecord]         # a tuple, or PlacedColumns (placed.py)
     subgroups: tuple["GroupPlacement", ...] = ()
     merged: tuple[str, ...] = ()           # names of the small groups merged into this one
     left_out: tuple[Record, ...] = ()      # no room within the lanes allowed
@@ -162,10 +150,10 @@ class Placement:
 
 @dataclass(frozen=True, slots=True)
 class GroupNode:
-    """A group before packing: its records, or its subgroups."""
+    """A group before packing: its records (a tuple, or RecordColumns), or its subgroups."""
 
     name: str
-    records: tuple[Record, ...]
+    records: Sequence[Record]
     subgroups: tuple["GroupNode", ...] = ()
     merged: tuple[str, ...] = ()
 
@@ -174,11 +162,11 @@ def group_tree(records: Iterable[Record], group_key: GroupKey | None = None,
                rules: LaneRules = LaneRules()) -> tuple[GroupNode, ...]:
     """Groups (and subgroups) in order, small ones merged. Raises UnknownGroup for a name in
     an explicit order that no group has."""
-    records = list(records)
-    top = _ordered_level(records, group_key or (lambda record: None), rules.group_order,
+    records = records if isinstance(records, RecordColumns) else list(records)
+    top = _ordered_level(records, group_key or NO_KEY, rules.group_order,
                          rules.min_group_size, rules.other_group)
     if rules.subgroup_key is None:
-        return tuple(GroupNode(name, tuple(members), (), merged)
+        return tuple(GroupNode(name, _kept(members), (), merged)
                      for name, members, merged in top)
     levels = [(name, _ordered_level(members, rules.subgroup_key, rules.subgroup_order,
                                     rules.min_subgroup_size, rules.other_group, check=False),
@@ -186,14 +174,19 @@ def group_tree(records: Iterable[Record], group_key: GroupKey | None = None,
     if isinstance(rules.subgroup_order, tuple):
         known = [rules.subgroup_key(record) or "" for record in records]
         check_listed_names(rules.subgroup_order, [*known, rules.other_group])
-    return tuple(GroupNode(name, (), tuple(GroupNode(sub, tuple(members), (), sub_merged)
+    return tuple(GroupNode(name, (), tuple(GroupNode(sub, _kept(members), (), sub_merged)
                                           for sub, members, sub_merged in subs), merged)
                  for name, subs, merged in levels)
 
 
-def _ordered_level(records: list[Record], key: GroupKey, order: GroupOrder, min_size: int,
+def _kept(members: Sequence[Record]) -> Sequence[Record]:
+    """A group's records as held by its node: columns stay columns."""
+    return members if isinstance(members, RecordColumns) else tuple(members)
+
+
+def _ordered_level(records: Sequence[Record], key: GroupKey, order: GroupOrder, min_size: int,
                    other: str, check: bool = True
-                   ) -> list[tuple[str, list[Record], tuple[str, ...]]]:
+                   ) -> list[tuple[str, Sequence[Record], tuple[str, ...]]]:
     groups = collect_groups(records, key)
     if check and isinstance(order, tuple):
         check_listed_names(order, [*(name for name, _ in groups), other])
@@ -211,7 +204,8 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
           group_key: GroupKey | None = None, gap: float = 0.0, label_pad: float = 0.0,
           label_clearance: float = 0.0, labels: str = "beside",
           rules: LaneRules = LaneRules(), tree: tuple[GroupNode, ...] | None = None,
-          key_width: float | None = None) -> Placement:
+          key_width: float | None = None,
+          label_widths: Callable[[list[str]], np.ndarray] | None = None) -> Placement:
     """Group dated records, place each label, pack each group's boxes into lanes.
 
     `measure_spans` gives, for a list of spans (each distinct span object once),
@@ -225,7 +219,11 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
     "inside" or "none", see `labels`); `gap` the least distance in days between boxes in one
     lane; `tree` the dated records' groups as `group_tree(records, group_key, rules)` made
     them, when the caller has them already; `key_width` the width in days of a key number
-    put beside a bar whose label finds no room (None: such labels are left out)."""
+    put beside a bar whose label finds no room (None: such labels are left out);
+    `label_widths` what `label_width` gives, for many texts at once (speed alone).
+
+    A table read as columns (`columnar.RecordColumns`) is laid out as columns: its groups
+    hold parts of it, and each group's places are PlacedColumns."""
     low, high = domain
     if not high > low:
         raise ValueError(f"domain end {high} must be after its start {low}")
@@ -234,23 +232,31 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
     check_distance("label_clearance", label_clearance)
     if labels not in LABEL_MODES:
         raise ValueError(f"labels must be one of {', '.join(LABEL_MODES)}, not {labels!r}")
-    records = list(records)
-    undated = tuple(record for record in records if record.span is None)
-    if tree is None:
-        tree = group_tree((record for record in records if record.span is not None),
-                          group_key, rules)
+    if isinstance(records, RecordColumns):
+        dated = records.dated()
+        undated = tuple(records.take(np.flatnonzero(~dated)))
+        if tree is None:
+            tree = group_tree(records.take(np.flatnonzero(dated)), group_key, rules)
+    else:
+        records = list(records)
+        undated = tuple(record for record in records if record.span is None)
+        if tree is None:
+            tree = group_tree((record for record in records if record.span is not None),
+                              group_key, rules)
     notes: list[LayoutNote] = []
     with collection_paused():
         measure = BoxMeasure((low, high), measure_spans, label_width, label_pad, label_clearance,
-                             labels, _tree_records(tree), key_width)
+                             labels, list(_tree_parts(tree)), key_width, label_widths)
         groups = tuple(_place_node(node, (), measure, gap, rules, notes) for node in tree)
     return Placement(groups, undated, (low, high), tuple(notes), gap)
 
 
-def _tree_records(tree: tuple[GroupNode, ...]) -> Iterator[Record]:
+def _tree_parts(tree: tuple[GroupNode, ...]) -> Iterator[Sequence[Record]]:
+    """The records of each group that holds them."""
     for node in tree:
-        yield from node.records
-        yield from _tree_records(node.subgroups)
+        if node.records:
+            yield node.records
+        yield from _tree_parts(node.subgroups)
 
 
 def _place_node(node: GroupNode, path: tuple[str, ...], measure: BoxMeasure, gap: float,
@@ -276,14 +282,19 @@ def _place_node(node: GroupNode, path: tuple[str, ...], measure: BoxMeasure, gap
             notes.append(LayoutNote(records[index], path, "left out",
                                     f"no room within the {rules.max_lanes} lanes allowed{where}",
                                     boxes.box(index)))
-    return GroupPlacement(node.name, max(lanes, default=-1) + 1, tuple(placed), (), node.merged,
+    placed = placed if isinstance(placed, PlacedColumns) else tuple(placed)
+    return GroupPlacement(node.name, max(lanes, default=-1) + 1, placed, (), node.merged,
                           tuple(left_out))
 
 
-def _placed(records: tuple[Record, ...], boxes: Boxes, lanes: list[int],
-            kept: list[int], measure: BoxMeasure) -> list[PlacedRecord]:
-    """The PlacedRecords of the kept records, made column by column (a group may be large);
-    a label shown by key number gets the next number of the placement, in drawing order."""
+def _placed(records: Sequence[Record], boxes: Boxes, lanes: list[int],
+            kept: list[int], measure: BoxMeasure) -> Sequence[PlacedRecord]:
+    """The PlacedRecords of the kept records, made column by column (a group may be large),
+    or kept as columns; a label shown by key number gets the next number of the placement,
+    in drawing order."""
+    if isinstance(records, RecordColumns):
+        return _placed_columns(records, boxes, lanes, kept, measure)
+
     def column(values) -> list:
         values = values.tolist() if isinstance(values, np.ndarray) else values
         return values if len(kept) == len(records) else [values[index] for index in kept]
@@ -297,17 +308,36 @@ def _placed(records: tuple[Record, ...], boxes: Boxes, lanes: list[int],
                 label_side=sides, key=keys, shown=shown)
 
 
+def _placed_columns(records: RecordColumns, boxes: Boxes, lanes: list[int],
+                    kept: list[int], measure: BoxMeasure) -> PlacedColumns:
+    every = len(kept) == len(records)
+    picked = slice(None) if every else np.array(kept, dtype=np.intp)
+
+    def column(values: list) -> list:
+        return values if every else [values[index] for index in kept]
+
+    sides = [LABEL_SIDES[side] for side in boxes.side[picked].tolist()]
+    keys = [next(measure.keys) if side.startswith("key") else 0 for side in sides]
+    return PlacedColumns(records if every else records.take(picked),
+                         np.asarray(lanes, dtype=np.int64)[picked], boxes.box_start[picked],
+                         boxes.box_end[picked], boxes.bar_start[picked], boxes.bar_end[picked],
+                         sides, keys, column(boxes.shown) if boxes.shown is not None else None)
+
+
 def _path_text(path: tuple[str, ...]) -> str:
     return " / ".join(repr(name) if name else "(none)" for name in path)
 
 
-def _sorted_indices(records: tuple[Record, ...], boxes: Boxes, rules: LaneRules) -> list[int]:
+def _sorted_indices(records: Sequence[Record], boxes: Boxes, rules: LaneRules) -> list[int]:
     """Indices of `records` in sort order; ties by source row, then input position."""
     by_row = _row_order(records)
     sort = rules.sort
     if callable(sort) or sort == "label":
-        cell = sort if callable(sort) else (lambda record: record.label)
-        keys = [natural_key(cell(record)) for record in records]
+        if isinstance(records, RecordColumns) and sort == "label":
+            keys = list(map(natural_key, records.column("labels")))
+        else:
+            cell = sort if callable(sort) else (lambda record: record.label)
+            keys = [natural_key(cell(record)) for record in records]
         # reverse=True keeps sort stability: equal keys stay in row order.
         return sorted(by_row.tolist(), key=keys.__getitem__, reverse=rules.descending)
     if sort == "duration":
@@ -321,8 +351,10 @@ def _sorted_indices(records: tuple[Record, ...], boxes: Boxes, rules: LaneRules)
     return by_row[order].tolist()
 
 
-def _row_order(records: tuple[Record, ...]) -> np.ndarray:
+def _row_order(records: Sequence[Record]) -> np.ndarray:
     """Indices of `records` by source and row, ties in input order."""
+    if isinstance(records, RecordColumns):
+        return np.argsort(records.row_numbers(), kind="stable")
     provenances = list(map(_PROVENANCE, records))
     rows = np.fromiter(map(attrgetter("row"), provenances), dtype=np.int64, count=len(records))
     if len(set(map(attrgetter("source"), provenances))) <= 1:
@@ -389,6 +421,8 @@ def _pins(records, boxes, order: list[int], gap: float, rules: LaneRules,
     """Pinned lane (from 0) of each record that keeps its pin; notes for those that do not."""
     if rules.lane_of is None:
         return {}
+    if isinstance(records, RecordColumns):
+        records = records.records()       # each record's cell is read: made once, here
     pins: dict[int, int] = {}
     holders: dict[int, list[int]] = {}
     for index in order:

@@ -23,6 +23,7 @@ import numpy as np
 
 from ..calendar import gregorian_year_from_fixed, iso_from_fixed, year_text
 from . import Density, GroupPlacement, LayoutNote, Placement, densest_moment
+from .placed import PlacedColumns
 
 RECORD_COLUMNS = ("row", "id", "group", "lane", "box_start", "box_end")
 # A chart spanning less than this many days gives its moments as dates, not years.
@@ -59,8 +60,14 @@ def group_summaries(placement: Placement) -> list[GroupSummary]:
 
 
 def _leaf_summary(path: tuple[str, ...], group: GroupPlacement, gap: float) -> GroupSummary:
-    density = densest_moment([(p.box_start, p.box_end) for p in group.records], gap)
-    hidden = sum(1 for p in group.records if p.label_side == "none" and p.record.label)
+    placed = group.records
+    if isinstance(placed, PlacedColumns):
+        density = densest_moment(np.column_stack((placed.box_start, placed.box_end)), gap)
+        hidden = sum(1 for side, label in zip(placed.sides, placed.records.column("labels"))
+                     if side == "none" and label)
+    else:
+        density = densest_moment([(p.box_start, p.box_end) for p in placed], gap)
+        hidden = sum(1 for p in placed if p.label_side == "none" and p.record.label)
     return GroupSummary(path, len(group.records), group.lanes, density.depth, density, hidden,
                         len(group.left_out), group.merged)
 
@@ -202,6 +209,8 @@ def _group_columns(group: GroupPlacement, names: tuple[str, ...],
     """A group's placed records by lane, then box start (ties in their order), column by
     column: a group may hold a hundred thousand records."""
     count = len(group.records)
+    if isinstance(group.records, PlacedColumns):
+        return _columns_of_columns(group.records, names, days)
     lanes = np.fromiter(map(_LANE, group.records), dtype=np.int64, count=count)
     starts = np.fromiter(map(_BOX_START, group.records), dtype=float, count=count)
     order = np.lexsort((starts, lanes))     # lexsort is stable
@@ -212,6 +221,17 @@ def _group_columns(group: GroupPlacement, names: tuple[str, ...],
     return [list(map(_ROW, map(_PROVENANCE, records))), ids,
             *([name] * count for name in names), (lanes[order] + 1).tolist(),
             days(starts[order]), days(ends)]
+
+
+def _columns_of_columns(placed: PlacedColumns, names: tuple[str, ...],
+                        days: Callable[[np.ndarray], list]) -> list[Iterable]:
+    """_group_columns of a group placed as columns: read from its arrays."""
+    order = np.lexsort((placed.box_start, placed.lanes))
+    records = placed.records.take(order)
+    ids = [identifier or "" for identifier in records.column("ids")]
+    return [records.row_numbers().tolist(), ids, *([name] * len(order) for name in names),
+            (placed.lanes[order] + 1).tolist(), days(placed.box_start[order]),
+            days(placed.box_end[order])]
 
 
 _LANE, _BOX_START, _BOX_END = attrgetter("lane"), attrgetter("box_start"), attrgetter("box_end")
@@ -259,6 +279,7 @@ def write_csv(placement: Placement, stream: TextIO) -> None:
 _CSV_SPECIAL = re.compile(r'[,"\r\n]')
 # What a spreadsheet reads as the start of a formula (OWASP, "CSV Injection").
 _FORMULA_STARTS = frozenset("=+-@\t\r")
+_FORMULA_LINE = re.compile(r"^[=+\-@\t\r]", re.MULTILINE)
 
 
 def _csv_fields(column: list, table_text: bool = False) -> list[str]:
@@ -267,7 +288,9 @@ def _csv_fields(column: list, table_text: bool = False) -> list[str]:
     table's own text, kept from being run as a formula."""
     if not column or type(column[0]) is not str:
         return list(map(str, column))
-    risky = table_text and any(cell[:1] in _FORMULA_STARTS for cell in column)
+    # A cell beginning as a formula begins a line of the column joined by line breaks (so do
+    # the lines of a cell holding a break: the cell by cell path below sorts those out).
+    risky = table_text and _FORMULA_LINE.search("\n".join(column)) is not None
     if not risky and not _CSV_SPECIAL.search("".join(column)):
         return column                       # the usual case: nothing to quote
     return [_csv_field(cell, table_text) for cell in column]

@@ -13,8 +13,11 @@ by `chart.parse_window`.
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Iterable
+from typing import Iterable, Sequence
 
+import numpy as np
+
+from ..columnar import RecordColumns
 from ..errors import UsageError
 from ..model import Record, Span
 
@@ -47,9 +50,11 @@ class TimeWindow:
 
 
 def split_by_window(records: Iterable[Record], window: TimeWindow | None
-                    ) -> tuple[list[Record], list[Record]]:
+                    ) -> tuple[Sequence[Record], list[Record]]:
     """(records kept, dated records wholly outside the window); undated records are kept,
-    to be listed under the chart as always."""
+    to be listed under the chart as always. A table's columns are kept as columns."""
+    if isinstance(records, RecordColumns):
+        return _split_columns(records, window)
     kept, outside = [], []
     for record in records:
         if window is None or record.span is None or window.may_hold(record.span):
@@ -57,6 +62,18 @@ def split_by_window(records: Iterable[Record], window: TimeWindow | None
         else:
             outside.append(record)
     return kept, outside
+
+
+def _split_columns(records: RecordColumns, window: TimeWindow | None
+                   ) -> tuple[RecordColumns, list[Record]]:
+    """split_by_window of a table's columns: each distinct span looked at once."""
+    if window is None:
+        return records, []
+    holds = np.fromiter((span is None or window.may_hold(span) for span in records.spans),
+                        dtype=bool, count=len(records.spans))
+    inside = holds[records.codes()]
+    return (records.take(np.flatnonzero(inside)),
+            records.take(np.flatnonzero(~inside)).records())
 
 
 def outside_note(count: int) -> str:

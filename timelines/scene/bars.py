@@ -7,7 +7,6 @@ and the signs whose dates lie beyond the window are left out.
 """
 from __future__ import annotations
 
-import math
 from collections.abc import Sequence
 from dataclasses import dataclass
 from operator import attrgetter
@@ -68,11 +67,15 @@ def drawn_spans(spans: Sequence[Span], domain: tuple[float, float], stub: float 
     (and an unknown end from the start's latest), so the whole stretch reads as possible."""
     low_edge, high_edge = domain
     starts, ends = list(map(_START, spans)), list(map(_END, spans))
-    start_earliest, start_latest = _bounds(starts, _EARLIEST), _bounds(starts, _LATEST)
-    end_earliest, end_latest = _bounds(ends, _EARLIEST), _bounds(ends, _LATEST)
-    # The nearest date known from each far side inwards: a stub is measured from it.
-    start_anchor = _first_known(start_latest, _first_known(end_earliest, end_latest))
-    end_anchor = _first_known(end_earliest, _first_known(start_latest, start_earliest))
+    # None converts to NaN in a float array: the four bounds of each span in one call.
+    bounds = np.array(list(map(_BOUNDS, spans)), dtype=float).reshape(-1, 4)
+    start_earliest, start_latest, end_earliest, end_latest = bounds.T
+    # The nearest date known from each far side inwards: a stub is measured from it. In
+    # order that is the start's latest (the end's earliest); where the dates known are out of
+    # order (`1704` to `after 1701`) the stub starts from the earliest (latest) of them all,
+    # so that it never ends before the span starts.
+    start_anchor = np.fmin(np.fmin(start_latest, end_earliest), end_latest)
+    end_anchor = np.fmax(np.fmax(end_earliest, start_latest), start_earliest)
     # Each drawn bound is the first one known of those it falls back on.
     a = _first_known(start_earliest, start_anchor - stub)
     d = _first_known(end_latest, end_anchor + stub)
@@ -87,8 +90,10 @@ def drawn_spans(spans: Sequence[Span], domain: tuple[float, float], stub: float 
     # than the latest end.
     c, b = np.maximum(c, a), np.minimum(b, d)
     a, b, c, d = (np.clip(day, low_edge, high_edge) for day in (a, b, c, d))
-    certain = np.fromiter((span.certain_core is not None for span in spans), dtype=bool,
-                          count=len(spans))
+    # Span.certain_core is not None, on the arrays: each side open or bounded inwards, and
+    # (both bounded) the start's latest no later than the end's earliest.
+    certain = ((open_start | ~np.isnan(start_latest)) & (open_end | ~np.isnan(end_earliest))
+               & ~(start_latest > end_earliest))
     return DrawnSpans(a, b, c, d, open_start, open_end, (b <= c) & certain)
 
 
@@ -105,13 +110,8 @@ def unbounded(endpoint, side: str) -> bool:
 
 
 _START, _END = attrgetter("start"), attrgetter("end")
-_EARLIEST, _LATEST, _IS_OPEN = attrgetter("earliest"), attrgetter("latest"), attrgetter("is_open")
-
-
-def _bounds(endpoints: list, bound: attrgetter) -> np.ndarray:
-    """One bound of each endpoint in fixed days; NaN where it has none."""
-    return np.array([math.nan if day is None else day for day in map(bound, endpoints)],
-                    dtype=float)
+_BOUNDS = attrgetter("start.earliest", "start.latest", "end.earliest", "end.latest")
+_IS_OPEN = attrgetter("is_open")
 
 
 def _first_known(days: np.ndarray, otherwise) -> np.ndarray:

@@ -8,18 +8,20 @@ scale itself, which starts right of the group names (`chart_scale`).
 from __future__ import annotations
 
 from operator import attrgetter
-from typing import Callable, Iterable
+from typing import Callable, Iterable, Sequence
 
 import numpy as np
 
+from ..columnar import RecordColumns
 from ..errors import UsageError
 from ..layout import GroupNode, LaneRules, TimeWindow, group_tree
+from ..layout.grouping import BY_GROUP
 from ..model import Record
 from .bars import drawn_spans, qualifier_kind, stub_days
 from .compose import SUBGROUP_INDENT
 from .encodings import OPEN_ARROW_REACH
 from .scale import TimeScale, nice_domain
-from .textsize import text_width
+from .textsize import text_width, text_widths
 from .theme import Theme
 
 # Renderers that hint glyphs (Agg for PNG, cairo) set a line up to about 4% wider than the
@@ -42,6 +44,13 @@ def label_width(scale: TimeScale, theme: Theme) -> Callable[[str], float]:
     per_px = days_per_px(scale)
     return lambda label: (text_width(label, theme.font_size, families=theme.font_family)
                           * RENDERED_WIDTH_ALLOWANCE * per_px)
+
+
+def label_widths(scale: TimeScale, theme: Theme) -> Callable[[list[str]], np.ndarray]:
+    """`label_width` of many labels at once."""
+    per_px = days_per_px(scale)
+    return lambda labels: (text_widths(labels, theme.font_size, families=theme.font_family)
+                           * RENDERED_WIDTH_ALLOWANCE * per_px)
 
 
 def key_width(count: int, scale: TimeScale, theme: Theme) -> float:
@@ -77,7 +86,7 @@ def drawn_measure(scale: TimeScale, theme: Theme):
         count = len(spans)
         before = np.fromiter((room_for_sign(span.start) for span in spans), float, count)
         after = np.fromiter((room_for_sign(span.end) for span in spans), float, count)
-        point = np.fromiter((span.is_point for span in spans), bool, count)
+        point = _points(spans)
         # a diamond is wider than its day; its sign stands on the right
         low = np.where(point, drawn.start_low - marker, drawn.start_low - before)
         high = np.where(point, drawn.end_high + marker + after, drawn.end_high + after)
@@ -88,29 +97,61 @@ def drawn_measure(scale: TimeScale, theme: Theme):
     return measure_spans
 
 
+def _points(spans: list) -> np.ndarray:
+    """Span.is_point of each span, asked only of those whose start and end have the same
+    bounds (the others cannot be points)."""
+    bounds = np.array(list(map(_BOUNDS, spans)), dtype=float).reshape(-1, 4)
+    same = bounds[:, :2] == bounds[:, 2:]
+    same |= np.isnan(bounds[:, :2]) & np.isnan(bounds[:, 2:])
+    point = same.all(axis=1)
+    for index in np.flatnonzero(point).tolist():
+        point[index] = spans[index].is_point
+    return point
+
+
+# None converts to NaN in a float array: the four bounds of a span in one call.
+_BOUNDS = attrgetter("start.earliest", "start.latest", "end.earliest", "end.latest")
+
+
 def chart_scale(dated: list[Record], theme: Theme,
                 tree: Iterable[GroupNode] | None = None,
                 window: TimeWindow | None = None) -> TimeScale:
     """The time axis over every bound of the dated records (or the --from/--to window),
     right of the group names."""
-    spans = [r.span for r in dated]
-    # Records read from one table share Span objects: each distinct one is looked at once.
-    bounds = [day for span in dict(zip(map(id, spans), spans)).values()
-              for day in (span.start.earliest, span.start.latest, span.end.earliest,
-                          span.end.latest) if day is not None]
-    low, high = nice_domain(min(bounds), max(bounds), era=theme.era, calendar=theme.calendar)
+    low, high = _bounds(dated)
+    low, high = nice_domain(low, high, era=theme.era, calendar=theme.calendar)
     if window is not None:
         low, high = window.domain(low, high)
     if high <= low:
         raise UsageError(f"no record reaches into the window --from {window.start_text!r} "
                          f"--to {window.end_text!r}", hint="give both --from and --to")
     if tree is None:
-        tree = group_tree(dated, attrgetter("group"), LaneRules())
+        tree = group_tree(dated, BY_GROUP, LaneRules())
     column = group_column_width(tree, theme)
-    if column and any(record.span.start.is_open for record in dated):
+    if column and _any_open_start(dated):
         column += theme.bar_height * OPEN_ARROW_REACH     # a left arrow keeps off the names
     left = theme.margin + column
     return TimeScale(low, high, left, theme.width - theme.margin)
+
+
+def _bounds(dated: Sequence[Record]) -> tuple[float, float]:
+    """The first and last bound of any dated record."""
+    if isinstance(dated, RecordColumns):
+        bounds = dated.span_bounds()[dated.used_codes()]
+        if not np.isnan(bounds).all():
+            return int(np.nanmin(bounds)), int(np.nanmax(bounds))   # whole days
+    spans = [r.span for r in dated]
+    # Records read from one table share Span objects: each distinct one is looked at once.
+    bounds = [day for span in dict(zip(map(id, spans), spans)).values()
+              for day in (span.start.earliest, span.start.latest, span.end.earliest,
+                          span.end.latest) if day is not None]
+    return min(bounds), max(bounds)
+
+
+def _any_open_start(dated: Sequence[Record]) -> bool:
+    if isinstance(dated, RecordColumns):
+        return any(dated.spans[code].start.is_open for code in dated.used_codes().tolist())
+    return any(record.span.start.is_open for record in dated)
 
 
 def group_column_width(tree: Iterable[GroupNode], theme: Theme) -> float:

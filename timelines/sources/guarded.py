@@ -8,10 +8,13 @@
 - A spreadsheet cell with no value to read (an UnreadableCell: a formula never calculated, an
   error value, 1900-02-29) is that cell's DateError in a date column; in the other columns a
   formula with no saved value is left empty, and one note per column says so.
+- A note on some cells of a column (here and in conventions.py) asks its question once per
+  distinct value (flagged_offsets): a million-row column holds perhaps a hundred thousand.
 """
 from __future__ import annotations
 
 from collections.abc import Callable
+from datetime import date, datetime, time
 
 from ..dates import DateError
 from ..dates.settings import DateSettings
@@ -35,6 +38,12 @@ def parsed_column(parse: ColumnParser, values: list[object], settings: DateSetti
     if from_spreadsheet and UnreadableCell in set(map(type, values)):
         results = _unreadable_cells_refused(values, results)
     return results
+
+
+def each_value_guarded(parse: ColumnParser, values: list[object], settings: DateSettings,
+                       **options: object) -> list:
+    """`parsed_column` after the whole column failed: each distinct value on its own."""
+    return _each_value_guarded(parse, values, settings, options)
 
 
 def _each_value_guarded(parse: ColumnParser, values: list[object], settings: DateSettings,
@@ -78,14 +87,43 @@ def _unreadable_cells_refused(values: list[object], results: list) -> list:
     return results
 
 
+def flagged_offsets(values: list[object], flagged: Callable[[object], object]) -> list[int]:
+    """The offsets, in order, of the cells for which `flagged(value)` is true, asked once per
+    distinct value: a note's test on each of a million cells took longer than reading them,
+    and real columns repeat a lot. Cells are their own keys, as a text file's are, unless the
+    column holds two types whose cells may be equal: 0, 0.0 and False are equal dict keys
+    that a test may answer differently, so then each is keyed by its type, as `_key` does."""
+    typed = _may_be_equal(set(map(type, values)))
+    keys = list(zip(map(type, values), values)) if typed else values
+    try:
+        distinct = set(keys)
+    except TypeError:  # an unhashable cell (a list in a DataFrame): each cell asked in turn
+        return [offset for offset, value in enumerate(values) if flagged(value)]
+    hits = {key for key in distinct if flagged(key[1] if typed else key)}
+    # Then a set lookup per cell, no call: about a third of the time of the test on each.
+    return [offset for offset, key in enumerate(keys) if key in hits] if hits else []
+
+
+# Cells of these types equal no cell of another of them; numbers of different types can be
+# equal (1650 == 1650.0, 1 == True), and a type not named here may equal anything.
+_OWN_KIND_ONLY = frozenset({str, type(None), date, datetime, time, UnreadableCell})
+_NUMBERS = frozenset({int, float, bool})
+
+
+def _may_be_equal(kinds: set[type]) -> bool:
+    """Whether a cell of one of these types may equal a cell of another of them."""
+    if len(kinds) < 2:
+        return False
+    return not kinds <= _OWN_KIND_ONLY | _NUMBERS or len(kinds & _NUMBERS) > 1
+
+
 def unknown_value_notes(table: Table, cells: list[list[object]], rows: list[int],
                         date_places: set[int]) -> list[Problem]:
     """A note for each column other than the date columns whose cells include formulas with
     no saved value: their cells read as empty, and the note names the rows."""
     notes = []
     for place in sorted(table.marked - date_places):
-        unknown = [rows[index] for index, value in enumerate(cells[place])
-                   if type(value) is UnreadableCell and not value.shown]
+        unknown = [rows[offset] for offset in flagged_offsets(cells[place], _unknown_value)]
         if unknown:
             count = "a formula has" if len(unknown) == 1 else f"{len(unknown)} formulas have"
             reason = f"{count} no saved value ({row_ranges(unknown)}); read as empty"
@@ -93,3 +131,8 @@ def unknown_value_notes(table: Table, cells: list[list[object]], rows: list[int]
                                  reason, "note",
                                  hint="open and save the file in a spreadsheet program"))
     return notes
+
+
+def _unknown_value(value: object) -> bool:
+    """A formula with no saved value (an error value shows its text instead)."""
+    return type(value) is UnreadableCell and not value.shown

@@ -7,26 +7,28 @@ and end columns are its not-before and not-after, and a `when` cell's whole read
 century BC`, `1650–1660`) is the window of one moment (`model.event_endpoint`)."""
 from __future__ import annotations
 
-from collections.abc import Callable, Iterable
+from collections.abc import Callable, Iterable, Sequence
 from dataclasses import dataclass
 from itertools import repeat
 from pathlib import Path
 
 import numpy as np
 
+from ..columnar import RecordColumns
 from ..dates import DateError, parse_column, parse_span_column
+from ..dates.column import Coded, parse_column_coded, parse_span_column_coded
 from ..dates.built import checked_span
 from ..dates.settings import DEFAULT_SETTINGS, DateSettings
 from ..errors import UsageError
 from ..model import (
-    EVENT, SPAN, Endpoint, Provenance, Qualifier, Record, Span, collection_paused,
-    event_endpoint, many,
+    EVENT, SPAN, Endpoint, Qualifier, Record, Span, collection_paused, event_endpoint,
 )
 from .conventions import hundreds_notes
 from .columns import ColumnMap, detect_columns, existing_column, column_parts
-from .guarded import internal_error, parsed_column, unknown_value_notes
+from .guarded import each_value_guarded, internal_error, parsed_column, unknown_value_notes
 from .problems import Problem
 from .serials import DATE_NUMBERS, date_column_values
+from .sheets import UnreadableCell
 from .tables import Table, cell_text, read_table
 
 _UNKNOWN_START = Endpoint.open(Qualifier.UNKNOWN_START)
@@ -38,7 +40,7 @@ _OPEN_END = Endpoint.open(Qualifier.OPEN_END)
 
 @dataclass(frozen=True, slots=True)
 class LoadResult:
-    records: tuple[Record, ...]
+    records: Sequence[Record]            # a RecordColumns as read; a tuple where given
     problems: tuple[Problem, ...]
     rows_read: int                       # non-blank data rows; wholly blank rows are skipped
 
@@ -126,7 +128,7 @@ def _load(table: Table, layout: _Layout, settings: DateSettings,
     notes = [*table.notes, *unknown_value_notes(table, cells, numbers, layout.date_places),
              *hundreds_notes(table.source, layout.header, cells, numbers, layout.date_places,
                              settings)]
-    return LoadResult(tuple(records), (*notes, *problems), len(offsets))
+    return LoadResult(records, (*notes, *problems), len(offsets))
 
 
 def _filled_rows(columns: tuple[list[object], ...]) -> list[int]:
@@ -151,23 +153,54 @@ DateOutcome = Span | None | list[tuple[int, DateError | None]]  # span, undated,
 
 
 def _start_end_outcomes(cells: list[list[object]], layout: _Layout, settings: DateSettings,
-                        sheet: bool) -> list[DateOutcome]:
-    starts = _side(cells, layout.start, _OPEN_START, settings, sheet)
-    ends = _side(cells, layout.end, _OPEN_END, settings, sheet)
-    # Parsed cells are shared objects, one per distinct value, kept alive by the two lists:
-    # identity names them, so each distinct pair is made into a span once.
-    pairs = list(zip(map(id, starts), map(id, ends)))
-    found = {pair: _guarded_outcome(starts[row], ends[row], layout)
-             for pair, row in dict(zip(pairs, range(len(pairs)))).items()}
-    return list(map(found.__getitem__, pairs))
+                        sheet: bool) -> Coded:
+    """Each row's outcome, as codes: each distinct pair of start and end readings is made
+    into a span (or failures) once."""
+    count = len(cells[0])
+    starts = _side(cells, layout.start, _OPEN_START, settings, sheet, count)
+    ends = _side(cells, layout.end, _OPEN_END, settings, sheet, count)
+    width = len(ends.results)
+    pairs, codes = np.unique(starts.codes.astype(np.int64) * width + ends.codes,
+                             return_inverse=True)
+    outcomes = [_guarded_outcome(starts.results[pair // width], ends.results[pair % width],
+                                 layout) for pair in pairs.tolist()]
+    return Coded(codes.reshape(-1), outcomes)
 
 
 def _side(cells: list[list[object]], place: int | None, open_side: Endpoint,
-          settings: DateSettings, sheet: bool) -> list[Endpoint | DateError | None]:
+          settings: DateSettings, sheet: bool, count: int) -> Coded:
     if place is None:
-        return [None] * len(cells[0])
-    return parsed_column(parse_column, cells[place], settings, from_spreadsheet=sheet,
-                         open_cell=open_side)
+        return Coded(np.zeros(count, dtype=np.intp), [None])
+    return _guarded_coded(parse_column_coded, parse_column, cells[place], settings, sheet,
+                          open_cell=open_side)
+
+
+def _guarded_coded(coded: Callable[..., Coded], each: Callable[..., list],
+                   values: list[object], settings: DateSettings, sheet: bool,
+                   **options: object) -> Coded:
+    """`coded(values, settings, **options)`; where a fault of ours stops it, each value read
+    on its own, and in a spreadsheet with cells that have no value to read, the column as
+    `guarded.parsed_column` reads it; both coded by the results' identity (rare paths)."""
+    if not (sheet and UnreadableCell in set(map(type, values))):
+        try:
+            return coded(values, settings, **options)
+        except Exception:  # noqa: BLE001 - a fault of ours in some cell: found cell by cell
+            return _by_identity(each_value_guarded(each, values, settings, **options))
+    return _by_identity(parsed_column(each, values, settings, from_spreadsheet=sheet,
+                                      **options))
+
+
+def _by_identity(results: list) -> Coded:
+    """Results that are shared objects, coded by which object each is."""
+    place: dict[int, int] = {}
+    distinct = []
+    for result in results:
+        if id(result) not in place:
+            place[id(result)] = len(distinct)
+            distinct.append(result)
+    codes = np.fromiter(map(place.__getitem__, map(id, results)), dtype=np.intp,
+                        count=len(results))
+    return Coded(codes, distinct)
 
 
 def _guarded_outcome(start: Endpoint | DateError | None, end: Endpoint | DateError | None,
@@ -190,6 +223,9 @@ def _outcome(start: Endpoint | DateError | None, end: Endpoint | DateError | Non
         return None
     start = start or _UNKNOWN_START
     end = end or _UNKNOWN_END
+    if start.earliest is None and start.latest is None and end.earliest is None and (
+            end.latest is None):
+        return None   # `..` and nothing known: no day to draw from (undated, said so)
     if end.latest is not None and start.earliest is not None and end.latest < start.earliest:
         return [(layout.end, None)]   # a contradiction: the end wholly before the start
     if layout.events:
@@ -197,33 +233,18 @@ def _outcome(start: Endpoint | DateError | None, end: Endpoint | DateError | Non
     return checked_span(start, end)   # in order: checked just above
 
 
-def _as_events(outcomes: list[DateOutcome]) -> list[DateOutcome]:
-    """Each span read from a when cell as one moment in its whole window; equal cells share
-    a span, so each distinct one is made once."""
-    made: dict[int, DateOutcome] = {}
-
-    def moment(outcome: DateOutcome) -> DateOutcome:
-        if type(outcome) is not Span:
-            return outcome
-        found = made.get(id(outcome))
-        if found is None:
-            found = made[id(outcome)] = Span.point(event_endpoint(outcome.start, outcome.end))
-        return found
-
-    return list(map(moment, outcomes))
+def _as_events(outcomes: Coded) -> Coded:
+    """Each span read from a when cell as one moment in its whole window."""
+    return Coded(outcomes.codes, [
+        Span.point(event_endpoint(outcome.start, outcome.end)) if type(outcome) is Span
+        else outcome for outcome in outcomes.results])
 
 
 def _when_outcomes(cells: list[object], place: int, settings: DateSettings,
-                   sheet: bool) -> list[DateOutcome]:
-    failures: dict[int, DateOutcome] = {}
-
-    def outcome(span: Span | DateError | None) -> DateOutcome:
-        if isinstance(span, DateError):
-            return failures.setdefault(id(span), [(place, span)])
-        return span
-
-    return list(map(outcome, parsed_column(parse_span_column, cells, settings,
-                                           from_spreadsheet=sheet)))
+                   sheet: bool) -> Coded:
+    spans = _guarded_coded(parse_span_column_coded, parse_span_column, cells, settings, sheet)
+    return Coded(spans.codes, [[(place, span)] if isinstance(span, DateError) else span
+                               for span in spans.results])
 
 
 def _texts(cells: list[object]) -> list[str]:
@@ -258,62 +279,49 @@ class _Texts:
         found = self.of(place)
         return repeat("", self.count) if found is None else found
 
-    def or_none(self, place: int | None) -> Iterable[str | None]:
+    def or_none(self, place: int | None) -> list[str | None] | None:
+        """The texts of column `place`, None for an empty cell; None for a part not in use."""
         found = self.of(place)
-        return repeat(None, self.count) if found is None else [text or None for text in found]
+        return None if found is None else [text or None for text in found]
 
 
 def _records(source: str, layout: _Layout, texts: _Texts, numbers: list[int],
-             outcomes: list[DateOutcome]) -> list[Record]:
-    """The Records of the rows whose dates were read (dated or undated), from whole columns."""
-    kept = [index for index, outcome in enumerate(outcomes) if type(outcome) is not list]
-    pick = _picker(kept, len(outcomes))
-    ids = pick(texts.or_none(layout.id))
-    rows = pick(numbers)
-    labels = [label or identifier or f"row {row}" for label, identifier, row
-              in zip(pick(texts.or_empty(layout.label)), ids, rows)]
+             outcomes: Coded) -> RecordColumns:
+    """The Records of the rows whose dates were read (dated or undated), as columns."""
+    failed = np.fromiter((type(outcome) is list for outcome in outcomes.results), dtype=bool,
+                         count=len(outcomes.results))
+    spans = [None if type(outcome) is list else outcome for outcome in outcomes.results]
+    ids = texts.or_none(layout.id)
+    labels = texts.of(layout.label)
+    labels = list(labels) if labels is not None else [""] * texts.count
+    for index in [index for index, label in enumerate(labels) if not label]:
+        labels[index] = (ids[index] if ids is not None else None) or f"row {numbers[index]}"
     if layout.when is None:
-        start_texts, end_texts = texts.or_empty(layout.start), texts.or_empty(layout.end)
+        start_texts, end_texts = texts.of(layout.start), texts.of(layout.end)
     else:
-        start_texts, end_texts = texts.or_empty(layout.when), texts.or_empty(None)
-    count = len(kept)
-    provenances = many(Provenance, count, source=repeat(source), row=rows,
-                       columns=repeat(layout.columns.used()))
-    return many(Record, count, label=labels, span=pick(outcomes), provenance=provenances,
-                start_text=pick(start_texts), end_text=pick(end_texts), id=ids,
-                group=pick(texts.or_none(layout.group)), color=pick(texts.or_none(layout.color)),
-                fields=pick(_fields(texts, layout.other)),
-                kind=repeat(EVENT if layout.events else SPAN))
-
-
-def _picker(kept: list[int], count: int) -> Callable[[Iterable], list]:
-    """Selects the kept rows' values from a column (all of it when every row is kept)."""
-
-    def pick(column: Iterable) -> list:
-        values = column if isinstance(column, list) else list(column)
-        return values if len(kept) == count else [values[index] for index in kept]
-
-    return pick
-
-
-def _fields(texts: _Texts, other: tuple[tuple[int, str], ...]) -> Iterable[tuple]:
-    """Each row's (name, text) pairs of the columns kept as fields; equal rows share them."""
-    if not other:
-        return repeat((), texts.count)
-    names = [name for _, name in other]
-    values = list(zip(*(texts.of(place) for place, _ in other)))
-    shared = {row: tuple(zip(names, row)) for row in set(values)}
-    return list(map(shared.__getitem__, values))
+        start_texts, end_texts = texts.of(layout.when), None
+    table = RecordColumns(
+        source=source, columns=layout.columns.used(), spans=spans, span_of=outcomes.codes,
+        rows=np.array(numbers, dtype=np.int64), labels=labels, start_texts=start_texts,
+        end_texts=end_texts, ids=ids, groups=texts.or_none(layout.group),
+        colors=texts.or_none(layout.color),
+        fields=tuple((name, texts.of(place)) for place, name in layout.other),
+        kind=EVENT if layout.events else SPAN)
+    kept = failed[outcomes.codes]
+    return table.take(np.flatnonzero(~kept)) if kept.any() else table
 
 
 def _problems(source: str, layout: _Layout, texts: _Texts, numbers: list[int],
-              outcomes: list[DateOutcome]) -> list[Problem]:
+             outcomes: Coded) -> list[Problem]:
     """The problems of the rows, in row order: unreadable cells, contradictions, no date."""
+    reported = np.fromiter((type(outcome) is not Span for outcome in outcomes.results),
+                           dtype=bool, count=len(outcomes.results))
     problems: list[Problem] = []
-    for index, outcome in enumerate(outcomes):
+    for index in np.flatnonzero(reported[outcomes.codes]).tolist():
+        outcome = outcomes.results[outcomes.codes[index]]
         if outcome is None:
             problems.append(_undated(source, numbers[index], layout, texts, index))
-        elif type(outcome) is list:
+        else:
             problems.extend(_failure(source, numbers[index], layout, texts, index, place, error)
                             for place, error in outcome)
     return problems

@@ -108,3 +108,18 @@ def test_the_lanes_report_lists_every_record_however_many(tmp_path, capsys):
     assert main(["lanes", str(path), "--group", "group", "--format", "csv"]) == 0
     rows = capsys.readouterr().out.strip().splitlines()
     assert len(rows) == OVERVIEW_FROM + 10 + 1              # a header and every record
+
+
+def test_the_part_takes_records_bounded_on_both_sides_first(tmp_path):
+    # Thirty rows begin in 1550 with an empty end (they may reach any decade, and would be
+    # drawn as stubs far left of it); thirty lie in 1700-1720. Asked for 1700 to 1710, the
+    # lanes show the thirty bounded rows first, then the earliest of the others.
+    path = tmp_path / "t.csv"
+    rows = [f"U{i},{1550 + i % 3}," for i in range(30)] + [
+        f"B{i},{1700 + i % 10},{1710 + i % 10}" for i in range(30)]
+    path.write_text("label,start,end\n" + "\n".join(rows) + "\n", encoding="utf-8")
+    arranged = Chart(path).overview("yes").window("1700", "1710").layout()
+    drawn = {p.record.label for _, g in arranged.placement.leaves() for p in g.records}
+    assert len(drawn) == FIRST_SHOWN
+    assert {f"B{i}" for i in range(30)} <= drawn
+    assert "those with both ends bounded first" in arranged.overview.note

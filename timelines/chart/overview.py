@@ -60,7 +60,7 @@ def choose_part(records: list[Record], kept: list[Record], window, where: str | 
     if len(chosen) > limit or first is not None:
         if len(chosen) > limit:
             chosen = sorted(chosen, key=_start)[:limit]
-        how.append(f"the first {limit:,} by start")
+        how.append(f"the first {limit:,} by start, those with both ends bounded first")
     undated = [r for r in kept if r.span is None]
     first, last = min(map(_low, dated)), max(map(_high, dated))    # the whole time, once
     per = _block((last - first) / 365.2425)
@@ -127,8 +127,17 @@ def _high(record: Record) -> float:
                             record.span.start.earliest) if d is not None)
 
 
-def _start(record: Record) -> tuple[float, int]:
-    return _low(record), record.provenance.row
+def _start(record: Record) -> tuple[bool, float, int]:
+    """The order the part is chosen in: records whose dates bound both ends first (an empty
+    end cell could lie anywhere: in a chosen decade such a record is drawn as a stub far
+    outside it, which says little), then by start, then by row."""
+    return not _bounded(record), _low(record), record.provenance.row
+
+
+def _bounded(record: Record) -> bool:
+    start, end = record.span.start, record.span.end
+    return ((start.earliest is not None or start.is_open)
+            and (end.latest is not None or end.is_open))
 
 
 def _window_days(records: list[Record]) -> tuple[float, float]:

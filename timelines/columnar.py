@@ -21,7 +21,7 @@ from typing import overload
 
 import numpy as np
 
-from .model import EVENT, Endpoint, Provenance, Record, Span, many
+from .model import Endpoint, Provenance, Record, Span, many
 
 # The bounds of each distinct span, as columns of `span_bounds`.
 EARLIEST_START, LATEST_START, EARLIEST_END, LATEST_END = range(4)
@@ -42,7 +42,8 @@ class RecordColumns(Sequence):
     """The records of one table, as columns (module notes). `rows`, `span_of` and
     `positions` are numpy arrays of one value per record; the text columns are lists, or
     None where the table has no such column (the text is then "", the id, group and colour
-    None); `fields` the other columns kept, as (name, texts) pairs. A part of a table (`take`) keeps the table's own distinct spans and Records."""
+    None); `fields` the other columns kept, as (name, texts) pairs. A part of a table
+    (`take`) keeps the table's own distinct spans and Records."""
 
     __slots__ = ("source", "columns", "spans", "span_of", "rows", "labels", "start_texts",
                  "end_texts", "ids", "groups", "colors", "fields", "kind", "positions",
@@ -194,13 +195,16 @@ class RecordColumns(Sequence):
         top of the module), in fixed days; NaN where a side has no bound or no date. Worked
         out once for the table and its parts."""
         if self._made.bounds is None:
-            spans = [span if span is not None else _NO_SPAN for span in self.spans]
-            self._made.bounds = np.array(list(map(_BOUNDS, spans)), dtype=float).reshape(-1, 4)
+            self._made.bounds = bounds_of(
+                [span if span is not None else _NO_SPAN for span in self.spans])
         return self._made.bounds
 
-    @property
-    def is_events(self) -> bool:
-        return self.kind == EVENT
+    def dated_part(self) -> "RecordColumns":
+        """The records that have a span, as columns."""
+        return self.take(np.flatnonzero(self.dated()))
+
+    def undated_part(self) -> "RecordColumns":
+        return self.take(np.flatnonzero(~self.dated()))
 
 
 def _picked(values: list, positions: list[int]) -> list:
@@ -208,11 +212,12 @@ def _picked(values: list, positions: list[int]) -> list:
     return [values[p] for p in positions]
 
 
+def bounds_of(spans: Sequence[Span]) -> np.ndarray:
+    """Each span's earliest and latest start and end as an n x 4 float array (the columns
+    named at the top of the module); NaN where a side has no bound."""
+    return np.array(list(map(_BOUNDS, spans)), dtype=float).reshape(-1, 4)
+
+
 # None converts to NaN in a float array: the four bounds of a span in one call.
 _BOUNDS = attrgetter("start.earliest", "start.latest", "end.earliest", "end.latest")
 _NO_SPAN = Span.point(Endpoint(None, None, None))   # stands in for an undated row's bounds
-
-
-def as_columns(records: Sequence[Record]) -> RecordColumns | None:
-    """`records` itself when it is a RecordColumns; None otherwise."""
-    return records if isinstance(records, RecordColumns) else None

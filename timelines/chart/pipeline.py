@@ -15,7 +15,6 @@ from functools import partial
 from pathlib import Path
 from typing import Callable, Iterable, Sequence
 
-import numpy as np
 
 from ..check.report import Report, check
 from ..dates import DEFAULT_SETTINGS, DateError, DateSettings, explain, parse_endpoint
@@ -212,7 +211,7 @@ def arrange_read(read: ReadTable, options: ChartOptions = ChartOptions()) -> Arr
 def _dated(records: Sequence[Record]) -> Sequence[Record]:
     """The records with a span; a table's columns stay columns."""
     if isinstance(records, RecordColumns):
-        return records.take(np.flatnonzero(records.dated()))
+        return records.dated_part()
     return [r for r in records if r.span is not None]
 
 

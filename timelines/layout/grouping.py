@@ -76,10 +76,10 @@ def _column_groups(records: RecordColumns, key: GroupKey) -> Groups:
                for value in dict.fromkeys(values)}
     codes = np.fromiter(map(code_of.__getitem__, values), dtype=np.intp, count=len(values))
     order = np.argsort(codes, kind="stable")          # each group's records in input order
-    ends = np.cumsum(np.bincount(codes, minlength=len(names)))
+    sizes = np.bincount(codes, minlength=len(names))
+    ends = np.cumsum(sizes).tolist()
     return [(name, records.take(order[end - size:end]))
-            for name, end, size in zip(names, ends.tolist(),
-                                       np.bincount(codes, minlength=len(names)).tolist())]
+            for name, end, size in zip(names, ends, sizes.tolist())]
 
 
 def merge_small_groups(groups: Groups, min_size: int, other: str

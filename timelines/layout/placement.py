@@ -233,10 +233,9 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
     if labels not in LABEL_MODES:
         raise ValueError(f"labels must be one of {', '.join(LABEL_MODES)}, not {labels!r}")
     if isinstance(records, RecordColumns):
-        dated = records.dated()
-        undated = tuple(records.take(np.flatnonzero(~dated)))
+        undated = tuple(records.undated_part())
         if tree is None:
-            tree = group_tree(records.take(np.flatnonzero(dated)), group_key, rules)
+            tree = group_tree(records.dated_part(), group_key, rules)
     else:
         records = list(records)
         undated = tuple(record for record in records if record.span is None)

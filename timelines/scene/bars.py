@@ -15,6 +15,7 @@ import numpy as np
 
 from ..calendar import fixed_from_gregorian, iso_from_fixed, year_text
 from ..layout import PlacedRecord
+from ..columnar import bounds_of
 from ..model import Qualifier, Record, Span, event_endpoint
 from . import encodings as marks
 from .encodings import EndWindow, LaneBox, MarkStyle
@@ -58,17 +59,17 @@ _DRAWN_FIELDS = ("start_low", "start_high", "end_low", "end_high", "open_start",
                  "has_core")
 
 
-def drawn_spans(spans: Sequence[Span], domain: tuple[float, float], stub: float = 0.0
-                ) -> DrawnSpans:
+def drawn_spans(spans: Sequence[Span], domain: tuple[float, float], stub: float = 0.0,
+                bounds: np.ndarray | None = None) -> DrawnSpans:
     """Where each part of each span is drawn. An open side (ISO 8601-2 `..`: it runs on)
     reaches the axis edge. A side with no far bound (an empty cell, or `after 1780` as an end)
     is drawn `stub` days long from the nearest date known: short, so its length says nothing
     and no other row's dates stretch it. An unknown start reaches to the end's earliest bound
-    (and an unknown end from the start's latest), so the whole stretch reads as possible."""
+    (and an unknown end from the start's latest), so the whole stretch reads as possible.
+    `bounds`: the spans' `columnar.bounds_of`, when the caller has them."""
     low_edge, high_edge = domain
     starts, ends = list(map(_START, spans)), list(map(_END, spans))
-    # None converts to NaN in a float array: the four bounds of each span in one call.
-    bounds = np.array(list(map(_BOUNDS, spans)), dtype=float).reshape(-1, 4)
+    bounds = bounds_of(spans) if bounds is None else bounds
     start_earliest, start_latest, end_earliest, end_latest = bounds.T
     # The nearest date known from each far side inwards: a stub is measured from it. In
     # order that is the start's latest (the end's earliest); where the dates known are out of
@@ -110,7 +111,6 @@ def unbounded(endpoint, side: str) -> bool:
 
 
 _START, _END = attrgetter("start"), attrgetter("end")
-_BOUNDS = attrgetter("start.earliest", "start.latest", "end.earliest", "end.latest")
 _IS_OPEN = attrgetter("is_open")
 
 

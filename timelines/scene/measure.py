@@ -7,12 +7,11 @@ scale itself, which starts right of the group names (`chart_scale`).
 """
 from __future__ import annotations
 
-from operator import attrgetter
 from typing import Callable, Iterable, Sequence
 
 import numpy as np
 
-from ..columnar import RecordColumns
+from ..columnar import RecordColumns, bounds_of
 from ..errors import UsageError
 from ..layout import GroupNode, LaneRules, TimeWindow, group_tree
 from ..layout.grouping import BY_GROUP
@@ -82,11 +81,12 @@ def drawn_measure(scale: TimeScale, theme: Theme):
         return found
 
     def measure_spans(spans: list) -> np.ndarray:
-        drawn = drawn_spans(spans, domain, stub)
+        bounds = bounds_of(spans)
+        drawn = drawn_spans(spans, domain, stub, bounds)
         count = len(spans)
         before = np.fromiter((room_for_sign(span.start) for span in spans), float, count)
         after = np.fromiter((room_for_sign(span.end) for span in spans), float, count)
-        point = _points(spans)
+        point = _points(spans, bounds)
         # a diamond is wider than its day; its sign stands on the right
         low = np.where(point, drawn.start_low - marker, drawn.start_low - before)
         high = np.where(point, drawn.end_high + marker + after, drawn.end_high + after)
@@ -97,10 +97,9 @@ def drawn_measure(scale: TimeScale, theme: Theme):
     return measure_spans
 
 
-def _points(spans: list) -> np.ndarray:
+def _points(spans: list, bounds: np.ndarray) -> np.ndarray:
     """Span.is_point of each span, asked only of those whose start and end have the same
-    bounds (the others cannot be points)."""
-    bounds = np.array(list(map(_BOUNDS, spans)), dtype=float).reshape(-1, 4)
+    `bounds` (the others cannot be points)."""
     same = bounds[:, :2] == bounds[:, 2:]
     same |= np.isnan(bounds[:, :2]) & np.isnan(bounds[:, 2:])
     point = same.all(axis=1)
@@ -108,9 +107,6 @@ def _points(spans: list) -> np.ndarray:
         point[index] = spans[index].is_point
     return point
 
-
-# None converts to NaN in a float array: the four bounds of a span in one call.
-_BOUNDS = attrgetter("start.earliest", "start.latest", "end.earliest", "end.latest")
 
 
 def chart_scale(dated: list[Record], theme: Theme,

@@ -7,9 +7,8 @@ and end columns are its not-before and not-after, and a `when` cell's whole read
 century BC`, `1650–1660`) is the window of one moment (`model.event_endpoint`)."""
 from __future__ import annotations
 
-from collections.abc import Callable, Iterable, Sequence
+from collections.abc import Callable, Sequence
 from dataclasses import dataclass
-from itertools import repeat
 from pathlib import Path
 
 import numpy as np
@@ -274,10 +273,6 @@ class _Texts:
         """The text of one cell; "" for a part not in use."""
         found = self.of(place)
         return "" if found is None else found[index]
-
-    def or_empty(self, place: int | None) -> Iterable[str]:
-        found = self.of(place)
-        return repeat("", self.count) if found is None else found
 
     def or_none(self, place: int | None) -> list[str | None] | None:
         """The texts of column `place`, None for an empty cell; None for a part not in use."""

@@ -9,14 +9,15 @@ from pathlib import Path
 PACKAGE = Path(__file__).resolve().parent.parent / "timelines"
 
 # stage -> the project modules and stages it may import: only downward, never a later stage.
-# The root keeps the model (errors, calendar, model, and columnar: a table's records as
-# columns) and the pipeline (chart); each stage is a package (DESIGN.md §2).
-MODEL = {"errors", "calendar", "model", "columnar"}
+# The root keeps the model (errors, calendar, model, spanarrays: spans as arrays, and
+# columnar: a table's records as columns) and the pipeline (chart); each stage is a package (DESIGN.md §2).
+MODEL = {"errors", "calendar", "model", "spanarrays", "columnar"}
 ALLOWED = {
     "errors": set(),
     "calendar": set(),
     "model": {"calendar", "errors"},
-    "columnar": {"model"},
+    "spanarrays": {"model"},
+    "columnar": {"model", "spanarrays"},
     "dates": MODEL,                                      # the date language
     "sources": MODEL | {"dates"},                        # read: tables -> records
     "check": MODEL,                                      # counts, warnings, living persons
@@ -42,7 +43,8 @@ THIRD_PARTY = {
     "bidi": {"scene.shaping"},
 }
 # The stages as the tree shows them: the root holds only the model and the pipeline.
-ROOT_MODULES = {"__init__", "__main__", "errors", "calendar", "model", "columnar"}
+ROOT_MODULES = {"__init__", "__main__", "errors", "calendar", "model", "spanarrays",
+                "columnar"}
 STAGES = {"dates", "sources", "check", "analysis", "layout", "scene", "render", "chart", "cli"}
 
 

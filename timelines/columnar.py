@@ -16,26 +16,23 @@ from __future__ import annotations
 
 from collections.abc import Iterator, Sequence
 from itertools import repeat
-from operator import attrgetter
 from typing import overload
 
 import numpy as np
 
-from .model import Endpoint, Provenance, Record, Span, many
-
-# The bounds of each distinct span, as columns of `span_bounds`.
-EARLIEST_START, LATEST_START, EARLIEST_END, LATEST_END = range(4)
+from .model import Provenance, Record, Span, many
+from .spanarrays import DaySpans, SpanFacts, span_facts
 
 
 class _Made:
     """The Record objects of a table made so far, shared by the table and its parts."""
 
-    __slots__ = ("objects", "made", "bounds")
+    __slots__ = ("objects", "made", "facts")
 
     def __init__(self, count: int) -> None:
         self.objects = np.empty(count, dtype=object)
         self.made = np.zeros(count, dtype=bool)
-        self.bounds: np.ndarray | None = None        # of the distinct spans
+        self.facts: SpanFacts | None = None          # of the distinct spans
 
 
 class RecordColumns(Sequence):
@@ -63,7 +60,7 @@ class RecordColumns(Sequence):
             if column is not None and len(column) != count:
                 raise ValueError(f"column {name} holds {len(column)} values, not {count}")
         self.source, self.columns, self.kind = source, columns, kind
-        self.spans = tuple(spans)
+        self.spans = spans if isinstance(spans, DaySpans) else tuple(spans)
         self.span_of = np.asarray(span_of, dtype=np.intp)
         self.rows = np.asarray(rows, dtype=np.int64)
         self.labels, self.start_texts, self.end_texts = labels, start_texts, end_texts
@@ -187,17 +184,25 @@ class RecordColumns(Sequence):
         return self.dated_spans()[self.codes()]
 
     def dated_spans(self) -> np.ndarray:
-        return np.fromiter((span is not None for span in self.spans), dtype=bool,
-                           count=len(self.spans))
+        return self.span_facts().dated
+
+    def span_facts(self) -> SpanFacts:
+        """The facts of each distinct span (`spanarrays.SpanFacts`), worked out once for the
+        table and its parts."""
+        if self._made.facts is None:
+            self._made.facts = span_facts(self.spans)
+        return self._made.facts
 
     def span_bounds(self) -> np.ndarray:
         """Each distinct span's earliest and latest start and end (the columns named at the
-        top of the module), in fixed days; NaN where a side has no bound or no date. Worked
-        out once for the table and its parts."""
-        if self._made.bounds is None:
-            self._made.bounds = bounds_of(
-                [span if span is not None else _NO_SPAN for span in self.spans])
-        return self._made.bounds
+        top of `spanarrays`), in fixed days; NaN where a side has no bound or no date."""
+        return self.span_facts().bounds
+
+    def spans_at(self, codes: np.ndarray) -> Sequence[Span | None]:
+        """The distinct spans at `codes`, in that order (kept as arrays where they are)."""
+        if isinstance(self.spans, DaySpans):
+            return self.spans.take(codes)
+        return [self.spans[code] for code in codes.tolist()]
 
     def dated_part(self) -> "RecordColumns":
         """The records that have a span, as columns."""
@@ -210,14 +215,3 @@ class RecordColumns(Sequence):
 def _picked(values: list, positions: list[int]) -> list:
     """values[p] for each p."""
     return [values[p] for p in positions]
-
-
-def bounds_of(spans: Sequence[Span]) -> np.ndarray:
-    """Each span's earliest and latest start and end as an n x 4 float array (the columns
-    named at the top of the module); NaN where a side has no bound."""
-    return np.array(list(map(_BOUNDS, spans)), dtype=float).reshape(-1, 4)
-
-
-# None converts to NaN in a float array: the four bounds of a span in one call.
-_BOUNDS = attrgetter("start.earliest", "start.latest", "end.earliest", "end.latest")
-_NO_SPAN = Span.point(Endpoint(None, None, None))   # stands in for an undated row's bounds

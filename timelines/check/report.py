@@ -34,6 +34,7 @@ import numpy as np
 
 from ..columnar import RecordColumns
 from ..model import EVENT, Precision, Record, Span, holds
+from ..spanarrays import EARLIEST_START, LATEST_END
 
 DAYS_PER_YEAR = 365.2425  # the mean Gregorian year (97 leap days in 400 years)
 _LONG_BY_NATURE = frozenset({Precision.MILLENNIUM, Precision.DEEP_TIME})
@@ -268,11 +269,11 @@ def _long_spans(records: Records, limits: CheckLimits) -> list[Finding]:
 def _long_spans_of_columns(records: RecordColumns, limit: int) -> list[Finding]:
     """The same rule on a table's columns: each distinct span measured once, and a Record
     made only for the rows it finds."""
-    long_days = {}
-    for code, span in enumerate(records.spans):
-        days = _extent_days(span)
-        if days is not None and round(days / DAYS_PER_YEAR) > limit:
-            long_days[code] = days
+    facts = records.span_facts()
+    days = facts.bounds[:, LATEST_END] - facts.bounds[:, EARLIEST_START] + 1
+    # Whole years, as the message says them (as `_long_spans`); NaN (unbounded) is not long.
+    long = (np.round(days / DAYS_PER_YEAR) > limit) & ~facts.precision_in(_LONG_BY_NATURE)
+    long_days = dict(zip(np.flatnonzero(long).tolist(), days[long].astype(int).tolist()))
     if not long_days:
         return []
     codes = records.codes()

@@ -62,7 +62,7 @@ class BoxMeasure:
         if self.coded:
             # A table as columns: its distinct spans referenced by the groups, each once.
             codes = np.unique(np.concatenate([part.used_codes() for part in parts]))
-            spans = [first.spans[code] for code in codes.tolist()]
+            spans = first.spans_at(codes)
             self.rows = np.full(len(first.spans), -1, dtype=np.intp)
             self.rows[codes] = np.arange(len(codes))
         else:

@@ -22,7 +22,8 @@ from operator import attrgetter
 
 import numpy as np
 
-from ..columnar import EARLIEST_END, EARLIEST_START, LATEST_END, LATEST_START, RecordColumns
+from ..columnar import RecordColumns
+from ..spanarrays import EARLIEST_END, EARLIEST_START, LATEST_END, LATEST_START
 from ..model import Record
 
 NO_GROUP = ""
@@ -187,16 +188,13 @@ def _first_starts(groups: Groups) -> dict[str, tuple[int, float]]:
 
 def _span_start_orders(records: RecordColumns) -> tuple[np.ndarray, np.ndarray]:
     """`_start_order` of each distinct span of a table: (kinds, days) arrays."""
-    bounds = records.span_bounds()
+    facts = records.span_facts()
+    bounds = facts.bounds
     first_known = np.full(len(bounds), np.nan)
     for column in (LATEST_END, EARLIEST_END, LATEST_START, EARLIEST_START):  # first wins
         known = ~np.isnan(bounds[:, column])
         first_known[known] = bounds[known, column]
-    open_start = np.fromiter((span is not None and span.start.is_open
-                              for span in records.spans), dtype=bool, count=len(bounds))
-    undated = np.fromiter((span is None for span in records.spans), dtype=bool,
-                          count=len(bounds))
-    kinds = np.where(undated, 2, np.where(open_start | np.isnan(first_known), 0, 1))
+    kinds = np.where(~facts.dated, 2, np.where(facts.open_start | np.isnan(first_known), 0, 1))
     days = np.where(kinds == 1, first_known, 0.0)
     return kinds, days
 

@@ -20,6 +20,7 @@ import numpy as np
 from ..columnar import RecordColumns
 from ..errors import UsageError
 from ..model import Record, Span
+from ..spanarrays import EARLIEST_START, LATEST_END
 
 
 @dataclass(frozen=True, slots=True)
@@ -42,6 +43,16 @@ class TimeWindow:
         if self.start is not None and high is not None and high < self.start:
             return False
         return not (self.end is not None and low is not None and low > self.end)
+
+    def may_hold_bounds(self, bounds: np.ndarray) -> np.ndarray:
+        """`may_hold` of each span given by its bounds (`spanarrays.bounds_of`); a span with
+        no bounds (an undated row) is held."""
+        holds = np.ones(len(bounds), dtype=bool)
+        if self.start is not None:
+            holds &= ~(bounds[:, LATEST_END] < self.start)          # NaN compares False
+        if self.end is not None:
+            holds &= ~(bounds[:, EARLIEST_START] > self.end)
+        return holds
 
     def domain(self, low: float, high: float) -> tuple[float, float]:
         """The axis domain: the window's sides, the records' `low`/`high` where it has none."""
@@ -69,9 +80,7 @@ def _split_columns(records: RecordColumns, window: TimeWindow | None
     """split_by_window of a table's columns: each distinct span looked at once."""
     if window is None:
         return records, []
-    holds = np.fromiter((span is None or window.may_hold(span) for span in records.spans),
-                        dtype=bool, count=len(records.spans))
-    inside = holds[records.codes()]
+    inside = window.may_hold_bounds(records.span_bounds())[records.codes()]
     return (records.take(np.flatnonzero(inside)),
             records.take(np.flatnonzero(~inside)).records())
 

@@ -9,14 +9,13 @@ from __future__ import annotations
 
 from collections.abc import Sequence
 from dataclasses import dataclass
-from operator import attrgetter
 
 import numpy as np
 
 from ..calendar import fixed_from_gregorian, iso_from_fixed, year_text
 from ..layout import PlacedRecord
-from ..columnar import bounds_of
 from ..model import Qualifier, Record, Span, event_endpoint
+from ..spanarrays import SpanFacts, span_facts
 from . import encodings as marks
 from .encodings import EndWindow, LaneBox, MarkStyle
 from .primitives import Group, Primitive, Text
@@ -59,18 +58,17 @@ _DRAWN_FIELDS = ("start_low", "start_high", "end_low", "end_high", "open_start",
                  "has_core")
 
 
-def drawn_spans(spans: Sequence[Span], domain: tuple[float, float], stub: float = 0.0,
-                bounds: np.ndarray | None = None) -> DrawnSpans:
+def drawn_spans(spans: Sequence[Span] | SpanFacts, domain: tuple[float, float],
+                stub: float = 0.0) -> DrawnSpans:
     """Where each part of each span is drawn. An open side (ISO 8601-2 `..`: it runs on)
     reaches the axis edge. A side with no far bound (an empty cell, or `after 1780` as an end)
     is drawn `stub` days long from the nearest date known: short, so its length says nothing
     and no other row's dates stretch it. An unknown start reaches to the end's earliest bound
     (and an unknown end from the start's latest), so the whole stretch reads as possible.
-    `bounds`: the spans' `columnar.bounds_of`, when the caller has them."""
+    `spans` may be given as their `spanarrays.SpanFacts`."""
     low_edge, high_edge = domain
-    starts, ends = list(map(_START, spans)), list(map(_END, spans))
-    bounds = bounds_of(spans) if bounds is None else bounds
-    start_earliest, start_latest, end_earliest, end_latest = bounds.T
+    facts = spans if isinstance(spans, SpanFacts) else span_facts(spans)
+    start_earliest, start_latest, end_earliest, end_latest = facts.bounds.T
     # The nearest date known from each far side inwards: a stub is measured from it. In
     # order that is the start's latest (the end's earliest); where the dates known are out of
     # order (`1704` to `after 1701`) the stub starts from the earliest (latest) of them all,
@@ -82,8 +80,7 @@ def drawn_spans(spans: Sequence[Span], domain: tuple[float, float], stub: float 
     d = _first_known(end_latest, end_anchor + stub)
     b = _first_known(start_latest, _first_known(end_earliest, d))
     c = _first_known(end_earliest, _first_known(start_latest, a))
-    open_start = np.fromiter(map(_IS_OPEN, starts), dtype=bool, count=len(spans))
-    open_end = np.fromiter(map(_IS_OPEN, ends), dtype=bool, count=len(spans))
+    open_start, open_end = facts.open_start, facts.open_end
     a, b = np.where(open_start, low_edge, a), np.where(open_start, low_edge, b)
     c, d = np.where(open_end, high_edge, c), np.where(open_end, high_edge, d)
     # A span cannot end before it starts: an end window reaching back past the earliest start
@@ -110,8 +107,6 @@ def unbounded(endpoint, side: str) -> bool:
     return far is None and not endpoint.is_open
 
 
-_START, _END = attrgetter("start"), attrgetter("end")
-_IS_OPEN = attrgetter("is_open")
 
 
 def _first_known(days: np.ndarray, otherwise) -> np.ndarray:

@@ -11,11 +11,12 @@ from typing import Callable, Iterable, Sequence
 
 import numpy as np
 
-from ..columnar import RecordColumns, bounds_of
+from ..columnar import RecordColumns
 from ..errors import UsageError
 from ..layout import GroupNode, LaneRules, TimeWindow, group_tree
 from ..layout.grouping import BY_GROUP
 from ..model import Record
+from ..spanarrays import span_facts
 from .bars import drawn_spans, qualifier_kind, stub_days
 from .compose import SUBGROUP_INDENT
 from .encodings import OPEN_ARROW_REACH
@@ -71,22 +72,15 @@ def drawn_measure(scale: TimeScale, theme: Theme):
     marker = theme.bar_height * 0.6 * per_px
     domain = (scale.start, scale.end)
     stub = stub_days(scale, theme)
-    sign_room: dict[frozenset, float] = {}   # by an endpoint's qualifiers: few distinct sets
-
-    def room_for_sign(endpoint) -> float:
-        found = sign_room.get(endpoint.qualifiers)
-        if found is None:
-            has_sign = qualifier_kind(endpoint.qualifiers) is not None
-            found = sign_room[endpoint.qualifiers] = mark_room if has_sign else 0.0
-        return found
 
     def measure_spans(spans: list) -> np.ndarray:
-        bounds = bounds_of(spans)
-        drawn = drawn_spans(spans, domain, stub, bounds)
-        count = len(spans)
-        before = np.fromiter((room_for_sign(span.start) for span in spans), float, count)
-        after = np.fromiter((room_for_sign(span.end) for span in spans), float, count)
-        point = _points(spans, bounds)
+        facts = span_facts(spans)
+        drawn = drawn_spans(facts, domain, stub)
+        # A qualifier sign's room, by the index of a side's qualifiers: few distinct sets.
+        rooms = np.array([mark_room if qualifier_kind(qualifiers) is not None else 0.0
+                          for qualifiers in facts.qualifier_sets] or [0.0])
+        before, after = rooms[facts.start_qualifiers], rooms[facts.end_qualifiers]
+        point = facts.point
         # a diamond is wider than its day; its sign stands on the right
         low = np.where(point, drawn.start_low - marker, drawn.start_low - before)
         high = np.where(point, drawn.end_high + marker + after, drawn.end_high + after)
@@ -95,18 +89,6 @@ def drawn_measure(scale: TimeScale, theme: Theme):
         return np.column_stack((low, high, room_low, room_high))
 
     return measure_spans
-
-
-def _points(spans: list, bounds: np.ndarray) -> np.ndarray:
-    """Span.is_point of each span, asked only of those whose start and end have the same
-    `bounds` (the others cannot be points)."""
-    same = bounds[:, :2] == bounds[:, 2:]
-    same |= np.isnan(bounds[:, :2]) & np.isnan(bounds[:, 2:])
-    point = same.all(axis=1)
-    for index in np.flatnonzero(point).tolist():
-        point[index] = spans[index].is_point
-    return point
-
 
 
 def chart_scale(dated: list[Record], theme: Theme,
@@ -146,7 +128,7 @@ def _bounds(dated: Sequence[Record]) -> tuple[float, float]:
 
 def _any_open_start(dated: Sequence[Record]) -> bool:
     if isinstance(dated, RecordColumns):
-        return any(dated.spans[code].start.is_open for code in dated.used_codes().tolist())
+        return bool(dated.span_facts().open_start[dated.used_codes()].any())
     return any(record.span.start.is_open for record in dated)
 
 

@@ -14,6 +14,7 @@ from timelines.dates import (
     iso_form, options_from_settings, parse_column, parse_date, parse_endpoint, parse_span,
     parse_span_column, settings_from_options,
 )
+from timelines.dates.column import DayEndpoints, parse_column_coded
 from timelines.model import Endpoint, Precision
 
 
@@ -233,6 +234,29 @@ def _fails(value) -> bool:
 def test_bulk_iso_days_agree_with_stdlib(days):
     results = parse_column([day.isoformat() for day in days])
     assert [result.earliest for result in results] == [day.toordinal() for day in days]
+
+
+# Python's date.toordinal() counts proleptic Gregorian days from 0001-01-01 = 1, as R.D. does
+# (Reingold & Dershowitz, Calendrical Calculations): an outside reference for each day.
+@given(st.lists(st.one_of(st.dates(min_value=datetime.date(1, 1, 1)), st.just(None)),
+                min_size=1, max_size=30).filter(lambda cells: any(cells)))
+def test_bulk_iso_days_with_empty_cells_agree_with_stdlib(days):
+    column = ["" if day is None else day.isoformat() for day in days]
+    coded = parse_column_coded(column)
+    assert isinstance(coded.results, DayEndpoints)          # the bulk path, blanks and all
+    results = coded.expanded()
+    assert [None if result is None else (result.earliest, result.latest, result.precision)
+            for result in results] == [None if day is None else
+                                       (day.toordinal(), day.toordinal(), Precision.DAY)
+                                       for day in days]
+    assert results == [endpoint_from_cell(cell) for cell in column]    # as the general path
+
+
+@pytest.mark.parametrize("column", [["", ""], ["", " "], ["1985-04-12", " "]])
+def test_a_column_of_only_blanks_or_spaces_is_not_read_in_bulk(column):
+    coded = parse_column_coded(column)
+    assert not isinstance(coded.results, DayEndpoints)
+    assert coded.expanded() == [endpoint_from_cell(cell) for cell in column]
 
 
 # --- properties over any text ----------------------------------------------------------------

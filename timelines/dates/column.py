@@ -6,10 +6,11 @@ None for an empty cell) or the DateError it raises; `parse_span_column` does the
 results are shared objects, one per distinct value; the `_coded` forms give them as they are
 made, each distinct result once and a numpy array of each cell's index into them.
 
-A column whose cells are all `YYYY-MM-DD` strings is read by numpy's ISO 8601 day parser,
-which is proleptic Gregorian and refuses days that do not exist, as the language does; a
-column with anything else, or with one impossible day, takes the general path, which gives
-each bad cell its own error.
+A column whose cells are all `YYYY-MM-DD` strings (or empty) is read by numpy's ISO 8601 day
+parser, which is proleptic Gregorian and refuses days that do not exist, as the language does;
+its results are the distinct days as one array (`DayEndpoints`), no object per day. A column
+with anything else, or with one impossible day, takes the general path, which gives each bad
+cell its own error.
 """
 from __future__ import annotations
 
@@ -78,7 +79,7 @@ class Coded:
 
     def expanded(self) -> list:
         """The result of each cell, in cell order."""
-        return list(map(self.results.__getitem__, self.codes.tolist()))
+        return list(map(list(self.results).__getitem__, self.codes.tolist()))
 
 
 def _running_on_cell(value: str, open_cell: Endpoint, settings: DateSettings) -> Endpoint:
@@ -142,11 +143,15 @@ def _key(value: object) -> object:
 
 
 def _iso_days(values: Sequence[object]) -> Coded | None:
-    """Every cell as its day when all are `YYYY-MM-DD` strings; None otherwise."""
+    """Every cell as its day when all are `YYYY-MM-DD` strings or empty (None, as on the
+    general path), with at least one day; None otherwise."""
     if not values:
         return None
     try:
-        if set(map(len, values)) != {_ISO_DAY_LENGTH} or not min(values)[0].isdigit():
+        lengths = np.fromiter(map(len, values), dtype=np.intp, count=len(values))
+        blank = lengths == 0
+        if not ((lengths == _ISO_DAY_LENGTH) | blank).all() or blank.all() or (
+                not min(filter(None, values))[0].isdigit()):
             return None  # a cell of another length, or a sign (+/- sort before digits)
     except TypeError:
         return None      # a cell that is not a string
@@ -154,18 +159,54 @@ def _iso_days(values: Sequence[object]) -> Coded | None:
         parsed = np.array(values, dtype="datetime64[D]")
     except (ValueError, TypeError, OverflowError):
         return None
-    if np.isnat(parsed).any():
+    if (np.isnat(parsed) != blank).any():
         return None      # 'NaT' and the like: not a date
-    days = parsed.astype(np.int64) + _UNIX_EPOCH
-    return _shared_days(days)
+    days = parsed[~blank].astype(np.int64) + _UNIX_EPOCH if blank.any() else (
+        parsed.astype(np.int64) + _UNIX_EPOCH)
+    return _shared_days(days, blank if blank.any() else None)
 
 
-def _shared_days(days: np.ndarray) -> Coded:
-    """One Endpoint per distinct day, each cell coded by its day's rank."""
+def _shared_days(days: np.ndarray, blank: np.ndarray | None) -> Coded:
+    """The distinct days as one array, each cell coded by its day's rank; the blank cells
+    (where `blank`, when given) by the code after the last day's."""
     low = int(days.min())
     offsets = days - low
     present = np.zeros(int(offsets.max()) + 1, dtype=bool)
     present[offsets] = True
     distinct = np.flatnonzero(present)
     rank = np.cumsum(present, dtype=np.intp) - 1     # of each day among the distinct ones
-    return Coded(rank[offsets], day_endpoints((distinct + low).tolist()))
+    if blank is None:
+        return Coded(rank[offsets], DayEndpoints(distinct + low, blank=False))
+    codes = np.full(len(blank), len(distinct), dtype=np.intp)
+    codes[~blank] = rank[offsets]
+    return Coded(codes, DayEndpoints(distinct + low, blank=True))
+
+
+class DayEndpoints(Sequence):
+    """The results of a column of plain days: `Endpoint.day` of each of `days` (fixed days,
+    an int array), then None where the column has blank cells (`blank`). The Endpoints are
+    made only when something asks for one (the reader works on `days` alone)."""
+
+    __slots__ = ("days", "blank", "_made")
+
+    def __init__(self, days: np.ndarray, *, blank: bool) -> None:
+        self.days, self.blank = days, blank
+        self._made: list[Endpoint | None] | None = None
+
+    def __len__(self) -> int:
+        return len(self.days) + self.blank
+
+    def __getitem__(self, index):
+        return self._endpoints()[index]
+
+    def __iter__(self):
+        return iter(self._endpoints())
+
+    def _endpoints(self) -> list[Endpoint | None]:
+        if self._made is None:
+            self._made = [*day_endpoints(self.days.tolist()), *([None] if self.blank else [])]
+        return self._made
+
+    def as_floats(self) -> np.ndarray:
+        """Each result's day as a float, NaN for the blank cells' None."""
+        return np.append(self.days.astype(float), [np.nan] if self.blank else [])

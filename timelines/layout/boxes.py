@@ -61,7 +61,10 @@ class BoxMeasure:
         self.coded = isinstance(first, RecordColumns) and all(map(first.same_table, parts))
         if self.coded:
             # A table as columns: its distinct spans referenced by the groups, each once.
-            codes = np.unique(np.concatenate([part.used_codes() for part in parts]))
+            used = np.zeros(len(first.spans), dtype=bool)
+            for part in parts:
+                used[part.used_codes()] = True
+            codes = np.flatnonzero(used)
             spans = first.spans_at(codes)
             self.rows = np.full(len(first.spans), -1, dtype=np.intp)
             self.rows[codes] = np.arange(len(codes))

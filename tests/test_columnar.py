@@ -157,3 +157,66 @@ def test_the_formula_guard_reads_the_column_as_a_whole():
     arranged = arrange(_table(200, 11), ChartOptions(columns=COLUMNS, overview="no"))
     text = _csv(arranged)
     assert ",'=SUM(A1)," in text and ",=SUM(A1)," not in text
+
+
+# --- activity ------------------------------------------------------------------------------
+def _activity_equal(records, **options) -> None:
+    from timelines.analysis.activity import activity
+    by_columns = activity(records, **options)
+    by_objects = activity(tuple(records), **options)
+    pd = pytest.importorskip("pandas")
+    pd.testing.assert_frame_equal(by_columns, by_objects)
+    assert by_columns.attrs == by_objects.attrs
+    assert len(by_columns)
+
+
+@pytest.mark.parametrize("options", [
+    dict(per="decade"), dict(per="century", group="group", runs=30, seed=4),
+    dict(per=25, group="lane"), dict(per="decade", group="no such column")],
+    ids=["decade", "groups and envelope", "a field", "a missing field"])
+def test_activity_of_columns_is_activity_of_objects(loaded, options):
+    _activity_equal(loaded.records, **options)
+
+
+def test_activity_of_events_and_radiocarbon_dates_as_columns():
+    body = [("R1", "Wreck", "coast", "3450 ± 40 14C BP", ""),
+            ("R2", "Find", "inland", "1650", "1660"),
+            ("R3", "Letter", "coast", "c. 1655", "after 1650"),
+            ("R4", "Hearth", "inland", "3300 ± 30 14C BP", ""),
+            ("R5", "Undated", "coast", "", "")]
+    table = Table.from_rows("finds.csv", ("id", "name", "group", "admitted", "left"), body)
+    events = load_records(table, COLUMNS, events=True).records
+    spans = load_records(table, COLUMNS).records
+    assert isinstance(events, RecordColumns) and isinstance(spans, RecordColumns)
+    # A `when` cell of one calibrated date is a point weighed by its probability.
+    when = load_records(Table.from_rows("finds.csv", ("id", "name", "group", "date"),
+                                        [row[:4] for row in body]),
+                        ColumnMap(when="date", label="name", group="group", id="id")).records
+    from timelines.analysis.calibrated import calibrated_points
+    assert calibrated_points(when).tolist() == [True, False, False, True, False]
+    for records in (events, spans, when):
+        _activity_equal(records, per="millennium", group="group", runs=10)
+
+
+@pytest.mark.parametrize("window, where, first", [
+    (None, None, None), ((1700, 1760), None, 40), (None, "group=Masters", 25)],
+    ids=["all", "window", "where"])
+def test_the_overview_of_columns_is_the_overview_of_objects(loaded, window, where, first):
+    from timelines.chart.overview import choose_part
+    from timelines.layout.window import split_by_window
+    from timelines.sources.fields import column_reader
+
+    if window is not None:
+        window = TimeWindow(fixed_from_gregorian(window[0], 1, 1),
+                            fixed_from_gregorian(window[1], 12, 31), "1700", "1760")
+
+    def part(records):
+        kept, _ = split_by_window(records, window)
+        return choose_part(records, kept, window, where, first,
+                           lambda name: column_reader(COLUMNS, None, name, "--where"))
+
+    by_columns, by_objects = part(loaded.records), part(tuple(loaded.records))
+    assert isinstance(split_by_window(loaded.records, window)[0], RecordColumns)
+    assert by_columns.records == by_objects.records and by_columns.records
+    assert by_columns.overview == by_objects.overview
+    assert by_columns.summarised == by_objects.summarised

@@ -123,3 +123,22 @@ def test_the_part_takes_records_bounded_on_both_sides_first(tmp_path):
     assert len(drawn) == FIRST_SHOWN
     assert {f"B{i}" for i in range(30)} <= drawn
     assert "those with both ends bounded first" in arranged.overview.note
+
+
+def test_of_a_window_the_part_takes_records_beginning_in_it_first(tmp_path):
+    # Sixty rows run from the 1650s into 1700-1705; thirty begin in 1700-1709. Asked for
+    # 1700 to 1710 with thirty lanes, the lanes show the thirty that begin in the decade
+    # (whole bars), not the earliest starters cut at the window's edge; the strips shade the
+    # window the lanes show, not the chosen rows' whole extent.
+    from timelines.calendar import fixed_from_gregorian
+
+    path = tmp_path / "t.csv"
+    rows = [f"E{i},{1650 + i % 10},{1700 + i % 6}" for i in range(60)] + [
+        f"B{i},{1700 + i % 10},{1712 + i % 10}" for i in range(30)]
+    path.write_text("label,start,end\n" + "\n".join(rows) + "\n", encoding="utf-8")
+    arranged = Chart(path).overview("yes", first=30).window("1700", "1710").layout()
+    drawn = {p.record.label for _, g in arranged.placement.leaves() for p in g.records}
+    assert drawn == {f"B{i}" for i in range(30)}
+    assert "of them, those beginning in the window" in arranged.overview.note
+    assert arranged.overview.window == (fixed_from_gregorian(1700, 1, 1),
+                                       fixed_from_gregorian(1710, 12, 31) + 1)

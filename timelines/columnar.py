@@ -180,6 +180,14 @@ class RecordColumns(Sequence):
             return values
         return _picked(values, self.positions.tolist())
 
+    def field(self, name: str) -> list[str | None]:
+        """The texts of the other column `name` (one of `fields`) of this sequence; None
+        values where the table has no such column."""
+        for field_name, values in self.fields:
+            if field_name == name:
+                return values if self._whole else _picked(values, self.positions.tolist())
+        return [None] * len(self)
+
     def dated(self) -> np.ndarray:
         """Which records have a span (a boolean array)."""
         return self.dated_spans()[self.codes()]

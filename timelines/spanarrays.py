@@ -1,7 +1,8 @@
 """Spans as arrays: what packing, drawing and checking ask of many spans at once.
 
 `span_facts(spans)` gives, for each of some spans, the numbers and flags those stages read
-(`SpanFacts`: the four bounds, open sides, points, qualifiers and precisions), as numpy
+(`SpanFacts`: the four bounds, open sides, points, qualifiers, precisions and calibrated
+radiocarbon dates), as numpy
 arrays. For spans held as objects it looks at each once; for `DaySpans` it reads them off
 the arrays the spans are held in.
 
@@ -46,6 +47,7 @@ class SpanFacts:
     end_qualifiers: np.ndarray
     start_precision: np.ndarray
     end_precision: np.ndarray
+    start_radiocarbon: np.ndarray      # the start's window is a calibrated 14C age's
 
     def __len__(self) -> int:
         return len(self.dated)
@@ -87,7 +89,8 @@ def span_facts(spans: Sequence[Span | None]) -> SpanFacts:
         end_qualifiers=codes(sets.setdefault(side.qualifiers, len(sets)) for side in ends),
         qualifier_sets=tuple(sets),
         start_precision=codes(map(precisions.__getitem__, map(_PRECISION, starts)), np.int8),
-        end_precision=codes(map(precisions.__getitem__, map(_PRECISION, ends)), np.int8))
+        end_precision=codes(map(precisions.__getitem__, map(_PRECISION, ends)), np.int8),
+        start_radiocarbon=codes((side.radiocarbon is not None for side in starts), bool))
 
 
 def bounds_of(spans: Sequence[Span]) -> np.ndarray:
@@ -166,7 +169,8 @@ class DaySpans(Sequence):
             start_qualifiers=np.where(dated & ~start_known, 1, 0),
             end_qualifiers=np.where(dated & ~end_known, 2, 0),
             start_precision=np.where(start_known, day, -1).astype(np.int8),
-            end_precision=np.where(end_known, day, -1).astype(np.int8))
+            end_precision=np.where(end_known, day, -1).astype(np.int8),
+            start_radiocarbon=none.copy())
 
 
 # None converts to NaN in a float array: the four bounds of a span in one call.

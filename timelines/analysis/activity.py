@@ -34,7 +34,7 @@ the possible were left out there, and `attrs["unweighed"]` how many in all.
 from __future__ import annotations
 
 import math
-from collections.abc import Callable, Iterable, Sequence
+from collections.abc import Iterable, Sequence
 from dataclasses import dataclass
 
 import numpy as np
@@ -42,8 +42,10 @@ import pandas as pd
 
 from ..calendar import HISTORICAL, gregorian_year_from_fixed, year_range, year_text
 from ..errors import UsageError
-from ..model import EVENT, SPAN, Record, holds
+from ..model import EVENT, SPAN, Record
 from .calibrated import calibrated_expected, calibrated_points, simulate_calibrated
+from .windows import Parts, record_parts
+from .windows import event_windows, record_keys, span_windows  # noqa: F401 - this module's API
 
 PERIODS = {"year": 1, "decade": 10, "century": 100, "millennium": 1000}
 # The envelope's percentiles of the simulated count per block: the central 95% and the median,
@@ -117,41 +119,6 @@ def _block_year(day: int, width: int, calendar: str) -> int:
     while year_range(year + width, calendar)[0] <= day:
         year += width
     return year
-
-
-# -- windows: each record's bounds as continuous intervals, -inf/+inf where unbounded --------
-
-def event_windows(records: Sequence[Record]) -> tuple[np.ndarray, np.ndarray]:
-    """Each event's moment window [low, high) in fixed days."""
-    low = [_or(r.span.start.earliest, -math.inf) for r in records]
-    high = [_or(r.span.end.latest, math.inf - 1) + 1 for r in records]
-    return np.asarray(low, dtype=np.float64), np.asarray(high, dtype=np.float64)
-
-
-def span_windows(records: Sequence[Record]) -> tuple[np.ndarray, ...]:
-    """Each span's start window [s0, s1) and end window [t0, t1). An open start (the span ran
-    on from the past) is surely before every block, an open end surely after."""
-    starts = [_start_window(r.span.start) for r in records]
-    ends = [_end_window(r.span.end) for r in records]
-    s0, s1 = np.asarray(starts, dtype=np.float64).reshape(-1, 2).T
-    t0, t1 = np.asarray(ends, dtype=np.float64).reshape(-1, 2).T
-    return s0, s1, t0, t1
-
-
-def _start_window(endpoint) -> tuple[float, float]:
-    if endpoint.is_open and endpoint.earliest is None:
-        return -math.inf, -math.inf
-    return _or(endpoint.earliest, -math.inf), _or(endpoint.latest, math.inf - 1) + 1
-
-
-def _end_window(endpoint) -> tuple[float, float]:
-    if endpoint.is_open and endpoint.latest is None:
-        return math.inf, math.inf
-    return _or(endpoint.earliest, -math.inf), _or(endpoint.latest, math.inf - 1) + 1
-
-
-def _or(value, default):
-    return default if value is None else value
 
 
 # -- block indexes and record-block pairs ------------------------------------------------------
@@ -415,47 +382,14 @@ def activity(records: Iterable[Record], per: str | int = "decade", start: int | 
     table is grouped, cut into partitions (`partitioned`) or not. `attrs` name the kinds
     held, the methods, the undated records and the unweighed ones in all."""
     width = block_width(per)
-    records = list(records)
-    keyed = dict(zip(map(id, records), record_keys(records)))
-    dated = [record for record in records if record.span is not None]
-    parts = _partitions(dated, group)
-    windows = {key: _windows(key[0], members) for key, members in parts.items()}
+    found = record_parts(records if isinstance(records, Sequence) else list(records), group)
+    windows = {key: part.windows for key, part in found.parts.items()}
     blocks = _blocks_for(windows.values(), width, start, end, calendar)
-    frames = [_part_table(key, windows[key], blocks, runs, seed, era,
-                          np.array([keyed[id(r)] for r in members], dtype=np.int64), members)
-              for key, members in parts.items()]
+    frames = [_part_table(key, part.windows, blocks, runs, seed, era, part.keys, part.members)
+              for key, part in found.parts.items()]
     table = _joined(frames, group is not None, runs > 0)
-    table.attrs.update(_attrs(records, dated, windows, width, runs))
+    table.attrs.update(_attrs(found, windows, width, runs))
     return table
-
-
-def record_keys(records: Sequence[Record]) -> np.ndarray:
-    """The key each record's Monte Carlo draws are made with: its row in the table (a
-    DataFrame's rows as `iloc` counts them, so a dask frame's global row gives the same key),
-    or its place in `records` where rows repeat (records joined from several tables)."""
-    rows = np.array([record.provenance.row for record in records], dtype=np.int64)
-    return rows if len(np.unique(rows)) == len(rows) else np.arange(len(rows), dtype=np.int64)
-
-
-def _partitions(records: list[Record], group: str | None) -> dict[tuple, list[Record]]:
-    """Records by (kind, group value), kinds events first, groups in name order."""
-    value = _group_value(group)
-    parts: dict[tuple, list[Record]] = {}
-    for record in records:
-        parts.setdefault((record.kind, value(record)), []).append(record)
-    return {key: parts[key] for key in sorted(parts, key=lambda k: (k[0] != EVENT, k[1]))}
-
-
-def _group_value(group: str | None) -> Callable[[Record], str]:
-    if group is None:
-        return lambda record: ""
-    if group == "group":
-        return lambda record: record.group or ""
-    return lambda record: dict(record.fields).get(group) or ""
-
-
-def _windows(kind: str, members: list[Record]) -> tuple[np.ndarray, ...]:
-    return event_windows(members) if kind == EVENT else span_windows(members)
 
 
 def _blocks_for(windows, width: int, start: int | None, end: int | None,
@@ -482,7 +416,7 @@ def _finite_days(arrays: tuple[np.ndarray, ...]):
 
 
 def _part_table(key: tuple, windows: tuple, blocks: Blocks | None, runs: int,
-                seed: int, era: str, keys: np.ndarray, members: list[Record] = ()
+                seed: int, era: str, keys: np.ndarray, members: Sequence[Record] = ()
                 ) -> pd.DataFrame:
     kind, group = key
     if blocks is None:
@@ -493,7 +427,7 @@ def _part_table(key: tuple, windows: tuple, blocks: Blocks | None, runs: int,
     dated_by_c14 = calibrated_points(members) if len(members) else np.zeros(0, dtype=bool)
     plain = tuple(array[~dated_by_c14] for array in windows) if dated_by_c14.any() else windows
     if dated_by_c14.any():
-        c14 = [record for record, flag in zip(members, dated_by_c14) if flag]
+        c14 = [members[index] for index in np.flatnonzero(dated_by_c14).tolist()]
         flat = event_counts(*plain, edges) if kind == EVENT else span_counts(*plain, edges)
         counts["expected"] = flat["expected"] + calibrated_expected(c14, edges)
     columns = {"kind": KIND_NAMES[kind], "group": group, "block_start": edges[:-1],
@@ -528,14 +462,14 @@ def _joined(frames: list[pd.DataFrame], grouped: bool, simulated: bool) -> pd.Da
     return pd.concat(frames, ignore_index=True)[columns]
 
 
-def _attrs(records, dated: list[Record], windows: dict, width: int, runs: int) -> dict:
+def _attrs(found: Parts, windows: dict, width: int, runs: int) -> dict:
     unweighed = {KIND_NAMES[kind]: 0 for kind, _ in windows}
     for (kind, _), arrays in windows.items():
         bounded = np.logical_and.reduce([np.isfinite(a) for a in arrays])
         unweighed[KIND_NAMES[kind]] += int((~bounded).sum())
     kinds = sorted({kind for kind, _ in windows}, key=lambda kind: kind != EVENT)
-    return {"kind": holds(dated), "per": width, "runs": runs,
+    return {"kind": found.held, "per": width, "runs": runs,
             "methods": {KIND_NAMES[kind]: METHODS[kind] for kind in kinds},
             "envelope": ENVELOPE if runs else None,
-            "undated": sum(1 for record in records if record.span is None),
+            "undated": found.undated,
             "unweighed": unweighed}

@@ -18,11 +18,15 @@ from collections.abc import Sequence
 
 import numpy as np
 
+from ..columnar import RecordColumns
 from ..model import Record
 
 
 def calibrated_points(records: Sequence[Record]) -> np.ndarray:
     """Which records are one calibrated radiocarbon date (a boolean per record)."""
+    if isinstance(records, RecordColumns):
+        facts = records.span_facts()
+        return (facts.dated & facts.point & facts.start_radiocarbon)[records.codes()]
     return np.array([record.span is not None and record.span.is_point
                      and record.span.start.radiocarbon is not None for record in records],
                     dtype=bool)

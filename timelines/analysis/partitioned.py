@@ -40,9 +40,9 @@ from ..errors import UsageError
 from ..model import EVENT, SPAN
 from ..sources import ColumnMap, detect_columns, load_records
 from ..sources.frames import table_from_data
-from .activity import (ENVELOPE, KIND_NAMES, METHODS, _group_value, block_width,
-                       blocks_between, envelope, event_counts, event_windows, simulated,
-                       span_counts, span_windows)
+from .activity import (ENVELOPE, KIND_NAMES, METHODS, block_width, blocks_between, envelope,
+                       event_counts, simulated, span_counts)
+from .windows import group_value, event_windows, span_windows
 
 WINDOW_COLUMNS = {EVENT: ("low", "high"), SPAN: ("s0", "s1", "t0", "t1")}
 COUNT_COLUMNS = ("certain", "possible", "expected", "unweighed")
@@ -64,7 +64,7 @@ def window_partition(frame: pd.DataFrame, kind: str = SPAN, columns: ColumnMap =
                           date_numbers=date_numbers, events=kind == EVENT)
     windows = np.full((len(frame), len(WINDOW_COLUMNS[kind])), np.nan)
     groups = np.full(len(frame), "", dtype=object)
-    value = _group_value(group)
+    value = group_value(group)
     for record in loaded.records:
         groups[record.provenance.row - table.first_row] = value(record)
     rows = [record.provenance.row for record in loaded.records if record.span is not None]

@@ -6,7 +6,9 @@ expected count (`analysis.activity`: the aoristic sum of events, the summed prob
 spans), on an axis of the whole time, and beneath it the lanes of a part the user chooses:
 the records in the --from/--to window, those whose column has a value (`where`, written
 COLUMN=VALUE), and at most the first `first` of them by start (FIRST_SHOWN when no part is
-chosen, or when the part is itself too large).
+chosen, or when the part is itself too large): those whose dates bound both ends first and,
+of a window, those beginning in it, so that the lanes show whole bars. A table kept as
+columns is counted and chosen from on its arrays; Records are made for the lanes alone.
 
 OVERVIEW_FROM is 5,000: at about five records a lane, a thousand lanes, some 22,000 px, more
 than twenty screens of a laptop's browser window, where a reader no longer follows a group
@@ -14,11 +16,16 @@ from lane to lane (common practice, no source; the explorer, -o chart.html, show
 """
 from __future__ import annotations
 
+from collections.abc import Callable, Sequence
 from dataclasses import dataclass
-from typing import Callable
 
+import numpy as np
+
+from ..columnar import RecordColumns
 from ..errors import UsageError
 from ..model import Record
+from ..sources.fields import ColumnReader
+from ..spanarrays import EARLIEST_END, EARLIEST_START, LATEST_END, LATEST_START, span_facts
 from ..scene.overview import Overview
 from .activity import activity_series
 
@@ -41,41 +48,89 @@ def wanted(dated: int, setting: str) -> bool:
     return setting == "yes" or setting == "auto" and dated >= OVERVIEW_FROM
 
 
-def choose_part(records: list[Record], kept: list[Record], window, where: str | None,
-                first: int | None, read_column: Callable[[str], Callable[[Record], str | None]],
+def choose_part(records: Sequence[Record], kept: Sequence[Record], window, where: str | None,
+                first: int | None, read_column: Callable[[str], ColumnReader],
                 era: str = "bce", calendar: str = "historical") -> Part:
-    """The overview of the dated `records`, and the part of `kept` (the window's) in lanes."""
-    dated = [r for r in records if r.span is not None]
-    chosen = [r for r in kept if r.span is not None]
+    """The overview of the dated `records`, and the part of `kept` (the window's) in lanes.
+    A table kept as columns is summarised and chosen from on its arrays: Records are made
+    for the part drawn alone."""
+    dated, chosen = _dated(records), _dated(kept)
     how = []
     if window is not None:
         how.append(f"those from {window.start_text or 'the start'} to "
                    f"{window.end_text or 'the end'} (--from/--to)")
     if where:
         column, value = _where(where)
-        value_of = read_column(column)
-        chosen = [r for r in chosen if (value_of(r) or "").strip() == value]
+        texts = read_column(column).texts(chosen)
+        chosen = _taken(chosen, [index for index, text in enumerate(texts)
+                                 if (text or "").strip() == value])
         how.append(f"those with {column} = {value}")
     limit = first if first is not None else FIRST_SHOWN
     if len(chosen) > limit or first is not None:
         if len(chosen) > limit:
-            chosen = sorted(chosen, key=_start)[:limit]
-        how.append(f"the first {limit:,} by start, those with both ends bounded first")
-    undated = [r for r in kept if r.span is None]
-    first, last = min(map(_low, dated)), max(map(_high, dated))    # the whole time, once
+            low, _, bounded = _extents(chosen)
+            rows = (chosen.row_numbers() if isinstance(chosen, RecordColumns) else
+                    np.array([record.provenance.row for record in chosen], dtype=np.int64))
+            # Of a window, those beginning in it first: whole bars, not ends reaching in.
+            before = (low < window.start if window is not None and window.start is not None
+                      else np.zeros(len(low), dtype=bool))
+            order = np.lexsort((rows, low, before, ~bounded))[:limit]   # stable
+            chosen = _taken(chosen, order.tolist())
+        how.append(f"the first {limit:,} by start, those with both ends bounded first"
+                   + (" and, of them, those beginning in the window" if window is not None
+                      else ""))
+    undated = [r for r in kept if r.span is None] if not isinstance(kept, RecordColumns) else (
+        list(kept.undated_part()))
+    lows, highs, _ = _extents(dated)
+    first, last = float(lows.min()), float(highs.max())           # the whole time, once
     per = _block((last - first) / 365.2425)
     table = _activity(dated, per, era, calendar)
     note = (f"{len(dated):,} dated records, too many to read lane by lane: the strips count "
             f"them per {per}, by group. The lanes below show {len(chosen):,} of them: "
             f"{'; '.join(how)}. Every record is in an explorer written with -o chart.html; "
             "--overview no draws all lanes.")
-    shown = _window_days(chosen) if chosen else None
+    chosen = list(chosen)
+    shown = _shown(chosen, window) if chosen else None
     # The strips in the order the groups first appear, as the lanes take them.
-    order = {group: place for place, group in enumerate(dict.fromkeys(r.group for r in dated))}
+    groups = (dated.column("groups") if isinstance(dated, RecordColumns)
+              else [r.group for r in dated])
+    order = {group: place for place, group in enumerate(dict.fromkeys(groups))}
     series = sorted(activity_series(table), key=lambda s: order.get(_group_name(s), len(order)))
     overview = Overview(tuple(_named(s) for s in series),
                         first, last, shown, note)
     return Part(undated + chosen, overview, len(dated) - len(chosen))
+
+
+def _dated(records: Sequence[Record]) -> Sequence[Record]:
+    if isinstance(records, RecordColumns):
+        return records.dated_part()
+    return [r for r in records if r.span is not None]
+
+
+def _taken(records: Sequence[Record], indices: list[int]) -> Sequence[Record]:
+    if isinstance(records, RecordColumns):
+        return records.take(np.array(indices, dtype=np.intp))
+    return [records[index] for index in indices]
+
+
+def _extents(dated: Sequence[Record]) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Each dated record's first and last day known (its earliest bound, or the next one
+    known; its latest, or the one before) and whether its dates bound both ends (an end
+    cell left empty could lie anywhere: in a chosen decade such a record is drawn as a stub
+    far outside it, which says little, so the part takes the bounded first)."""
+    if isinstance(dated, RecordColumns):
+        facts = dated.span_facts().take(dated.codes())
+    else:
+        facts = span_facts([record.span for record in dated])
+    bounds = facts.bounds
+    low, high = bounds[:, LATEST_END].copy(), bounds[:, EARLIEST_START].copy()
+    for column in (EARLIEST_END, LATEST_START, EARLIEST_START):       # the first known wins
+        low = np.where(np.isnan(bounds[:, column]), low, bounds[:, column])
+    for column in (LATEST_START, EARLIEST_END, LATEST_END):
+        high = np.where(np.isnan(bounds[:, column]), high, bounds[:, column])
+    bounded = ((~np.isnan(bounds[:, EARLIEST_START]) | facts.open_start)
+               & (~np.isnan(bounds[:, LATEST_END]) | facts.open_end))
+    return low, high, bounded
 
 
 def _where(text: str) -> tuple[str, str]:
@@ -88,7 +143,8 @@ def _where(text: str) -> tuple[str, str]:
 
 def _activity(dated: list[Record], per: str, era: str, calendar: str):
     from ..analysis.activity import activity      # pandas: loaded only for an overview
-    grouped = any(r.group for r in dated)
+    grouped = any(dated.column("groups") if isinstance(dated, RecordColumns)
+                  else (r.group for r in dated))
     return activity(dated, per=per, group="group" if grouped else None, era=era,
                     calendar=calendar.split(":")[0] if calendar.startswith("historical")
                     else calendar)
@@ -115,30 +171,12 @@ def _block(years: float) -> str:
     return "millennium"
 
 
-def _low(record: Record) -> float:
-    start = record.span.start
-    return next(d for d in (start.earliest, start.latest, record.span.end.earliest,
-                            record.span.end.latest) if d is not None)
-
-
-def _high(record: Record) -> float:
-    end = record.span.end
-    return next(d for d in (end.latest, end.earliest, record.span.start.latest,
-                            record.span.start.earliest) if d is not None)
-
-
-def _start(record: Record) -> tuple[bool, float, int]:
-    """The order the part is chosen in: records whose dates bound both ends first (an empty
-    end cell could lie anywhere: in a chosen decade such a record is drawn as a stub far
-    outside it, which says little), then by start, then by row."""
-    return not _bounded(record), _low(record), record.provenance.row
-
-
-def _bounded(record: Record) -> bool:
-    start, end = record.span.start, record.span.end
-    return ((start.earliest is not None or start.is_open)
-            and (end.latest is not None or end.is_open))
-
-
-def _window_days(records: list[Record]) -> tuple[float, float]:
-    return min(map(_low, records)), max(map(_high, records)) + 1
+def _shown(records: list[Record], window) -> tuple[float, float]:
+    """The days the lanes' axis shows: the window's sides (the last day whole), the
+    records' first and last days where it has none."""
+    low, high, _ = _extents(records)
+    first, last = float(low.min()), float(high.max()) + 1
+    if window is None:
+        return first, last
+    return (first if window.start is None else float(window.start),
+            last if window.end is None else float(window.end) + 1)

@@ -247,7 +247,7 @@ class Chart:
         active per block over all the time, above the lanes of a part (chart/overview.py).
         `mode`: "auto" (from 5,000 dated records on: the default), "yes" or "no"; the part:
         the window (`window`), `where` ("COLUMN=VALUE"), the `first` N by start, those whose
-        dates bound both ends first (50)."""
+        dates bound both ends first and, in a window, those beginning in it (50)."""
         return self._with(overview=mode, where=where, first=first)
 
     def withhold_living(self, as_of: int | None = None, years: int = 100) -> "Chart":

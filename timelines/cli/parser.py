@@ -91,7 +91,8 @@ def build_parser() -> argparse.ArgumentParser:
                            "VALUE")
     draw.add_argument("--first", metavar="N", type=_count(1), default=None,
                       help="with the overview: lanes for the first N records by start, "
-                           "those whose dates bound both ends first (default: 50)")
+                           "those whose dates bound both ends first and, with --from/--to, "
+                           "those beginning in the window (default: 50)")
     draw.add_argument("--pages", action="store_true",
                       help="a PDF in pages at group breaks, each the --size height (A4 of the "
                            "chart's width without one), the axis on every page")

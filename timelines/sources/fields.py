@@ -6,15 +6,17 @@ in `Record.fields`. `column_reader` hides which is which.
 """
 from __future__ import annotations
 
-from typing import Callable
+from collections.abc import Sequence
+from dataclasses import dataclass
 
+from ..columnar import RecordColumns
 from ..errors import UsageError, did_you_mean
 from ..model import Record
 from .columns import ColumnMap, column_parts, existing_column
 
 
 def column_reader(columns: ColumnMap, header: tuple[str, ...] | None, name: str, part: str,
-                  keywords: tuple[str, ...] = ()) -> Callable[[Record], str | None]:
+                  keywords: tuple[str, ...] = ()) -> "ColumnReader":
     """A function giving a record's text in column `name` (checked against `header`; None:
     records made by the caller, whose other columns are in `Record.fields`). `part` names
     what the column is for in messages; `keywords` are words the option also takes, offered
@@ -26,17 +28,38 @@ def column_reader(columns: ColumnMap, header: tuple[str, ...] | None, name: str,
             hint = did_you_mean(name, (*keywords, *header)) if keywords else error.hint
             raise UsageError(str(error), hint=hint) from None
     role = next((role for role, column in column_parts(columns) if column == name), None)
-    if role in ("label", "id", "group", "color"):
-        return lambda record: getattr(record, role)
-    if role in ("start", "when"):
-        return lambda record: record.start_text
-    if role == "end":
-        return lambda record: record.end_text
+    return ColumnReader(name, role)
 
-    def field_text(record: Record) -> str | None:
+
+# The RecordColumns column holding each role's texts.
+_ROLE_COLUMNS = {"label": "labels", "id": "ids", "group": "groups", "color": "colors",
+                 "start": "start_texts", "when": "start_texts", "end": "end_texts"}
+
+
+@dataclass(frozen=True, slots=True)
+class ColumnReader:
+    """A record's text in column `name` (call it with the record); `role` is the part the
+    column plays (label, id, group, colour, start, when, end), None for another column."""
+
+    name: str
+    role: str | None
+
+    def __call__(self, record: Record) -> str | None:
+        if self.role in ("label", "id", "group", "color"):
+            return getattr(record, self.role)
+        if self.role in ("start", "when"):
+            return record.start_text
+        if self.role == "end":
+            return record.end_text
         for column, text in record.fields:
-            if column == name:
+            if column == self.name:
                 return text
         return None
 
-    return field_text
+    def texts(self, records: Sequence[Record]) -> list[str | None]:
+        """The text of each of `records`: read from a table's columns where they are kept so
+        (no Record made)."""
+        if isinstance(records, RecordColumns):
+            held = _ROLE_COLUMNS.get(self.role)
+            return records.column(held) if held else records.field(self.name)
+        return list(map(self, records))

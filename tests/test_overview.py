@@ -139,6 +139,6 @@ def test_of_a_window_the_part_takes_records_beginning_in_it_first(tmp_path):
     arranged = Chart(path).overview("yes", first=30).window("1700", "1710").layout()
     drawn = {p.record.label for _, g in arranged.placement.leaves() for p in g.records}
     assert drawn == {f"B{i}" for i in range(30)}
-    assert "of them, those beginning in the window" in arranged.overview.note
+    assert "of them, those surely beginning in the window" in arranged.overview.note
     assert arranged.overview.window == (fixed_from_gregorian(1700, 1, 1),
                                        fixed_from_gregorian(1710, 12, 31) + 1)

@@ -7,7 +7,7 @@ spans), on an axis of the whole time, and beneath it the lanes of a part the use
 the records in the --from/--to window, those whose column has a value (`where`, written
 COLUMN=VALUE), and at most the first `first` of them by start (FIRST_SHOWN when no part is
 chosen, or when the part is itself too large): those whose dates bound both ends first and,
-of a window, those beginning in it, so that the lanes show whole bars. A table kept as
+of a window, those whose start lies in it, so that the lanes show whole bars. A table kept as
 columns is counted and chosen from on its arrays; Records are made for the lanes alone.
 
 OVERVIEW_FROM is 5,000: at about five records a lane, a thousand lanes, some 22,000 px, more
@@ -25,7 +25,9 @@ from ..columnar import RecordColumns
 from ..errors import UsageError
 from ..model import Record
 from ..sources.fields import ColumnReader
-from ..spanarrays import EARLIEST_END, EARLIEST_START, LATEST_END, LATEST_START, span_facts
+from ..spanarrays import (
+    EARLIEST_END, EARLIEST_START, LATEST_END, LATEST_START, SpanFacts, span_facts,
+)
 from ..scene.overview import Overview
 from .activity import activity_series
 
@@ -71,13 +73,13 @@ def choose_part(records: Sequence[Record], kept: Sequence[Record], window, where
             low, _, bounded = _extents(chosen)
             rows = (chosen.row_numbers() if isinstance(chosen, RecordColumns) else
                     np.array([record.provenance.row for record in chosen], dtype=np.int64))
-            # Of a window, those beginning in it first: whole bars, not ends reaching in.
-            before = (low < window.start if window is not None and window.start is not None
-                      else np.zeros(len(low), dtype=bool))
-            order = np.lexsort((rows, low, before, ~bounded))[:limit]   # stable
+            # Of a window, those surely beginning in it first: whole bars, not ends reaching
+            # in from before it, nor starts that may lie anywhere in a century.
+            inside = _begin_in(chosen, window)
+            order = np.lexsort((rows, low, ~inside, ~bounded))[:limit]   # stable
             chosen = _taken(chosen, order.tolist())
         how.append(f"the first {limit:,} by start, those with both ends bounded first"
-                   + (" and, of them, those beginning in the window" if window is not None
+                   + (" and, of them, those surely beginning in the window" if window is not None
                       else ""))
     undated = [r for r in kept if r.span is None] if not isinstance(kept, RecordColumns) else (
         list(kept.undated_part()))
@@ -113,15 +115,30 @@ def _taken(records: Sequence[Record], indices: list[int]) -> Sequence[Record]:
     return [records[index] for index in indices]
 
 
+def _begin_in(dated: Sequence[Record], window) -> np.ndarray:
+    """Which records surely begin in the window: their start's window lies inside it."""
+    bounds = _facts(dated).bounds
+    inside = np.ones(len(bounds), dtype=bool)
+    if window is not None and window.start is not None:
+        inside &= bounds[:, EARLIEST_START] >= window.start          # NaN compares False
+    if window is not None and window.end is not None:
+        inside &= bounds[:, LATEST_START] <= window.end
+    return inside if window is not None else np.zeros(len(bounds), dtype=bool)
+
+
+def _facts(dated: Sequence[Record]) -> SpanFacts:
+    """The span facts of each dated record."""
+    if isinstance(dated, RecordColumns):
+        return dated.span_facts().take(dated.codes())
+    return span_facts([record.span for record in dated])
+
+
 def _extents(dated: Sequence[Record]) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
     """Each dated record's first and last day known (its earliest bound, or the next one
     known; its latest, or the one before) and whether its dates bound both ends (an end
     cell left empty could lie anywhere: in a chosen decade such a record is drawn as a stub
     far outside it, which says little, so the part takes the bounded first)."""
-    if isinstance(dated, RecordColumns):
-        facts = dated.span_facts().take(dated.codes())
-    else:
-        facts = span_facts([record.span for record in dated])
+    facts = _facts(dated)
     bounds = facts.bounds
     low, high = bounds[:, LATEST_END].copy(), bounds[:, EARLIEST_START].copy()
     for column in (EARLIEST_END, LATEST_START, EARLIEST_START):       # the first known wins

@@ -636,3 +636,26 @@ def test_ods_cells_agree_with_pandas_and_odfpy(tmp_path):
         expected = tuple(value.to_pydatetime() if hasattr(value, "to_pydatetime") else value
                          for value in their)
         assert mine == expected
+
+
+# ---------------------------------------------------------------------------------------------
+# A lone surrogate (a DataFrame's string may hold one: it has no UTF-8 form)
+
+def test_a_lone_surrogate_in_a_label_is_drawn_in_every_format(tmp_path):
+    import json
+    import re
+    import xml.etree.ElementTree as ET
+
+    from timelines import Chart
+
+    frame = pd.DataFrame({"name": ["Ann\ud800e Varn", "Bo Lisk"], "start": ["1700", "1701"],
+                          "end": ["1710", "1712"]}, dtype=object)
+    chart = Chart(frame)
+    for suffix in ("svg", "png", "pdf", "html"):
+        chart.save(tmp_path / f"chart.{suffix}")            # measured and written, no error
+    svg = ET.parse(tmp_path / "chart.svg").getroot()
+    texts = [element.text for element in svg.iter() if element.tag.endswith("text")]
+    assert "Anne Varn" in texts                    # drawn without the code point, as XML needs
+    page = (tmp_path / "chart.html").read_text(encoding="utf-8")
+    block = re.search(r'id="tl-data">(.*?)</script>', page, re.S).group(1)
+    assert "Ann\ud800e Varn" in json.loads(block)["records"]["label"]   # escaped, kept whole

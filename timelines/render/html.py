@@ -37,6 +37,7 @@ import gzip
 import hashlib
 import html
 import json
+import re
 from importlib import resources
 
 from ..scene.explore import FILTERED_QUALIFIERS, ExploreData
@@ -46,6 +47,9 @@ from ..scene.primitives import drawable_text
 # Standard, 4.12.1.3 "Restrictions for contents of script elements").
 _JSON_ESCAPES = (("<", "\\u003c"), (">", "\\u003e"), ("&", "\\u0026"),
                  ("\u2028", "\\u2028"), ("\u2029", "\\u2029"))
+# A lone surrogate in the data (a DataFrame's string may hold one) has no UTF-8 form: it is
+# written as JSON's \uXXXX escape (RFC 8259, section 7), the same string to the page's script.
+_SURROGATE = re.compile("[\ud800-\udfff]")
 
 
 def render_html(data: ExploreData) -> str:
@@ -119,7 +123,7 @@ def data_json(data: ExploreData) -> str:
                       allow_nan=False)
     for char, escaped in _JSON_ESCAPES:     # str.replace: fast on a page of many megabytes
         text = text.replace(char, escaped)
-    return text
+    return _SURROGATE.sub(lambda found: f"\\u{ord(found.group()):04x}", text)
 
 
 def _digest(text: str) -> str:

@@ -136,10 +136,13 @@ def covered_by_tables(text: str) -> bool:
 def _shaped_width(text: str, weight: str, families: str | None) -> float:
     """Width in em of text the tables do not cover, as shaped with the fonts that draw it;
     the table estimate when it cannot be shaped (no font file could be read)."""
+    from .primitives import clean_text
     from .shaping import shape_line
 
     try:
-        return shape_line(text, weight, families).width
+        # What is drawn: without the code points no renderer writes (a lone surrogate, which
+        # has no UTF-8 form and would stop the shaper).
+        return shape_line(clean_text(text), weight, families).width
     except (OSError, IndexError):
         return estimated_width(text, 1.0, weight)
 

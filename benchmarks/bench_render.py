@@ -6,8 +6,11 @@
 Prints seconds, bytes and the ratios ours / matplotlib's. A script, not a test: timings on a
 shared machine are noisy, so compare the ratios printed by one run.
 
-Each side of the PNG runs in a Python process of its own, which reports its time; its peak
-memory (resident set) is read when it ends (`os.wait4`). matplotlib's side holds the whole
+Each side of the PNG runs in a Python process of its own, which reports its time and its
+peak memory: the resident set's high-water mark of its own address space (`VmHWM` in
+/proc/self/status, which starts afresh at exec). The child's `ru_maxrss`, read by `wait4`,
+would not do: on Linux it keeps the mark of the forked parent's image before the exec, so a
+run that drew the SVG first reported the parent's 0.9 GB as the PNG's. matplotlib's side holds the whole
 page as one Agg canvas (N = 100,000 at 150 dpi: 1,500 x 967,000 px, 5.8 GB), and Agg draws
 nothing over 2^23 px a side (2^16 before matplotlib 3.10, its pull request 28904: about 6,000
 spans at 150 dpi). Ours draws and writes the PNG in bands of rows
@@ -91,7 +94,14 @@ def png_side(side: str, n: int, path: Path) -> None:
         scene = build_scene(records)
         rows = bar_rows(scene)
         seconds = timed(lambda: matplotlib_bars(scene, rows, path, DPI))
-    print(seconds)
+    print(seconds, _peak_kib())
+
+
+def _peak_kib() -> int:
+    """This process's peak resident set since its exec, in KiB (Linux: VmHWM)."""
+    with open("/proc/self/status", encoding="ascii") as status:
+        line = next(line for line in status if line.startswith("VmHWM:"))
+    return int(line.split()[1])
 
 
 def in_child(side: str, n: int, path: Path) -> tuple[float, float]:
@@ -99,11 +109,10 @@ def in_child(side: str, n: int, path: Path) -> tuple[float, float]:
     child = subprocess.Popen([sys.executable, __file__, "--png-side", side, str(n), str(path)],
                              stdout=subprocess.PIPE, text=True)
     output = child.stdout.read()
-    _, status, usage = os.wait4(child.pid, 0)
-    child.returncode = os.waitstatus_to_exitcode(status)
-    if child.returncode:
+    if child.wait():
         raise SystemExit(f"{side}: the PNG failed (exit {child.returncode})")
-    return float(output.split()[-1]), usage.ru_maxrss / 1e6   # ru_maxrss is in KiB on Linux
+    seconds, peak = output.split()[-2:]
+    return float(seconds), int(peak) * 1024 / 1e9
 
 
 def compare_png(n: int, folder: Path) -> None:

@@ -116,3 +116,44 @@ def test_dots_thin_out_toward_the_far_bound():
         left = sum(1 for s in squares if s.x < 120.0)
         right = len(squares) - left
         assert (left < right) if far_is_left else (right < left)
+
+
+# --- where each span is drawn: the arrays agree with the model's own span ---------------------
+_SIDES = ["1650", "c. 1650", "1650s", "../1801", "1801", "1801/..", "before 1700", "after 1640",
+          "", "early 17th century", "1690?", "1701-03-04", "..", "1650-1660"]
+
+
+def _span(start: str, end: str):
+    from timelines.dates import DateError, parse_column
+    from timelines.model import Endpoint, Qualifier, Span
+
+    first = parse_column([start], open_cell=Endpoint.open(Qualifier.OPEN_START))[0]
+    last = parse_column([end], open_cell=Endpoint.open(Qualifier.OPEN_END))[0]
+    if isinstance(first, DateError) or isinstance(last, DateError):
+        return None
+    first = first or Endpoint.open(Qualifier.UNKNOWN_START)
+    last = last or Endpoint.open(Qualifier.UNKNOWN_END)
+    try:
+        return Span(first, last)
+    except ValueError:
+        return None        # the end wholly before the start: a contradiction, not drawn
+
+
+def test_drawn_cores_are_the_models_certain_cores():
+    """`drawn_spans` works on arrays; `Span.certain_core` is the model's rule, one span at a
+    time. Every pair of the sides above: a core is drawn exactly where the model has one,
+    from its latest start to its earliest end (an open side from the axis edge)."""
+    from timelines.scene.bars import drawn_spans
+
+    spans = [span for start in _SIDES for end in _SIDES
+             if (span := _span(start, end)) is not None]
+    domain = (500_000.0, 700_000.0)                  # holds every bound above
+    drawn = drawn_spans(spans, domain, stub=100.0).each()
+    assert len(spans) > 100
+    for span, geometry in zip(spans, drawn):
+        core = span.certain_core
+        assert geometry.has_core == (core is not None), span
+        if core is not None:
+            low, high = (domain[0] if core[0] is None else core[0],
+                         domain[1] if core[1] is None else core[1])
+            assert (geometry.start_high, geometry.end_low) == (low, high), span

@@ -317,6 +317,26 @@ def test_label_side(bar, width, pad, side, box):
     assert (placed.bar_start, placed.bar_end) == bar
 
 
+def test_a_label_with_no_room_beside_goes_over_the_bar_before_a_key_number():
+    import numpy as np
+
+    from timelines.layout.labels import LABEL_SIDES, label_boxes
+
+    bars = np.array([[0, 100], [0, 100], [20, 80], [10, 90]], dtype=float)
+    bodies = np.array([[0, 100], [40, 60], [20, 80], [10, 90]], dtype=float)
+    rooms = np.full((4, 2), np.nan)                     # no core to sit on
+    widths = np.array([50, 50, 70, 60], dtype=float)
+    found = label_boxes(["a", "b", "c", "d"], bars, widths, (0, 100), 2, rooms,
+                        key_width=5, bodies=bodies)
+    assert [LABEL_SIDES[side] for side in found.side] == ["over", "none", "key right", "over"]
+    # a: 50 + 2 x 2 fits the body; b: the body is 20 wide, and neither a key nor the label
+    # finds room beside; c: 70 + 4 is wider than its body, a key fits right (80 + 2 + 5);
+    # d: over, though a key would fit. A label over its bar keeps the bar as its box.
+    assert found.start.tolist()[::3] == [0, 10] and found.end.tolist()[::3] == [100, 90]
+    without = label_boxes(["a"], bars[:1], widths[:1], (0, 100), 2, rooms[:1])
+    assert LABEL_SIDES[without.side[0]] == "none"       # no bodies given: as before
+
+
 def test_label_boxes_take_part_in_packing():
     # Two bars that do not overlap, but the first one's label (placed right) reaches the second.
     first, second = record("first", 0, 9), record("second", 12, 19)

@@ -18,6 +18,7 @@ from timelines.scene.bars import cut_sides
 from timelines.scene.encodings import LaneBox, MarkStyle
 from timelines.scene.primitives import GradientRect, Group, Polygon, Rect, Text, find, walk
 from timelines.scene.scale import TimeScale
+from timelines.scene.textsize import text_width
 
 SVG = "{http://www.w3.org/2000/svg}"
 
@@ -223,3 +224,45 @@ def test_a_window_holding_no_record_is_a_usage_error(tmp_path, capsys):
     assert code == 2
     assert "error: nothing to draw: all 2 dated records lie outside --from/--to" in err
     assert not (tmp_path / "t.svg").exists()
+
+
+# --- a bar across the whole window -------------------------------------------------------
+
+def _wcag_luminance(red: float, green: float, blue: float) -> float:
+    """Relative luminance of an sRGB colour, components 0..1 (WCAG 2.1, definitions)."""
+    def linear(c):
+        return c / 12.92 if c <= 0.03928 else ((c + 0.055) / 1.055) ** 2.4
+    return 0.2126 * linear(red) + 0.7152 * linear(green) + 0.0722 * linear(blue)
+
+
+def _rgb(color: str) -> tuple[float, float, float]:
+    return tuple(int(color[i:i + 2], 16) / 255 for i in (1, 3, 5))
+
+
+def test_a_label_with_no_room_beside_is_drawn_over_its_bar_on_a_plate():
+    # Its start may lie anywhere in 1650-1699 and it ends in 1760: across the whole window
+    # 1650-1700 with no certain part in it worth a label, and no room left or right.
+    start = Endpoint(day(1650, 1, 1), day(1699, 12, 31), Precision.DECADE,
+                     frozenset({Qualifier.APPROXIMATE}))
+    wide = Record("Guild of the Long Window", Span(start, year(1760)),
+                  Provenance("test.csv", 2), group="Weavers and Fullers of the Old Town")
+    scene = build_scene([wide, RECORDS[0]], window=WINDOW)
+    [line] = find(scene, "axis-line")
+    group = the_record(scene, "Guild of the Long Window")
+    [label] = parts(group, Text, "over")
+    [plate] = parts(group, Rect, "label-plate")
+    width = text_width(label.text, label.size)
+    assert line.x1 < label.x and label.x + width < line.x2          # on the bar, in the window
+    assert plate.x <= label.x and plate.x + plate.width >= label.x + width
+    # Dark text on the plate over the darkest bar there could be (black): the contrast of
+    # WCAG 2.1 (SC 1.4.3 asks 4.5:1 for text), worked out here from its definitions.
+    backdrop = tuple(plate.opacity * c for c in _rgb(plate.fill))       # over black
+    ratio = ((_wcag_luminance(*backdrop) + 0.05)
+             / (_wcag_luminance(*_rgb(label.fill)) + 0.05))
+    assert ratio >= 4.5
+    # Its start's sign stands left of the axis, clear of the group's name.
+    [sign] = parts(group, Text, "qualifier")
+    [caption] = [t for t in find(scene, "group-label") if t.text.startswith("Weavers")]
+    sign_left = sign.x - text_width(sign.text, sign.size, "bold")
+    assert sign.x <= line.x1 and sign_left >= caption.x + text_width(caption.text,
+                                                                     caption.size, "bold")

@@ -75,7 +75,9 @@ class BoxMeasure:
             by_key = dict(zip(map(id, every), every))
             spans = list(by_key.values())
             self.rows = dict(zip(by_key, range(len(by_key))))   # of each span's measures
-        self.measured = np.asarray(measure_spans(spans), dtype=float).reshape(-1, 4)
+        measured = np.asarray(measure_spans(spans), dtype=float)
+        self.measured = measured.reshape(-1, 6 if measured.ndim == 2 and measured.shape[1] == 6
+                                         else 4)
 
     def boxes(self, records: Sequence[Record]) -> Boxes:
         if self.coded:
@@ -85,9 +87,12 @@ class BoxMeasure:
             labels = list(map(_LABEL, records))
             span_rows = np.fromiter(map(self.rows.__getitem__, map(id, map(_SPAN, records))),
                                     dtype=np.intp, count=len(records))
-        bars, rooms = self.measured[span_rows, :2], self.measured[span_rows, 2:]
+        measured = self.measured[span_rows]
+        bars, rooms = measured[:, :2], measured[:, 2:4]
+        bodies = measured[:, 4:6] if measured.shape[1] == 6 else None
         found = label_boxes(labels, bars, self._widths(labels), self.domain,
-                            self.label_pad, rooms, self.clearance, self.mode, self.key_width)
+                            self.label_pad, rooms, self.clearance, self.mode, self.key_width,
+                            bodies)
         shown = self._shorten(labels, bars, found) if self.mode == "beside" else None
         return Boxes(found.start, found.end, bars[:, 0], bars[:, 1], found.side, shown)
 

@@ -2,9 +2,13 @@
 
 Inside the bar when the label and its padding fit in the room inside (the caller says where:
 for a chart, the solid core, where the text's contrast is known); else right of the bar, else
-left of it, as long as the label stays within the domain; else, when the caller gives a key
-width, a small number beside the bar (right, else left) that a numbered key under the chart
-spells out; else nowhere: the label is left out of the picture and kept in the tooltip.
+left of it, as long as the label stays within the domain; else over the bar's body when it
+fits there (the caller says where the body lies: for a chart, the bar between its ends' signs
+and arrowheads, where the label is drawn dark on a pale plate so that it reads over any part
+of the bar: a bar across the whole of a --from/--to window has no room beside it); else, when
+the caller gives a key width, a small number beside the bar (right, else left) that a
+numbered key under the chart spells out; else nowhere: the label is left out of the picture
+and kept in the tooltip.
 
 A label beside the bar widens the record's box by the pad, its width and a clearance on its
 far side, so packing keeps other bars and labels off it. The clearance is what tells a reader
@@ -21,7 +25,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-LABEL_SIDES = ("inside", "right", "left", "none", "key right", "key left")
+LABEL_SIDES = ("inside", "right", "left", "none", "key right", "key left", "over")
 LABEL_MODES = ("beside", "inside", "none")
 
 LabelBox = tuple[float, float, str]   # box start, box end, label side
@@ -47,16 +51,18 @@ class LabelBoxes:
 
 
 _NO_ROOM = (math.nan, math.nan)     # a record with no room for its label inside
-_INSIDE, _RIGHT, _LEFT, _NONE, _KEY_RIGHT, _KEY_LEFT = range(len(LABEL_SIDES))
+_INSIDE, _RIGHT, _LEFT, _NONE, _KEY_RIGHT, _KEY_LEFT, _OVER = range(len(LABEL_SIDES))
 
 
 def label_boxes(labels: Sequence[str], bars: np.ndarray, widths: np.ndarray,
                 domain: tuple[float, float], pad: float, rooms: np.ndarray,
                 clearance: float = 0.0, mode: str = "beside",
-                key_width: float | None = None) -> LabelBoxes:
+                key_width: float | None = None, bodies: np.ndarray | None = None
+                ) -> LabelBoxes:
     """Each record's box and label side, from its drawn bar (`bars`, n x 2, in days), its
     label's width and its room inside (`rooms`, n x 2; NaN where there is none); with
-    `key_width` (days), a key number for a label that finds no room."""
+    `bodies` (n x 2, NaN where there is none), a label over the bar's body where nothing
+    beside has room; with `key_width` (days), a key number for a label that finds no room."""
     bar_start, bar_end = bars[:, 0], bars[:, 1]
     _check(labels, bar_start, bar_end, widths)
     side = np.full(len(labels), _NONE)
@@ -72,6 +78,9 @@ def label_boxes(labels: Sequence[str], bars: np.ndarray, widths: np.ndarray,
     side[right], side[left] = _RIGHT, _LEFT
     end[right] = (((bar_end + pad) + widths) + clearance)[right]
     start[left] = (((bar_start - pad) - widths) - clearance)[left]
+    if bodies is not None:
+        over = (side == _NONE) & ((widths + 2 * pad) <= (bodies[:, 1] - bodies[:, 0]))
+        side[over] = _OVER
     if key_width is not None:
         _key_numbers(side, start, end, bar_start, bar_end, domain, pad, key_width, clearance)
     return LabelBoxes(start, end, side)

@@ -21,8 +21,9 @@ class PlacedRecord:
     box_end: float
     bar_start: float
     bar_end: float
-    label_side: str   # "inside", "right", "left", "key right"/"key left" (a number spelled out
-    #                   under the chart) or "none" (left out; kept in the tooltip)
+    label_side: str   # "inside", "right", "left", "over" (on the bar's body, on a plate),
+    #                   "key right"/"key left" (a number spelled out under the chart) or
+    #                   "none" (left out; kept in the tooltip)
     key: int = 0      # with a key side: its number, 1, 2, ... in drawing order
     shown: str = ""   # the label as drawn when shortened to fit ("" when whole)
 

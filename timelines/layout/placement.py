@@ -211,8 +211,10 @@ def place(records: Iterable[Record], *, domain: tuple[float, float],
     `measure_spans` gives, for a list of spans (each distinct span object once),
     an n x 4 array: each one's drawn bar (start, end) in days (the caller decides how open or
     unknown ends are drawn) and the part of it a label may sit on (start, end; NaN where there
-    is none; for example only the solid core, where text stays legible); `each_span` makes
-    one from functions of one span. `label_width` gives a label's width in days, asked once
+    is none; for example only the solid core, where text stays legible), and optionally two
+    more columns, n x 6: the bar's body a label may be drawn over when nothing beside has
+    room (start, end; NaN where there is none); `each_span` makes one from functions of one
+    span. `label_width` gives a label's width in days, asked once
     per distinct text. `label_pad` is the space in days between a label and the bar's edge
     (on both sides for a label inside); `label_clearance` the room kept free on the far side
     of a label beside its bar; `labels` the label mode ("beside",

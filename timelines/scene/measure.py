@@ -16,7 +16,7 @@ from ..errors import UsageError
 from ..layout import GroupNode, LaneRules, TimeWindow, group_tree
 from ..layout.grouping import BY_GROUP
 from ..model import Record
-from ..spanarrays import span_facts
+from ..spanarrays import EARLIEST_START, span_facts
 from .bars import drawn_spans, qualifier_kind, stub_days
 from .compose import SUBGROUP_INDENT
 from .encodings import OPEN_ARROW_REACH
@@ -61,14 +61,14 @@ def key_width(count: int, scale: TimeScale, theme: Theme) -> float:
 
 
 def drawn_measure(scale: TimeScale, theme: Theme):
-    """A `measure_spans` for place(): each span's drawn extent, signs beside it included, and
-    the room for a label on it (its solid core, where the label's contrast is known), in
-    days."""
+    """A `measure_spans` for place(): each span's drawn extent, signs beside it included, the
+    room for a label on it (its solid core, where the label's contrast is known) and its body
+    (the bar between its signs, which a label on a plate may be drawn over), in days."""
     per_px = days_per_px(scale)
     # The widest qualifier sign, '~?', sits 2 px beside a bar end; a label beside it stands
     # three times as far from the sign as the sign from its bar (SIGN_CLEARANCE and the label
     # pad), so the sign reads as the bar's, not as part of the name (Gestalt proximity).
-    mark_room = (text_width("~?", theme.small_font_size, "bold") + 2 + SIGN_CLEARANCE) * per_px
+    mark_room = _sign_room_px(theme) * per_px
     marker = theme.bar_height * 0.6 * per_px
     domain = (scale.start, scale.end)
     stub = stub_days(scale, theme)
@@ -86,7 +86,8 @@ def drawn_measure(scale: TimeScale, theme: Theme):
         high = np.where(point, drawn.end_high + marker + after, drawn.end_high + after)
         room_low = np.where(drawn.has_core, drawn.start_high, np.nan)
         room_high = np.where(drawn.has_core, drawn.end_low, np.nan)
-        return np.column_stack((low, high, room_low, room_high))
+        return np.column_stack((low, high, room_low, room_high, drawn.start_low,
+                                drawn.end_high))
 
     return measure_spans
 
@@ -109,7 +110,30 @@ def chart_scale(dated: list[Record], theme: Theme,
     if column and _any_open_start(dated):
         column += theme.bar_height * OPEN_ARROW_REACH     # a left arrow keeps off the names
     left = theme.margin + column
+    left += _start_sign_room(dated, theme, low, (theme.width - theme.margin - left) / (high - low))
     return TimeScale(low, high, left, theme.width - theme.margin)
+
+
+def _start_sign_room(dated: Sequence[Record], theme: Theme, low: float,
+                     px_per_day: float) -> float:
+    """Room left of the axis for a start's sign (~, ?) drawn before a bar that starts at the
+    axis's first days (a --from window's, or a decade's first day): without it the sign
+    stands in the group names. 0 when no such start."""
+    room = _sign_room_px(theme)
+    if isinstance(dated, RecordColumns):
+        facts = dated.span_facts().take(dated.used_codes())
+    else:
+        facts = span_facts([record.span for record in dated])
+    signed = np.array([qualifier_kind(qualifiers) is not None
+                       for qualifiers in facts.qualifier_sets] or [False])
+    start = facts.bounds[:, EARLIEST_START]
+    near = (start >= low) & (start < low + room / px_per_day)     # NaN compares False
+    return room if (near & signed[facts.start_qualifiers] & ~facts.point).any() else 0.0
+
+
+def _sign_room_px(theme: Theme) -> float:
+    """The widest qualifier sign, '~?', 2 px beside a bar end, and the clearance beyond it."""
+    return text_width("~?", theme.small_font_size, "bold") + 2 + SIGN_CLEARANCE
 
 
 def _bounds(dated: Sequence[Record]) -> tuple[float, float]:

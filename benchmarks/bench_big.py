@@ -5,7 +5,8 @@ each against its baseline in the same run, each command in a process of its own.
 
 1. `timelines check` and `timelines lanes --format csv` on an N-row register against
    `pandas.read_csv` of the same file (targets: check within 3x the time and 2x the memory;
-   lanes within 6x and 3x);
+   lanes within 6x and 3x), and the same on an N-row table of plain ISO days (`YYYY-MM-DD`
+   starts and ends, about 146,000 distinct days a column: read as arrays of days);
 2. `timelines parse --json` of an N-line column with 5,000 distinct values against a script
    that memoises `dateutil.parser.parse` per distinct line (target: within 1.5x);
 3. `timelines render --overview yes` to PNG and SVG of a tenth of N rows against the same
@@ -21,6 +22,7 @@ import subprocess
 import sys
 import tempfile
 import time
+from datetime import date
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
@@ -75,6 +77,20 @@ def register(path: Path, rows: int, seed: int = 15) -> None:
             file.write(f"R{row},Member {row},{crafts[row % 24]},{start},{end}\n")
 
 
+def iso_register(path: Path, rows: int, seed: int = 17) -> None:
+    """Invented members with plain ISO days: an admission day in 1600-1999, a leaving day up
+    to 55 years on, a twentieth of the leaving days not known."""
+    rng = random.Random(seed)
+    first = date(1600, 1, 1).toordinal()
+    with open(path, "w", encoding="utf-8") as file:
+        file.write("ref,name,craft,admitted,left\n")
+        for row in range(rows):
+            start = first + rng.randint(0, 146_000)
+            end = "" if row % 20 == 0 else date.fromordinal(start + rng.randint(0, 20_000))
+            file.write(f"R{row},Member {row},craft {row % 24},"
+                       f"{date.fromordinal(start).isoformat()},{end}\n")
+
+
 def column(path: Path, rows: int, distinct: int = 5000, seed: int = 16) -> None:
     rng = random.Random(seed)
     values = [f"c. {1500 + i % 400}" if i % 3 == 0 else f"{1500 + i % 400}-{i % 12 + 1:02d}"
@@ -99,13 +115,16 @@ def main(argv: list[str] | None = None) -> int:
         register(table, args.rows)
         register(small, args.rows // 10)
         column(lines, args.rows)
-        base = measured([sys.executable, "-c", _READ_CSV, str(table)])
-        _line(f"check {args.rows:,}", measured([*timelines, "check", str(table), "--start",
-                                                "admitted", "--end", "left"]), base,
-              "target 3x time, 2x memory")
-        _line(f"lanes --format csv {args.rows:,}", measured(
-            [*timelines, "lanes", str(table), "--start", "admitted", "--end", "left",
-             "--group", "craft", "--format", "csv"]), base, "target 6x, 3x")
+        days = Path(folder) / "days.csv"
+        iso_register(days, args.rows)
+        for name, path in (("", table), (" (plain ISO days)", days)):
+            base = measured([sys.executable, "-c", _READ_CSV, str(path)])
+            _line(f"check {args.rows:,}{name}", measured(
+                [*timelines, "check", str(path), "--start", "admitted", "--end", "left"]),
+                base, "target 3x time, 2x memory")
+            _line(f"lanes --format csv {args.rows:,}{name}", measured(
+                [*timelines, "lanes", str(path), "--start", "admitted", "--end", "left",
+                 "--group", "craft", "--format", "csv"]), base, "target 6x, 3x")
         _line(f"parse --json {args.rows:,} lines, 5,000 distinct",
               measured([*timelines, "parse", "--json"], stdin=lines),
               measured([sys.executable, "-c", _DATEUTIL], stdin=lines), "target 1.5x time")

@@ -10,10 +10,12 @@
    1.5 s. The time per n log n at growing n shows the order of growth.
 2. A register. An invented 200,000-row register (gallery/register/make_register.py) read,
    parsed, checked, laid out and written as the `timelines lanes --format csv` rows, against
-   `pandas.read_csv` reading the same file. Goal: at most 3x. Each stage is timed apart, so
-   a slow stage shows; and the least any run must do (reading the cells as text, parsing
-   each distinct date once, the lane sweep, writing the finished text), each part timed
-   alone, shows how much of the goal is left for everything else.
+   `pandas.read_csv` reading the same file's cells as text (as bench_big.py reads them). The
+   goal is DESIGN.md's for whole runs, `lanes` within 6x read_csv, which bench_big.py measures
+   process against process (start-up and imports included); here each stage is timed apart
+   in one process, so a slow stage shows; and the least any run must do (reading the cells as
+   text, parsing each distinct date once, the lane sweep, writing the finished text), each
+   part timed alone, shows how much of the time is left for everything else.
 """
 from __future__ import annotations
 
@@ -107,7 +109,10 @@ def bench_register(rows: int) -> None:
     with tempfile.TemporaryDirectory() as folder:
         path = Path(folder) / "register.csv"
         make_register.main(["--rows", str(rows), "-o", str(path)])
-        baseline, _ = timed(lambda: pd.read_csv(path), repeat=3)
+        # The cells as text, as bench_big's baseline reads them (pandas 3 reads a plain
+        # read_csv's strings into Arrow, which is no reading of a table as it is written).
+        baseline, _ = timed(lambda: pd.read_csv(path, dtype=str, keep_default_na=False),
+                            repeat=3)
         given = ColumnMap(start="admitted", end="left", label="name", id="ref", group="craft")
         options = ChartOptions(columns=given, lanes=LaneSettings())
         stages: dict[str, float] = {}
@@ -136,7 +141,8 @@ def bench_register(rows: int) -> None:
     print(f"  pandas.read_csv: {baseline:.2f} s (best of 3)")
     for name, seconds in stages.items():
         print(f"  {name:30} {seconds:6.2f} s  {seconds / baseline:5.1f}x read_csv")
-    print(f"  {'total':30} {total:6.2f} s  {total / baseline:5.1f}x read_csv (goal <= 3x)")
+    print(f"  {'total':30} {total:6.2f} s  {total / baseline:5.1f}x read_csv "
+          "(in one process; whole runs: bench_big.py, goal <= 6x)")
     without_sources = total - stages["read_table"] - stages["parse (load_records)"]
     print(f"  {'after the records exist':30} {without_sources:6.2f} s  "
           f"{without_sources / baseline:5.1f}x read_csv")

@@ -118,16 +118,24 @@ def fact_windows(facts: SpanFacts, kind: str) -> tuple[np.ndarray, ...]:
     bounds = facts.bounds
     earliest_start, latest_start = bounds[:, EARLIEST_START], bounds[:, LATEST_START]
     earliest_end, latest_end = bounds[:, EARLIEST_END], bounds[:, LATEST_END]
-    low_or = lambda days: np.where(np.isnan(days), -math.inf, days)        # noqa: E731
-    high_or = lambda days: np.where(np.isnan(days), math.inf, days + 1)    # noqa: E731
     if kind == EVENT:
-        return low_or(earliest_start), high_or(latest_end)
+        return _low(earliest_start), _high(latest_end)
     past = facts.open_start & np.isnan(earliest_start)     # ran on from the past: before all
     on = facts.open_end & np.isnan(latest_end)             # runs on: after all
-    return (np.where(past, -math.inf, low_or(earliest_start)),
-            np.where(past, -math.inf, high_or(latest_start)),
-            np.where(on, math.inf, low_or(earliest_end)),
-            np.where(on, math.inf, high_or(latest_end)))
+    return (np.where(past, -math.inf, _low(earliest_start)),
+            np.where(past, -math.inf, _high(latest_start)),
+            np.where(on, math.inf, _low(earliest_end)),
+            np.where(on, math.inf, _high(latest_end)))
+
+
+def _low(days: np.ndarray) -> np.ndarray:
+    """A window's low side from an earliest day: -inf where there is none."""
+    return np.where(np.isnan(days), -math.inf, days)
+
+
+def _high(days: np.ndarray) -> np.ndarray:
+    """A window's high side from a latest day (the day after it): inf where there is none."""
+    return np.where(np.isnan(days), math.inf, days + 1)
 
 
 # -- Record objects ----------------------------------------------------------------------------

@@ -51,7 +51,7 @@ def _nan(days):
 
 def _facts_equal(one: SpanFacts, other: SpanFacts) -> None:
     for name in ("dated", "open_start", "open_end", "point", "start_precision",
-                 "end_precision", "start_radiocarbon"):
+                 "end_precision", "start_radiocarbon", "end_radiocarbon", "likely"):
         assert getattr(one, name).tolist() == getattr(other, name).tolist(), name
     np.testing.assert_array_equal(one.bounds, other.bounds)
     for side in ("start_qualifiers", "end_qualifiers"):
@@ -78,7 +78,8 @@ def test_day_spans_refuse_an_end_before_its_start():
 @pytest.mark.parametrize("text", [
     "1650", "c. 1650", "../1760", "1760/..", "/1760", "before 1700", "1650?", "1701-03-04",
     "1650–1660", "44 BC", "65.5 Ma", "early 17th century", "1984~", "198X", "1650%",
-    "[1667,1668]", "3rd millennium BC", "3450 ± 40 14C BP"])
+    "[1667,1668]", "3rd millennium BC", "3450 ± 40 14C BP", "1650–1660 ± 5",
+    "3450 ± 40 14C BP–3300 ± 30 14C BP"])
 def test_span_facts_state_what_each_span_says(text):
     span = parse_span(text)
     facts = span_facts([span, None])
@@ -95,6 +96,9 @@ def test_span_facts_state_what_each_span_says(text):
                            (facts.end_precision[0], span.end)):
         assert (PRECISIONS[code] if code >= 0 else None) == endpoint.precision
     assert facts.start_radiocarbon.tolist() == [span.start.radiocarbon is not None, False]
+    assert facts.end_radiocarbon.tolist() == [span.end.radiocarbon is not None, False]
+    assert facts.likely.tolist() == [span.start.likely is not None
+                                     or span.end.likely is not None, False]
 
 
 # --- the reader ------------------------------------------------------------------------------

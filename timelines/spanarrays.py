@@ -1,8 +1,8 @@
 """Spans as arrays: what packing, drawing and checking ask of many spans at once.
 
 `span_facts(spans)` gives, for each of some spans, the numbers and flags those stages read
-(`SpanFacts`: the four bounds, open sides, points, qualifiers, precisions and calibrated
-radiocarbon dates), as numpy
+(`SpanFacts`: the four bounds, open sides, points, qualifiers, precisions, calibrated
+radiocarbon dates and likely days), as numpy
 arrays. For spans held as objects it looks at each once; for `DaySpans` it reads them off
 the arrays the spans are held in.
 
@@ -48,6 +48,8 @@ class SpanFacts:
     start_precision: np.ndarray
     end_precision: np.ndarray
     start_radiocarbon: np.ndarray      # the start's window is a calibrated 14C age's
+    end_radiocarbon: np.ndarray
+    likely: np.ndarray                 # a side has a most likely day
 
     def __len__(self) -> int:
         return len(self.dated)
@@ -90,7 +92,10 @@ def span_facts(spans: Sequence[Span | None]) -> SpanFacts:
         qualifier_sets=tuple(sets),
         start_precision=codes(map(precisions.__getitem__, map(_PRECISION, starts)), np.int8),
         end_precision=codes(map(precisions.__getitem__, map(_PRECISION, ends)), np.int8),
-        start_radiocarbon=codes((side.radiocarbon is not None for side in starts), bool))
+        start_radiocarbon=codes((side.radiocarbon is not None for side in starts), bool),
+        end_radiocarbon=codes((side.radiocarbon is not None for side in ends), bool),
+        likely=codes((first.likely is not None or last.likely is not None
+                      for first, last in zip(starts, ends)), bool))
 
 
 def bounds_of(spans: Sequence[Span]) -> np.ndarray:
@@ -170,7 +175,7 @@ class DaySpans(Sequence):
             end_qualifiers=np.where(dated & ~end_known, 2, 0),
             start_precision=np.where(start_known, day, -1).astype(np.int8),
             end_precision=np.where(end_known, day, -1).astype(np.int8),
-            start_radiocarbon=none.copy())
+            start_radiocarbon=none.copy(), end_radiocarbon=none.copy(), likely=none.copy())
 
 
 # None converts to NaN in a float array: the four bounds of a span in one call.

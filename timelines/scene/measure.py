@@ -15,8 +15,8 @@ from ..columnar import RecordColumns
 from ..errors import UsageError
 from ..layout import GroupNode, LaneRules, TimeWindow, group_tree
 from ..layout.grouping import BY_GROUP
-from ..model import Record
-from ..spanarrays import EARLIEST_START, span_facts
+from ..model import Qualifier, Record
+from ..spanarrays import EARLIEST_START, LATEST_END, span_facts
 from .bars import drawn_spans, qualifier_kind, stub_days
 from .compose import SUBGROUP_INDENT
 from .encodings import OPEN_ARROW_REACH
@@ -86,10 +86,30 @@ def drawn_measure(scale: TimeScale, theme: Theme):
         high = np.where(point, drawn.end_high + marker + after, drawn.end_high + after)
         room_low = np.where(drawn.has_core, drawn.start_high, np.nan)
         room_high = np.where(drawn.has_core, drawn.end_low, np.nan)
-        return np.column_stack((low, high, room_low, room_high, drawn.start_low,
-                                drawn.end_high))
+        body = _plain_bars(facts)
+        body_low = np.where(body, drawn.start_low, np.nan)
+        body_high = np.where(body, drawn.end_high, np.nan)
+        return np.column_stack((low, high, room_low, room_high, body_low, body_high))
 
     return measure_spans
+
+
+def _plain_bars(facts) -> np.ndarray:
+    """Which spans are drawn as a plain bar, nothing on it but its core and fringes, that a
+    label may stand over: not a point (a diamond), each side bounded or open, no bracket of a
+    'before' or 'after', no likely day's tick, no calibrated date's shading and ranges."""
+    plain_sets = np.array([qualifiers.isdisjoint(_MARKED_INSIDE)
+                           for qualifiers in facts.qualifier_sets] or [True])
+    bounds = facts.bounds
+    bounded = ((facts.open_start | ~np.isnan(bounds[:, EARLIEST_START]))
+               & (facts.open_end | ~np.isnan(bounds[:, LATEST_END])))
+    return (plain_sets[facts.start_qualifiers] & plain_sets[facts.end_qualifiers] & bounded
+            & ~facts.point & ~facts.likely & ~facts.start_radiocarbon & ~facts.end_radiocarbon)
+
+
+# Qualifiers drawn on the bar itself (a bracket; an unknown side's outlined stretch).
+_MARKED_INSIDE = frozenset({Qualifier.BEFORE, Qualifier.AFTER, Qualifier.UNKNOWN_START,
+                            Qualifier.UNKNOWN_END})
 
 
 def chart_scale(dated: list[Record], theme: Theme,

@@ -56,7 +56,26 @@ def choose_part(records: Sequence[Record], kept: Sequence[Record], window, where
     """The overview of the dated `records`, and the part of `kept` (the window's) in lanes.
     A table kept as columns is summarised and chosen from on its arrays: Records are made
     for the part drawn alone."""
-    dated, chosen = _dated(records), _dated(kept)
+    dated = _dated(records)
+    chosen, how = _chosen(_dated(kept), window, where, first, read_column)
+    lows, highs, _ = _extents(dated)
+    first_day, last_day = float(lows.min()), float(highs.max())     # the whole time, once
+    per = _block((last_day - first_day) / 365.2425)
+    series = _in_group_order(activity_series(_activity(dated, per, era, calendar)), dated)
+    note = (f"{len(dated):,} dated records, too many to read lane by lane: the strips count "
+            f"them per {per}, by group. The lanes below show {len(chosen):,} of them: "
+            f"{'; '.join(how)}. Every record is in an explorer written with -o chart.html; "
+            "--overview no draws all lanes.")
+    chosen = list(chosen)
+    overview = Overview(tuple(_named(s) for s in series), first_day, last_day,
+                        _shown(chosen, window) if chosen else None, note)
+    return Part(_undated(kept) + chosen, overview, len(dated) - len(chosen))
+
+
+def _chosen(chosen: Sequence[Record], window, where: str | None, first: int | None,
+            read_column: Callable[[str], ColumnReader]) -> tuple[Sequence[Record], list[str]]:
+    """The dated records of the window's part that the lanes show, and how they were chosen
+    (for the note)."""
     how = []
     if window is not None:
         how.append(f"those from {window.start_text or 'the start'} to "
@@ -68,39 +87,39 @@ def choose_part(records: Sequence[Record], kept: Sequence[Record], window, where
                                  if (text or "").strip() == value])
         how.append(f"those with {column} = {value}")
     limit = first if first is not None else FIRST_SHOWN
-    if len(chosen) > limit or first is not None:
-        if len(chosen) > limit:
-            low, _, bounded = _extents(chosen)
-            rows = (chosen.row_numbers() if isinstance(chosen, RecordColumns) else
-                    np.array([record.provenance.row for record in chosen], dtype=np.int64))
-            # Of a window, those surely beginning in it first: whole bars, not ends reaching
-            # in from before it, nor starts that may lie anywhere in a century.
-            inside = _begin_in(chosen, window)
-            order = np.lexsort((rows, low, ~inside, ~bounded))[:limit]   # stable
-            chosen = _taken(chosen, order.tolist())
+    cut = len(chosen) > limit
+    if cut:
+        low, _, bounded = _extents(chosen)
+        # Of a window, those surely beginning in it first: whole bars, not ends reaching in
+        # from before it, nor starts that may lie anywhere in a century.
+        inside = _begin_in(chosen, window)
+        order = np.lexsort((_rows(chosen), low, ~inside, ~bounded))[:limit]     # stable
+        chosen = _taken(chosen, order.tolist())
+    if cut or first is not None:
         how.append(f"the first {limit:,} by start, those with both ends bounded first"
                    + (" and, of them, those surely beginning in the window" if window is not None
                       else ""))
-    undated = [r for r in kept if r.span is None] if not isinstance(kept, RecordColumns) else (
-        list(kept.undated_part()))
-    lows, highs, _ = _extents(dated)
-    first, last = float(lows.min()), float(highs.max())           # the whole time, once
-    per = _block((last - first) / 365.2425)
-    table = _activity(dated, per, era, calendar)
-    note = (f"{len(dated):,} dated records, too many to read lane by lane: the strips count "
-            f"them per {per}, by group. The lanes below show {len(chosen):,} of them: "
-            f"{'; '.join(how)}. Every record is in an explorer written with -o chart.html; "
-            "--overview no draws all lanes.")
-    chosen = list(chosen)
-    shown = _shown(chosen, window) if chosen else None
-    # The strips in the order the groups first appear, as the lanes take them.
+    return chosen, how
+
+
+def _in_group_order(series, dated: Sequence[Record]) -> list:
+    """The strips in the order the groups first appear, as the lanes take them."""
     groups = (dated.column("groups") if isinstance(dated, RecordColumns)
               else [r.group for r in dated])
     order = {group: place for place, group in enumerate(dict.fromkeys(groups))}
-    series = sorted(activity_series(table), key=lambda s: order.get(_group_name(s), len(order)))
-    overview = Overview(tuple(_named(s) for s in series),
-                        first, last, shown, note)
-    return Part(undated + chosen, overview, len(dated) - len(chosen))
+    return sorted(series, key=lambda s: order.get(_group_name(s), len(order)))
+
+
+def _rows(records: Sequence[Record]) -> np.ndarray:
+    if isinstance(records, RecordColumns):
+        return records.row_numbers()
+    return np.array([record.provenance.row for record in records], dtype=np.int64)
+
+
+def _undated(records: Sequence[Record]) -> list[Record]:
+    if isinstance(records, RecordColumns):
+        return list(records.undated_part())
+    return [r for r in records if r.span is None]
 
 
 def _dated(records: Sequence[Record]) -> Sequence[Record]:

@@ -227,3 +227,14 @@ def test_the_png_draws_events(tmp_path):
     path = tmp_path / "register.png"
     _chart().save(path)
     assert path.read_bytes().startswith(b"\x89PNG")
+
+
+def test_counts_name_what_records_are_with_thousands_grouped():
+    from timelines.model import EVENT, SPAN, Endpoint, Provenance, Record, Span, counted
+
+    point = Span.point(Endpoint.day(day(1650, 1, 1)))
+    spans = [Record("s", point, Provenance("t.csv", 2), kind=SPAN)] * 1234
+    events = [Record("e", point, Provenance("t.csv", 2), kind=EVENT)] * 2
+    assert counted(spans[:1]) == "1 span" and counted(events) == "2 events"
+    assert counted(spans) == "1,234 spans"
+    assert counted(spans + events) == "1,236 records (2 events, 1,234 spans)"

@@ -310,17 +310,17 @@ def holds(records: Iterable[Record]) -> str:
 
 def counted(records: Iterable[Record]) -> str:
     """How many dated records, named by what they are: "3 events", "1 span", "5 records
-    (2 events, 3 spans)"."""
+    (2 events, 3 spans)", "1,000,000 spans"."""
     kinds = [record.kind for record in records if record.span is not None]
     events = kinds.count(EVENT)
     if events and events < len(kinds):
-        return (f"{len(kinds)} records ({_counted(events, EVENT)}, "
+        return (f"{len(kinds):,} records ({_counted(events, EVENT)}, "
                 f"{_counted(len(kinds) - events, SPAN)})")
     return _counted(len(kinds), EVENT if events else SPAN)
 
 
 def _counted(number: int, kind: str) -> str:
-    return f"{number} {kind}" if number == 1 else f"{number} {kind}s"
+    return f"{number} {kind}" if number == 1 else f"{number:,} {kind}s"
 
 
 def _iso_or_open(day: int | None) -> str:

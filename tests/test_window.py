@@ -266,3 +266,21 @@ def test_a_label_with_no_room_beside_is_drawn_over_its_bar_on_a_plate():
     sign_left = sign.x - text_width(sign.text, sign.size, "bold")
     assert sign.x <= line.x1 and sign_left >= caption.x + text_width(caption.text,
                                                                      caption.size, "bold")
+
+
+def test_the_notes_name_the_first_undated_and_outside_records_and_count_the_rest():
+    from timelines.scene.legend import OUTSIDE_LISTED, UNDATED_LISTED
+
+    undated = [Record(f"n.d. {i}", None, Provenance("test.csv", 100 + i))
+               for i in range(UNDATED_LISTED + 1234)]
+    outside = [record(f"early {i}", year(1600), year(1610), 3000 + i)
+               for i in range(OUTSIDE_LISTED + 1500)]
+    scene = build_scene([*RECORDS[:1], *undated, *outside], window=WINDOW)
+    notes = " ".join(t.text for t in find(scene, "note"))
+    assert f"n.d. {UNDATED_LISTED - 1} (row {100 + UNDATED_LISTED - 1})" in notes
+    assert f"n.d. {UNDATED_LISTED} (row" not in notes
+    assert "and 1,234 more ('timelines check' lists them all)" in notes
+    assert f"{OUTSIDE_LISTED + 1500:,} records lie outside the time shown" in notes
+    assert "and 1,500 more." in notes
+    # A page for the chart, not a wall of names: the notes are a few lines.
+    assert len(find(scene, "note")) < 20

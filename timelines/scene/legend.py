@@ -42,6 +42,9 @@ ENTRIES = (
     ("calibrated median", "the median of a calibrated date"),
 )
 OUTSIDE_LISTED = 10     # records outside the window named in the note; the rest counted
+# Undated records named in the note; the rest counted: a catalogue's thousands of n.d. rows
+# listed in full made a chart tens of thousands of px tall ('timelines check' names them all).
+UNDATED_LISTED = 50
 
 
 def legend_and_notes(used: set[str], color_key, text, theme: Theme, top: float,
@@ -184,10 +187,13 @@ def _report_notes(text) -> list[str]:
     """What the chart leaves out and why: every row is drawn or named here."""
     notes = []
     if text.undated:
-        notes.append(f"Undated, not drawn: {_names(text.undated)}.")
+        shown = text.undated[:UNDATED_LISTED]
+        more = len(text.undated) - len(shown)
+        rest = f" and {more:,} more ('timelines check' lists them all)" if more else ""
+        notes.append(f"Undated, not drawn: {_names(shown)}{rest}.")
     if text.not_drawn:
         rows = "row" if text.not_drawn == 1 else "rows"
-        notes.append(f"{text.not_drawn} {rows} with unreadable or contradictory dates not "
+        notes.append(f"{text.not_drawn:,} {rows} with unreadable or contradictory dates not "
                      "drawn; 'timelines check' lists them.")
     for panel, placed in text.keyed:
         listed = "; ".join(f"{p.key} {p.record.label}" for p in placed)
@@ -196,8 +202,8 @@ def _report_notes(text) -> list[str]:
     if text.outside:
         shown = text.outside[:OUTSIDE_LISTED]
         more = len(text.outside) - len(shown)
-        rest = f" and {more} more" if more else ""
-        count = "1 record lies" if len(text.outside) == 1 else f"{len(text.outside)} records lie"
+        rest = f" and {more:,} more" if more else ""
+        count = "1 record lies" if len(text.outside) == 1 else f"{len(text.outside):,} records lie"
         notes.append(f"{count} outside the time shown, not drawn: {_names(shown)}{rest}.")
     return notes
 

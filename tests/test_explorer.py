@@ -145,6 +145,27 @@ def test_the_data_holds_every_record_drawn_in_its_lane(tmp_path):
         assert all(a[1] <= b[0] for a, b in zip(spans, spans[1:]))
 
 
+def test_records_sharing_spans_give_the_data_of_records_each_with_its_own(tmp_path):
+    """The data worked out once per distinct span (records of a table share them) is the
+    data of the same records each holding a span object of its own."""
+    import copy
+
+    from timelines.model import Span
+
+    forms = ["1650", "c. 1655", "1700s", "../1660", "1650/..", "before 1690", "", "1650?"]
+    rows = [(f"R{i}", forms[i % 8], forms[(3 * i + 1) % 8] if i % 5 else "1702",
+             "abc"[i % 3]) for i in range(60)]
+    shared = list(Chart(_csv(tmp_path, rows), group="group").layout().loaded.records)
+    own = [copy.copy(record) for record in shared]
+    for record in own:
+        if record.span is not None:
+            object.__setattr__(record, "span", Span(copy.copy(record.span.start),
+                                                    copy.copy(record.span.end)))
+    assert len({id(r.span) for r in own}) > len({id(r.span) for r in shared})
+    columns = [Chart(records, group="group").explore().columns for records in (shared, own)]
+    assert json.dumps(columns[0]) == json.dumps(columns[1])
+
+
 def test_explanations_are_those_of_parse_explain(tmp_path):
     from timelines.dates import explain
 

@@ -10,11 +10,15 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, field
+from functools import lru_cache
+from operator import attrgetter
+
+import numpy as np
 from typing import Callable
 
 from ..calendar import reform_day
 from ..layout import Placement
-from ..model import Qualifier, Record
+from ..model import Qualifier, Record, Span
 from .bars import drawn_spans, stub_days, tooltip
 from .compose import ChartText, describe
 from .scale import TimeScale
@@ -59,29 +63,35 @@ def explore_data(placement: Placement, scale: TimeScale, theme: Theme,
         placed += [(lane + p.lane, p) for p in group.records]
         lane += group.lanes
     records = [p.record for _, p in placed]
-    drawn = drawn_spans([r.span for r in records], (scale.start, scale.end),
-                        stub_days(scale, theme))
+    spans, codes = _distinct_spans(records)
+    drawn = drawn_spans(spans, (scale.start, scale.end), stub_days(scale, theme))
     color_index = {value: index for index, (value, _) in enumerate(colors)}
     # Days are written from the axis's first whole day: shorter numbers, a smaller page.
     origin = math.floor(scale.start)
+    # What depends on the span alone is worked out once per distinct span (records read
+    # from one table share them: a register of a million rows holds some 30,000).
+    per_span = [(_drawn(row, _bounds(span), origin), _steps(_bounds(span), origin),
+                 _qualifier_bits(span), int(span.is_point), int(opens), int(core))
+                for span, row, opens, core in zip(
+                    spans, zip(drawn.start_low.tolist(), drawn.start_high.tolist(),
+                               drawn.end_low.tolist(), drawn.end_high.tolist()),
+                    (drawn.open_start.astype(int) + 2 * drawn.open_end.astype(int)).tolist(),
+                    drawn.has_core.tolist())]
+    of_record = [per_span[code] for code in codes]
+    lanes = [lane_number for lane_number, _ in placed]
     sources: dict[tuple[str, str], int] = {}
     columns = {
         "label": [r.label for r in records],
         "id": [r.id or "" for r in records] if any(r.id for r in records) else [],
-        "group": [_group_of(lane_number, groups) for lane_number, _ in placed],
-        "lane": [lane_number for lane_number, _ in placed],
+        "group": _groups_of(lanes, groups),
+        "lane": lanes,
         "colorValue": [color_index.get(r.color, -1) for r in records] if colors else [],
-        "point": [int(r.span.is_point or r.is_event) for r in records],
-        "drawn": [_compact(day - (origin if bound is None else bound))
-                  for record, row in zip(records, zip(
-                      drawn.start_low.tolist(), drawn.start_high.tolist(),
-                      drawn.end_low.tolist(), drawn.end_high.tolist()))
-                  for day, bound in zip(row, _bounds(record))],
-        "open": [int(s) + 2 * int(e) for s, e in zip(drawn.open_start.tolist(),
-                                                     drawn.open_end.tolist())],
-        "core": [int(c) for c in drawn.has_core.tolist()],
-        "bounds": [step for r in records for step in _steps(_bounds(r), origin)],
-        "qualifiers": [_qualifier_bits(r) for r in records],
+        "point": [values[3] or int(r.is_event) for r, values in zip(records, of_record)],
+        "drawn": [day for values in of_record for day in values[0]],
+        "open": [values[4] for values in of_record],
+        "core": [values[5] for values in of_record],
+        "bounds": [step for values in of_record for step in values[1]],
+        "qualifiers": [values[2] for values in of_record],
         "start": [r.start_text for r in records],
         # null: the start's own cell (a when column, or the same text); "": an empty cell.
         "end": [None if r.end_text == r.start_text and r.start_text else r.end_text
@@ -116,11 +126,37 @@ def explore_data(placement: Placement, scale: TimeScale, theme: Theme,
 _MOST_EXPLAINED = 20_000
 
 
-def _group_of(lane: int, groups: list[tuple[str, int, int]]) -> int:
-    for index, (_, first, count) in enumerate(groups):
-        if first <= lane < first + count:
-            return index
-    return len(groups) - 1
+def _distinct_spans(records: list[Record]) -> tuple[list[Span], list[int]]:
+    """The distinct span objects of `records` (in order of first use) and, per record, the
+    index of its own."""
+    place: dict[int, int] = {}
+    spans: list[Span] = []
+    codes = []
+    for span in map(_SPAN, records):
+        code = place.get(id(span))
+        if code is None:
+            code = place[id(span)] = len(spans)
+            spans.append(span)
+        codes.append(code)
+    return spans, codes
+
+
+def _groups_of(lanes: list[int], groups: list[tuple[str, int, int]]) -> list[int]:
+    """The group of each lane number: the one whose lanes hold it (the last, past them)."""
+    if not groups:
+        return [-1] * len(lanes)
+    numbers = np.asarray(lanes, dtype=np.int64)
+    firsts = np.array([first for _, first, _ in groups], dtype=np.int64)
+    counts = np.array([count for _, _, count in groups], dtype=np.int64)
+    found = np.searchsorted(firsts, numbers, side="right") - 1    # the last to begin by it
+    held = (found >= 0) & (numbers < firsts[found] + counts[found])
+    return np.where(held, found, len(groups) - 1).tolist()
+
+
+def _drawn(row, bounds: list[int | None], origin: int) -> list[float | int]:
+    """A span's drawn bounds, each from its own bound (from `origin` where it has none)."""
+    return [_compact(day - (origin if bound is None else bound))
+            for day, bound in zip(row, bounds)]
 
 
 def _steps(days, origin: int) -> list[float | int | None]:
@@ -142,13 +178,8 @@ def _compact(day: float) -> float | int:
     return int(step) if step == int(step) else step
 
 
-def _bounds(record: Record) -> list[int | None]:
-    span = record.span
+def _bounds(span: Span) -> list[int | None]:
     return [span.start.earliest, span.start.latest, span.end.earliest, span.end.latest]
-
-
-def _qualifiers(record: Record) -> frozenset[Qualifier]:
-    return record.span.start.qualifiers | record.span.end.qualifiers
 
 
 _BITS = {
@@ -163,8 +194,16 @@ _BITS = {
 }
 
 
-def _qualifier_bits(record: Record) -> int:
-    """The record's qualifiers as bits, in the order of FILTERED_QUALIFIERS."""
-    found = _qualifiers(record)
+def _qualifier_bits(span: Span) -> int:
+    """The span's qualifiers as bits, in the order of FILTERED_QUALIFIERS."""
+    return _bits_of(span.start.qualifiers | span.end.qualifiers)
+
+
+@lru_cache(maxsize=1024)
+def _bits_of(found: frozenset[Qualifier]) -> int:
+    # few distinct sets of qualifiers occur: each worked out once (speed alone)
     return sum(1 << index for index, name in enumerate(FILTERED_QUALIFIERS)
                if any(q in found for q in _BITS[name]))
+
+
+_SPAN = attrgetter("span")

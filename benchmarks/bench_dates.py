@@ -78,7 +78,7 @@ def _makers() -> list[tuple[int, Callable[[random.Random], str]]]:
         (2, lambda r: f"{r.randint(1, 24)} {_MONTHS[r.randint(0, 2)]} "
                       f"{(y := r.randint(1600, 1750))}/{(y + 1) % 100:02d}"),
         (1, lambda r: f"between {(y := r.randint(1000, 2000))} and {y + r.randint(1, 20)}"),
-        (1, lambda r: f"{(y := r.randint(1000, 2000))} ± {r.randint(1, 50)}"),
+        (1, lambda r: f"{r.randint(1000, 2000)} ± {r.randint(1, 50)}"),
         (1, lambda r: f"nonsense {r.randint(1, 10 ** 6)}"),   # cells that are not dates
     ]
 

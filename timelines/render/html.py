@@ -77,7 +77,7 @@ def render_html(data: ExploreData) -> str:
         f"<style>{style}</style>",
         "</head>",
         "<body>",
-        f'<main id="tl-app" aria-describedby="tl-summary">',
+        '<main id="tl-app" aria-describedby="tl-summary">',
         f'<h1 id="tl-title">{title}</h1>',
         f'<p id="tl-summary">{summary}</p>',
         '<noscript><p>This page draws its chart with a script; the static chart (SVG, PNG) '

@@ -78,6 +78,17 @@ def test_where_and_first_choose_the_lanes(tmp_path):
         Chart(_table(tmp_path, 10)).overview("yes", where="kind").layout()
 
 
+def test_a_where_that_no_record_answers_says_so_and_names_the_values(tmp_path):
+    # Not "nothing to draw: no row has a usable date": every row has one.
+    with pytest.raises(UsageError, match="no dated record has kind = 'X'") as raised:
+        Chart(_table(tmp_path, 40)).overview("yes", where="kind=X").layout()
+    assert raised.value.hint == "did you mean 'x'?"
+    with pytest.raises(UsageError, match="no dated record in --from/--to") as raised:
+        Chart(_table(tmp_path, 40)).overview("yes", where="kind=z").window("1600",
+                                                                          "1620").layout()
+    assert raised.value.hint == "kind holds 'x', 'y'"
+
+
 def test_the_window_is_marked_on_the_strips(tmp_path):
     chart = Chart(_table(tmp_path, 400), group="group").overview("yes").window("1650", "1660")
     scene = chart.scene()

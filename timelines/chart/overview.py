@@ -22,7 +22,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..columnar import RecordColumns
-from ..errors import UsageError
+from ..errors import UsageError, did_you_mean
 from ..model import Record
 from ..sources.fields import ColumnReader
 from ..spanarrays import (
@@ -83,8 +83,10 @@ def _chosen(chosen: Sequence[Record], window, where: str | None, first: int | No
     if where:
         column, value = _where(where)
         texts = read_column(column).texts(chosen)
-        chosen = _taken(chosen, [index for index, text in enumerate(texts)
-                                 if (text or "").strip() == value])
+        matching = [index for index, text in enumerate(texts) if (text or "").strip() == value]
+        if not matching:
+            raise _nothing_matches(column, value, texts, window)
+        chosen = _taken(chosen, matching)
         how.append(f"those with {column} = {value}")
     limit = first if first is not None else FIRST_SHOWN
     cut = len(chosen) > limit
@@ -100,6 +102,18 @@ def _chosen(chosen: Sequence[Record], window, where: str | None, first: int | No
                    + (" and, of them, those surely beginning in the window" if window is not None
                       else ""))
     return chosen, how
+
+
+def _nothing_matches(column: str, value: str, texts: list, window) -> UsageError:
+    """The error of a --where that no record answers, with the values there are."""
+    where = " in --from/--to" if window is not None else ""
+    values = sorted({(text or "").strip() for text in texts} - {""})
+    hint = did_you_mean(value, values) or (
+        f"{column} holds {', '.join(map(repr, values[:8]))}"
+        f"{f' and {len(values) - 8:,} more values' if len(values) > 8 else ''}" if values
+        else f"{column} is empty in every dated record{where}")
+    return UsageError(f"--where {column}={value}: no dated record{where} has {column} = "
+                      f"{value!r}", hint=hint)
 
 
 def _in_group_order(series, dated: Sequence[Record]) -> list:

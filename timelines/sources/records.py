@@ -15,15 +15,15 @@ import numpy as np
 
 from ..columnar import RecordColumns
 from ..dates import DateError, parse_column, parse_span_column
-from ..dates.column import Coded, DayEndpoints, parse_column_coded, parse_span_column_coded
+from ..dates.column import Coded, parse_column_coded, parse_span_column_coded
 from ..dates.built import checked_span
 from ..dates.settings import DEFAULT_SETTINGS, DateSettings
 from ..errors import UsageError
 from ..model import (
     EVENT, SPAN, Endpoint, Qualifier, Record, Span, collection_paused, event_endpoint,
 )
-from ..spanarrays import DaySpans
 from .conventions import hundreds_notes
+from .days import DateOutcome, DayOutcomes, day_outcomes, of_days
 from .columns import ColumnMap, detect_columns, existing_column, column_parts
 from .guarded import each_value_guarded, internal_error, parsed_column, unknown_value_notes
 from .problems import Problem
@@ -149,9 +149,6 @@ def read_records(path: str | Path, columns: ColumnMap = ColumnMap(),
                         date_numbers=date_numbers, events=events)
 
 
-DateOutcome = Span | None | list[tuple[int, DateError | None]]  # span, undated, or failures
-
-
 def _start_end_outcomes(cells: list[list[object]], layout: _Layout, settings: DateSettings,
                         sheet: bool) -> Coded:
     """Each row's outcome, as codes: each distinct pair of start and end readings is made
@@ -159,53 +156,14 @@ def _start_end_outcomes(cells: list[list[object]], layout: _Layout, settings: Da
     count = len(cells[0])
     starts = _side(cells, layout.start, _OPEN_START, settings, sheet, count)
     ends = _side(cells, layout.end, _OPEN_END, settings, sheet, count)
-    if not layout.events and _of_days(starts) and _of_days(ends):
-        return _day_outcomes(starts, ends, layout)
+    if not layout.events and of_days(starts) and of_days(ends):
+        return day_outcomes(starts, ends, layout.end)
     width = len(ends.results)
     pairs, codes = np.unique(starts.codes.astype(np.int64) * width + ends.codes,
                              return_inverse=True)
     outcomes = [_guarded_outcome(starts.results[pair // width], ends.results[pair % width],
                                  layout) for pair in pairs.tolist()]
     return Coded(codes.reshape(-1), outcomes)
-
-
-def _of_days(side: Coded) -> bool:
-    """Whether a side's results are plain days (or it has no column)."""
-    return isinstance(side.results, DayEndpoints) or side.results == [None]
-
-
-def _day_outcomes(starts: Coded, ends: Coded, layout: _Layout) -> Coded:
-    """`_start_end_outcomes` of two sides of plain days, on arrays: each distinct pair of
-    days is a span of `DaySpans` or, the end before the start, a contradiction."""
-    start_days, end_days = _days_of(starts), _days_of(ends)
-    width = len(end_days)
-    pairs, codes = np.unique(starts.codes.astype(np.int64) * width + ends.codes,
-                             return_inverse=True)
-    first, last = start_days[pairs // width], end_days[pairs % width]
-    contradicted = last < first                                  # NaN compares False
-    spans = DaySpans(np.where(contradicted, np.nan, first), np.where(contradicted, np.nan, last))
-    return Coded(codes.reshape(-1), _DayOutcomes(spans, contradicted, layout.end))
-
-
-def _days_of(side: Coded) -> np.ndarray:
-    if isinstance(side.results, DayEndpoints):
-        return side.results.as_floats()
-    return np.array([np.nan])                                   # no column: not known
-
-
-class _DayOutcomes(Sequence):
-    """The outcomes of distinct pairs of days: a span of `spans`, None (no day on either
-    side), or the end cell's contradiction where `contradicted`; each outcome made when
-    asked for."""
-
-    def __init__(self, spans: DaySpans, contradicted: np.ndarray, end: int | None) -> None:
-        self.spans, self.contradicted, self.end = spans, contradicted, end
-
-    def __len__(self) -> int:
-        return len(self.spans)
-
-    def __getitem__(self, index: int) -> DateOutcome:
-        return [(self.end, None)] if self.contradicted[index] else self.spans[index]
 
 
 def _side(cells: list[list[object]], place: int | None, open_side: Endpoint,
@@ -325,8 +283,8 @@ class _Texts:
 def _records(source: str, layout: _Layout, texts: _Texts, numbers: list[int],
              outcomes: Coded) -> RecordColumns:
     """The Records of the rows whose dates were read (dated or undated), as columns."""
-    if isinstance(outcomes.results, _DayOutcomes):
-        failed, spans = outcomes.results.contradicted, outcomes.results.spans
+    if isinstance(outcomes.results, DayOutcomes):
+        failed, spans = outcomes.results.failed(), outcomes.results.spans
     else:
         failed = np.fromiter((type(outcome) is list for outcome in outcomes.results),
                              dtype=bool, count=len(outcomes.results))
@@ -354,9 +312,8 @@ def _records(source: str, layout: _Layout, texts: _Texts, numbers: list[int],
 def _problems(source: str, layout: _Layout, texts: _Texts, numbers: list[int],
              outcomes: Coded) -> list[Problem]:
     """The problems of the rows, in row order: unreadable cells, contradictions, no date."""
-    if isinstance(outcomes.results, _DayOutcomes):
-        days = outcomes.results
-        reported = days.contradicted | ~days.spans.facts().dated
+    if isinstance(outcomes.results, DayOutcomes):
+        reported = outcomes.results.reported()
     else:
         reported = np.fromiter((type(outcome) is not Span for outcome in outcomes.results),
                                dtype=bool, count=len(outcomes.results))

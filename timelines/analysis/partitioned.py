@@ -42,7 +42,7 @@ from ..sources import ColumnMap, detect_columns, load_records
 from ..sources.frames import table_from_data
 from .activity import (ENVELOPE, KIND_NAMES, METHODS, block_width, blocks_between, envelope,
                        event_counts, simulated, span_counts)
-from .windows import group_value, event_windows, span_windows
+from .windows import column_group_values, fact_windows
 
 WINDOW_COLUMNS = {EVENT: ("low", "high"), SPAN: ("s0", "s1", "t0", "t1")}
 COUNT_COLUMNS = ("certain", "possible", "expected", "unweighed")
@@ -62,16 +62,16 @@ def window_partition(frame: pd.DataFrame, kind: str = SPAN, columns: ColumnMap =
     table = table_from_data(frame.reset_index(drop=True))
     loaded = load_records(table, detect_columns(table.header, columns), settings,
                           date_numbers=date_numbers, events=kind == EVENT)
+    records = loaded.records                  # the table's columns: no Record is made
     windows = np.full((len(frame), len(WINDOW_COLUMNS[kind])), np.nan)
     groups = np.full(len(frame), "", dtype=object)
-    value = group_value(group)
-    for record in loaded.records:
-        groups[record.provenance.row - table.first_row] = value(record)
-    rows = [record.provenance.row for record in loaded.records if record.span is not None]
-    dated = [record for record in loaded.records if record.span is not None]
-    if dated:
-        arrays = event_windows(dated) if kind == EVENT else span_windows(dated)
-        windows[np.asarray(rows) - table.first_row] = np.column_stack(arrays)
+    offsets = records.row_numbers() - table.first_row
+    groups[offsets] = column_group_values(records, group)
+    dated = records.dated()
+    if dated.any():
+        per_span = fact_windows(records.span_facts(), kind)
+        codes = records.codes()[dated]
+        windows[offsets[dated]] = np.column_stack([array[codes] for array in per_span])
     found = pd.DataFrame(windows, columns=list(WINDOW_COLUMNS[kind]), index=frame.index)
     found["group"] = groups
     return found

@@ -90,7 +90,7 @@ def _column_parts(records: RecordColumns, group: str | None) -> Parts:
     keys = _keys_of_rows(records.row_numbers())
     dated = np.flatnonzero(records.dated())
     table = records.take(dated)
-    values = _column_values(table, group)
+    values = column_group_values(table, group)
     names = sorted(set(values))
     place = dict(zip(names, range(len(names))))
     codes = np.fromiter(map(place.__getitem__, values), dtype=np.intp, count=len(values))
@@ -106,7 +106,8 @@ def _column_parts(records: RecordColumns, group: str | None) -> Parts:
     return Parts(_in_order(parts), held, len(records) - len(dated))
 
 
-def _column_values(records: RecordColumns, group: str | None) -> list[str]:
+def column_group_values(records: RecordColumns, group: str | None) -> list[str]:
+    """`group_value` of each record of a table's columns."""
     if group is None:
         return [""] * len(records)
     texts = records.column("groups") if group == "group" else records.field(group)

@@ -153,3 +153,22 @@ def test_of_a_window_the_part_takes_records_beginning_in_it_first(tmp_path):
     assert "of them, those surely beginning in the window" in arranged.overview.note
     assert arranged.overview.window == (fixed_from_gregorian(1700, 1, 1),
                                        fixed_from_gregorian(1710, 12, 31) + 1)
+
+
+def _captions(chart) -> list[str]:
+    [strip] = find(chart.scene(), "overview")
+    return [t.text for t in walk(strip.children)
+            if isinstance(t, Text) and "panel-title" in t.css_class]
+
+
+def test_strips_name_the_kind_only_where_both_kinds_are_counted(tmp_path):
+    path = _table(tmp_path, 60)
+    events = Chart(path, group="group").events().overview("yes")
+    assert _captions(events) == ["g0", "g1", "g2"]      # not "events: g0": one kind
+    from dataclasses import replace
+
+    spans = list(Chart(path, group="group").layout().loaded.records)
+    mixed = [replace(record, kind="event") if index % 2 else record
+             for index, record in enumerate(spans)]
+    captions = _captions(Chart(mixed, group="group").overview("yes"))
+    assert set(captions) == {f"{kind}: g{n}" for kind in ("events", "spans") for n in range(3)}

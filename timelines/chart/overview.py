@@ -67,7 +67,8 @@ def choose_part(records: Sequence[Record], kept: Sequence[Record], window, where
             f"{'; '.join(how)}. Every record is in an explorer written with -o chart.html; "
             "--overview no draws all lanes.")
     chosen = list(chosen)
-    overview = Overview(tuple(_named(s) for s in series), first_day, last_day,
+    one_kind = len({s.name.split(": ", 1)[0] for s in series}) == 1
+    overview = Overview(tuple(_named(s, one_kind) for s in series), first_day, last_day,
                         _shown(chosen, window) if chosen else None, note)
     return Part(_undated(kept) + chosen, overview, len(dated) - len(chosen))
 
@@ -204,11 +205,12 @@ def _group_name(series) -> str | None:
     return series.name.split(": ", 1)[1] if ": " in series.name else None
 
 
-def _named(series):
-    """A strip's caption: the group alone (the legend says how records are counted)."""
+def _named(series, one_kind: bool):
+    """A strip's caption: the group alone when the records are of one kind, events or spans
+    (the legend says how they are counted); kind and group when both kinds are there."""
     name = series.name
-    if name.startswith("spans: "):
-        name = name[len("spans: "):]
+    if one_kind and ": " in name:
+        name = name.split(": ", 1)[1]
     return type(series)(name, "", series.starts, series.ends, series.certain,
                         series.possible, series.expected, series.low, series.high)
 

@@ -13,7 +13,7 @@ for a span something asks for (one that is drawn, or named in a warning).
 """
 from __future__ import annotations
 
-from collections.abc import Sequence
+from collections.abc import Iterable, Sequence
 from dataclasses import dataclass
 from operator import attrgetter
 
@@ -96,6 +96,16 @@ def span_facts(spans: Sequence[Span | None]) -> SpanFacts:
         end_radiocarbon=codes((side.radiocarbon is not None for side in ends), bool),
         likely=codes((first.likely is not None or last.likely is not None
                       for first, last in zip(starts, ends)), bool))
+
+
+def distinct_spans(spans: Iterable[Span]) -> tuple[list[Span], dict[int, int]]:
+    """The distinct span objects of `spans` in order of first use, and the place of each
+    among them by its id. Records read from one table share Span objects for equal cells,
+    so what depends on the span alone is worked out once per distinct one (the callers keep
+    the spans alive, so the ids stay theirs)."""
+    spans = list(spans)
+    by_id = dict(zip(map(id, spans), spans))
+    return list(by_id.values()), dict(zip(by_id, range(len(by_id))))
 
 
 def bounds_of(spans: Sequence[Span]) -> np.ndarray:

@@ -58,7 +58,7 @@ def choose_part(records: Sequence[Record], kept: Sequence[Record], window, where
     for the part drawn alone."""
     dated = _dated(records)
     chosen, how = _chosen(_dated(kept), window, where, first, read_column)
-    lows, highs, _ = _extents(dated)
+    lows, highs, _ = _extents(_facts(dated))
     first_day, last_day = float(lows.min()), float(highs.max())     # the whole time, once
     per = _block((last_day - first_day) / 365.2425)
     series = _in_group_order(activity_series(_activity(dated, per, era, calendar)), dated)
@@ -92,10 +92,11 @@ def _chosen(chosen: Sequence[Record], window, where: str | None, first: int | No
     limit = first if first is not None else FIRST_SHOWN
     cut = len(chosen) > limit
     if cut:
-        low, _, bounded = _extents(chosen)
+        facts = _facts(chosen)
+        low, _, bounded = _extents(facts)
         # Of a window, those surely beginning in it first: whole bars, not ends reaching in
         # from before it, nor starts that may lie anywhere in a century.
-        inside = _begin_in(chosen, window)
+        inside = _begin_in(facts, window)
         order = np.lexsort((_rows(chosen), low, ~inside, ~bounded))[:limit]     # stable
         chosen = _taken(chosen, order.tolist())
     if cut or first is not None:
@@ -149,9 +150,9 @@ def _taken(records: Sequence[Record], indices: list[int]) -> Sequence[Record]:
     return [records[index] for index in indices]
 
 
-def _begin_in(dated: Sequence[Record], window) -> np.ndarray:
+def _begin_in(facts: SpanFacts, window) -> np.ndarray:
     """Which records surely begin in the window: their start's window lies inside it."""
-    bounds = _facts(dated).bounds
+    bounds = facts.bounds
     inside = np.ones(len(bounds), dtype=bool)
     if window is not None and window.start is not None:
         inside &= bounds[:, EARLIEST_START] >= window.start          # NaN compares False
@@ -167,12 +168,12 @@ def _facts(dated: Sequence[Record]) -> SpanFacts:
     return span_facts([record.span for record in dated])
 
 
-def _extents(dated: Sequence[Record]) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
-    """Each dated record's first and last day known (its earliest bound, or the next one
-    known; its latest, or the one before) and whether its dates bound both ends (an end
-    cell left empty could lie anywhere: in a chosen decade such a record is drawn as a stub
-    far outside it, which says little, so the part takes the bounded first)."""
-    facts = _facts(dated)
+def _extents(facts: SpanFacts) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Each dated record's (given by its span's facts) first and last day known (its
+    earliest bound, or the next one known; its latest, or the one before) and whether its
+    dates bound both ends (an end cell left empty could lie anywhere: in a chosen decade
+    such a record is drawn as a stub far outside it, which says little, so the part takes
+    the bounded first)."""
     bounds = facts.bounds
     low, high = bounds[:, LATEST_END].copy(), bounds[:, EARLIEST_START].copy()
     for column in (EARLIEST_END, LATEST_START, EARLIEST_START):       # the first known wins
@@ -226,7 +227,7 @@ def _block(years: float) -> str:
 def _shown(records: list[Record], window) -> tuple[float, float]:
     """The days the lanes' axis shows: the window's sides (the last day whole), the
     records' first and last days where it has none."""
-    low, high, _ = _extents(records)
+    low, high, _ = _extents(_facts(records))
     first, last = float(low.min()), float(high.max()) + 1
     if window is None:
         return first, last

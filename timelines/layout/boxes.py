@@ -18,6 +18,7 @@ import numpy as np
 
 from ..columnar import RecordColumns
 from ..model import Record, Span
+from ..spanarrays import distinct_spans
 from .labels import LABEL_SIDES, label_boxes
 
 
@@ -69,12 +70,8 @@ class BoxMeasure:
             self.rows = np.full(len(first.spans), -1, dtype=np.intp)
             self.rows[codes] = np.arange(len(codes))
         else:
-            # Records of one table share Span objects for equal cells: id names them (the
-            # records keep them alive), and each distinct one is measured once.
-            every = [span for part in parts for span in map(_SPAN, part)]
-            by_key = dict(zip(map(id, every), every))
-            spans = list(by_key.values())
-            self.rows = dict(zip(by_key, range(len(by_key))))   # of each span's measures
+            # Each distinct span object measured once; rows: the place of each one's measures.
+            spans, self.rows = distinct_spans(span for part in parts for span in map(_SPAN, part))
         measured = np.asarray(measure_spans(spans), dtype=float)
         self.measured = measured.reshape(-1, 6 if measured.ndim == 2 and measured.shape[1] == 6
                                          else 4)

@@ -12,13 +12,14 @@ import math
 from dataclasses import dataclass, field
 from functools import lru_cache
 from operator import attrgetter
+from typing import Callable
 
 import numpy as np
-from typing import Callable
 
 from ..calendar import reform_day
 from ..layout import Placement
 from ..model import Qualifier, Record, Span
+from ..spanarrays import distinct_spans
 from .bars import drawn_spans, stub_days, tooltip
 from .compose import ChartText, describe
 from .scale import TimeScale
@@ -63,7 +64,8 @@ def explore_data(placement: Placement, scale: TimeScale, theme: Theme,
         placed += [(lane + p.lane, p) for p in group.records]
         lane += group.lanes
     records = [p.record for _, p in placed]
-    spans, codes = _distinct_spans(records)
+    spans, place = distinct_spans(map(_SPAN, records))
+    codes = [place[id(record.span)] for record in records]
     drawn = drawn_spans(spans, (scale.start, scale.end), stub_days(scale, theme))
     color_index = {value: index for index, (value, _) in enumerate(colors)}
     # Days are written from the axis's first whole day: shorter numbers, a smaller page.
@@ -124,21 +126,6 @@ def explore_data(placement: Placement, scale: TimeScale, theme: Theme,
 # chart's tooltip, up to this many: a catalogue of 100,000 records would otherwise carry
 # megabytes of them and take seconds to write; the explorer writes the bounds itself beyond.
 _MOST_EXPLAINED = 20_000
-
-
-def _distinct_spans(records: list[Record]) -> tuple[list[Span], list[int]]:
-    """The distinct span objects of `records` (in order of first use) and, per record, the
-    index of its own."""
-    place: dict[int, int] = {}
-    spans: list[Span] = []
-    codes = []
-    for span in map(_SPAN, records):
-        code = place.get(id(span))
-        if code is None:
-            code = place[id(span)] = len(spans)
-            spans.append(span)
-        codes.append(code)
-    return spans, codes
 
 
 def _groups_of(lanes: list[int], groups: list[tuple[str, int, int]]) -> list[int]:

@@ -16,7 +16,7 @@ from ..errors import UsageError
 from ..layout import GroupNode, LaneRules, TimeWindow, group_tree
 from ..layout.grouping import BY_GROUP
 from ..model import Qualifier, Record
-from ..spanarrays import EARLIEST_START, LATEST_END, span_facts
+from ..spanarrays import EARLIEST_START, LATEST_END, distinct_spans, span_facts
 from .bars import drawn_spans, qualifier_kind, stub_days
 from .compose import SUBGROUP_INDENT
 from .encodings import OPEN_ARROW_REACH
@@ -162,9 +162,8 @@ def _bounds(dated: Sequence[Record]) -> tuple[float, float]:
         bounds = dated.span_bounds()[dated.used_codes()]
         if not np.isnan(bounds).all():
             return int(np.nanmin(bounds)), int(np.nanmax(bounds))   # whole days
-    spans = [r.span for r in dated]
-    # Records read from one table share Span objects: each distinct one is looked at once.
-    bounds = [day for span in dict(zip(map(id, spans), spans)).values()
+    spans, _ = distinct_spans(r.span for r in dated)      # each distinct one looked at once
+    bounds = [day for span in spans
               for day in (span.start.earliest, span.start.latest, span.end.earliest,
                           span.end.latest) if day is not None]
     return min(bounds), max(bounds)

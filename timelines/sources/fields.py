@@ -31,9 +31,10 @@ def column_reader(columns: ColumnMap, header: tuple[str, ...] | None, name: str,
     return ColumnReader(name, role)
 
 
-# The RecordColumns column holding each role's texts.
-_ROLE_COLUMNS = {"label": "labels", "id": "ids", "group": "groups", "color": "colors",
-                 "start": "start_texts", "when": "start_texts", "end": "end_texts"}
+# Where each role's text is kept: the Record attribute, and the RecordColumns column.
+_ROLES = {"label": ("label", "labels"), "id": ("id", "ids"), "group": ("group", "groups"),
+          "color": ("color", "colors"), "start": ("start_text", "start_texts"),
+          "when": ("start_text", "start_texts"), "end": ("end_text", "end_texts")}
 
 
 @dataclass(frozen=True, slots=True)
@@ -45,12 +46,8 @@ class ColumnReader:
     role: str | None
 
     def __call__(self, record: Record) -> str | None:
-        if self.role in ("label", "id", "group", "color"):
-            return getattr(record, self.role)
-        if self.role in ("start", "when"):
-            return record.start_text
-        if self.role == "end":
-            return record.end_text
+        if self.role in _ROLES:
+            return getattr(record, _ROLES[self.role][0])
         for column, text in record.fields:
             if column == self.name:
                 return text
@@ -60,6 +57,7 @@ class ColumnReader:
         """The text of each of `records`: read from a table's columns where they are kept so
         (no Record made)."""
         if isinstance(records, RecordColumns):
-            held = _ROLE_COLUMNS.get(self.role)
-            return records.column(held) if held else records.field(self.name)
+            if self.role in _ROLES:
+                return records.column(_ROLES[self.role][1])
+            return records.field(self.name)
         return list(map(self, records))
